@@ -1,0 +1,40 @@
+import type { CliIo } from './cliIo';
+
+/** One sub-command of `lurk`: its one-line summary and its runner (returns the exit status). */
+export interface LurkCommand {
+  summary: string;
+  run(args: readonly string[], io: CliIo): Promise<number>;
+}
+
+// Each command lives in its own module under ./commands and is loaded only when used.
+const commands: Record<string, () => Promise<LurkCommand>> = {
+};
+
+const CAUTION =
+  'A sensitivity analysis bounds how strong hidden confounding would have to be; it does not prove causation.\n' +
+  'Decisions about health or safety defer to domain experts, local guidance and licensed practice.\n';
+
+export async function runLurk(argv: readonly string[], io: CliIo): Promise<number> {
+  const [name, ...rest] = argv;
+  if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
+    io.out(await overview());
+    return 0;
+  }
+  if (name === '--version') {
+    io.out('lurk 0.1.0\n');
+    return 0;
+  }
+  const load = commands[name];
+  if (!load) {
+    io.err(`lurk: "${name}" is not a command. Commands: ${Object.keys(commands).join(', ')}. See lurk --help.\n`);
+    return 2;
+  }
+  return (await load()).run(rest, io);
+}
+
+async function overview(): Promise<string> {
+  const lines = ['lurk — how strong would a hidden confounder have to be to overturn this finding?', '', 'Commands:'];
+  for (const [name, load] of Object.entries(commands)) lines.push(`  lurk ${name.padEnd(8)} ${(await load()).summary}`);
+  lines.push('', 'Run lurk COMMAND --help for its options.', '', CAUTION);
+  return lines.join('\n');
+}

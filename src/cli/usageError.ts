@@ -1,0 +1,38 @@
+import type { InputProblem } from '../core/inputProblem';
+import { InputError } from '../core/inputProblem';
+import type { CliIo } from './cliIo';
+
+/** Exit status for bad input (a usage error), as is usual for command-line tools. */
+export const EXIT_BAD_INPUT = 2;
+
+/** A command-line problem: which option and which rule. */
+export class UsageError extends Error {
+  constructor(
+    readonly field: string,
+    readonly rule: string,
+  ) {
+    super(`${field}: ${rule}`);
+    this.name = 'UsageError';
+  }
+}
+
+/**
+ * Prints the first problem of a bad-input error as one line `lurk <command>: field: rule` (the rule of the
+ * project: one clear message naming the field and the rule) and returns the exit status 2.
+ * Anything else is re-thrown: it is a bug, not bad input.
+ */
+export function reportBadInput(command: string, error: unknown, io: CliIo): number {
+  let problems: InputProblem[] | undefined;
+  if (error instanceof UsageError) problems = [{ field: error.field, code: 'usage', message: error.rule }];
+  else if (error instanceof InputError) problems = [...error.problems];
+  if (!problems) throw error;
+  const first = problems[0];
+  io.err(`lurk ${command}: ${optionName(first.field)}: ${first.message}\n`);
+  return EXIT_BAD_INPUT;
+}
+
+/** Input-object field names are camelCase; on the command line they are --kebab-case options. */
+export function optionName(field: string): string {
+  if (field.startsWith('--') || field.includes(' ') || field.includes('[') || field.includes('.')) return field;
+  return '--' + field.replace(/[A-Z]/g, (c) => '-' + c.toLowerCase());
+}

@@ -1,0 +1,2 @@
+// The numerical core of Lurk: pure functions, no DOM, no I/O. One concept per file.
+export * from './inputProblem';

@@ -1,0 +1,59 @@
+/// <reference types="vitest/config" />
+import { defineConfig } from 'vite';
+import { playwright } from '@vitest/browser-playwright';
+import { chromiumArgs, chromiumPath } from './test/support/chromium.ts';
+
+// One config for the app build, the test projects and the benchmarks.
+export default defineConfig({
+  server: { host: '127.0.0.1' },
+  preview: { host: '127.0.0.1' },
+  build: {
+    target: 'es2022',
+    outDir: 'dist/app',
+    sourcemap: false,
+  },
+  worker: { format: 'es' },
+  test: {
+    reporters: ['default', './test/support/count-reporter.ts'],
+    projects: [
+      {
+        extends: true,
+        test: {
+          name: 'unit',
+          environment: 'node',
+          include: ['test/**/*.test.ts'],
+          exclude: ['test/browser/**', 'test/e2e/**', 'node_modules/**'],
+          benchmark: { include: ['bench/**/*.bench.ts'] },
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'browser',
+          include: ['test/browser/**/*.test.ts'],
+          browser: {
+            enabled: true,
+            headless: true,
+            screenshotFailures: false,
+            provider: playwright({
+              launchOptions: { executablePath: chromiumPath, args: chromiumArgs },
+            }),
+            instances: [{ browser: 'chromium' }],
+          },
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'e2e',
+          environment: 'node',
+          include: ['test/e2e/**/*.test.ts'],
+          globalSetup: ['test/e2e/serve-built-app.ts'],
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+          fileParallelism: false,
+        },
+      },
+    ],
+  },
+});
