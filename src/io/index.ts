@@ -1,0 +1,4 @@
+// Text in, text out: parsing, CSV reading, formatting and exports.
+export * from './parseNumberText';
+export * from './csv';
+export * from './formatNumber';

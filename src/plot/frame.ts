@@ -1,0 +1,104 @@
+import { scaleLinear, scaleLog } from 'd3-scale';
+import type { AxisSpec, PlotArea, Tick } from './plotSpec';
+import { formatNumber } from '../io/formatNumber';
+
+export interface AxisOptions {
+  /** Data values at the two ends; for `log`, both must be positive. */
+  domain: readonly [number, number];
+  label: string;
+  scale?: 'linear' | 'log';
+  /** Approximate number of ticks (d3's tick algorithm chooses round values). */
+  tickCount?: number;
+  /** How tick values are written (default: 3 significant digits, trailing zeros dropped). */
+  tickFormat?: (value: number) => string;
+}
+
+export interface FrameOptions {
+  width: number;
+  height: number;
+  /** Space for axes and labels around the plotting area. */
+  margin?: Partial<{ top: number; right: number; bottom: number; left: number }>;
+  x: AxisOptions;
+  y: AxisOptions;
+}
+
+/** Pixel mapping and axes for one plot. */
+export interface Frame {
+  readonly width: number;
+  readonly height: number;
+  readonly inner: PlotArea;
+  /** Data → pixel. Values outside the domain map outside the plotting area (clip when drawing). */
+  x(value: number): number;
+  y(value: number): number;
+  /** Pixel → data (for pointer read-outs). */
+  invertX(pixel: number): number;
+  invertY(pixel: number): number;
+  readonly xAxis: AxisSpec;
+  readonly yAxis: AxisSpec;
+}
+
+const DEFAULT_MARGIN = { top: 16, right: 20, bottom: 52, left: 64 };
+
+/**
+ * Scales and ticks for a plot (d3-scale: linear or logarithmic, "nice" round ticks).
+ * The y axis grows upwards. Tick labels never show NaN or Infinity.
+ */
+export function createFrame(options: FrameOptions): Frame {
+  const margin = { ...DEFAULT_MARGIN, ...options.margin };
+  const inner: PlotArea = {
+    left: margin.left,
+    top: margin.top,
+    right: options.width - margin.right,
+    bottom: options.height - margin.bottom,
+  };
+  const xScale = makeScale(options.x, [inner.left, inner.right]);
+  const yScale = makeScale(options.y, [inner.bottom, inner.top]);
+  return {
+    width: options.width,
+    height: options.height,
+    inner,
+    x: (v) => xScale(v),
+    y: (v) => yScale(v),
+    invertX: (p) => xScale.invert(p),
+    invertY: (p) => yScale.invert(p),
+    xAxis: axisSpec(options.x, xScale, [inner.left, inner.right]),
+    yAxis: axisSpec(options.y, yScale, [inner.bottom, inner.top]),
+  };
+}
+
+type Scale = ((v: number) => number) & { invert(p: number): number; ticks(count?: number): number[] };
+
+function makeScale(axis: AxisOptions, range: [number, number]): Scale {
+  const [a, b] = axis.domain;
+  if (axis.scale === 'log') {
+    const lo = a > 0 && Number.isFinite(a) ? a : 1e-6;
+    const hi = b > lo && Number.isFinite(b) ? b : lo * 10;
+    return scaleLog().domain([lo, hi]).range(range) as unknown as Scale;
+  }
+  const lo = Number.isFinite(a) ? a : 0;
+  const hi = Number.isFinite(b) && b !== lo ? b : lo + 1;
+  return scaleLinear().domain([lo, hi]).range(range) as unknown as Scale;
+}
+
+function axisSpec(axis: AxisOptions, scale: Scale, range: [number, number]): AxisSpec {
+  const format = axis.tickFormat ?? ((v: number) => formatNumber(v, { significant: 3 }));
+  let values = scale.ticks(axis.tickCount ?? 6);
+  if (axis.scale === 'log' && values.length > 10) values = thinLogTicks(values);
+  const ticks: Tick[] = values.filter(Number.isFinite).map((value) => ({ value, position: scale(value), label: format(value) }));
+  return {
+    label: axis.label,
+    scale: axis.scale ?? 'linear',
+    domain: [axis.domain[0], axis.domain[1]],
+    range,
+    ticks,
+  };
+}
+
+/** On a log axis d3 returns every 1–9 multiple; keep the 1, 2 and 5 multiples so labels do not overlap. */
+function thinLogTicks(values: number[]): number[] {
+  const kept = values.filter((v) => {
+    const leading = Math.round(v / Math.pow(10, Math.floor(Math.log10(v) + 1e-9)));
+    return leading === 1 || leading === 2 || leading === 5;
+  });
+  return kept.length >= 2 ? kept : values;
+}

@@ -1,0 +1,30 @@
+/**
+ * Lurk's plot colours: chosen from the colour-blind-safe set of Okabe & Ito (2008, "Color Universal Design",
+ * J*FLY), with distinct marker shapes and dash patterns so that nothing depends on colour alone.
+ */
+export const palette = Object.freeze({
+  /** The estimate's own curve or point. */
+  estimate: '#0072B2',
+  /** The interval limit's curve. */
+  interval: '#D55E00',
+  /** Shading of the region where the conclusion would change. */
+  overturned: '#E69F00',
+  /** Reference or benchmark points. */
+  reference: '#009E73',
+  /** A second series. */
+  second: '#CC79A7',
+  /** Thresholds (α, the null). */
+  threshold: '#56564f',
+  /** Axis lines, tick labels and text. */
+  ink: '#1f2328',
+  /** Grid lines. */
+  grid: '#d8dde3',
+  /** Contour lines. */
+  contour: '#6b7785',
+});
+
+/** A sequence for several series, in order of distinguishability. */
+export const seriesColors: readonly string[] = Object.freeze(['#0072B2', '#D55E00', '#009E73', '#CC79A7', '#E69F00', '#56B4E9']);
+
+/** Dash patterns paired with `seriesColors`. */
+export const seriesDashes: readonly string[] = Object.freeze(['', '6 3', '2 3', '8 3 2 3', '4 4', '1 2']);
