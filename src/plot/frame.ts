@@ -2,6 +2,14 @@ import { scaleLinear, scaleLog } from 'd3-scale';
 import type { AxisSpec, PlotArea, Tick } from './plotSpec';
 import { formatNumber } from '../io/formatNumber';
 
+/** Tick values are round numbers: write them without float noise or trailing zeros (0.30000000000000004 → 0.3). */
+export function defaultTickLabel(value: number): string {
+  if (!Number.isFinite(value)) return formatNumber(value);
+  const abs = Math.abs(value);
+  if (abs !== 0 && (abs >= 1e7 || abs < 1e-5)) return formatNumber(value, { significant: 2 });
+  return String(Number(value.toPrecision(6)));
+}
+
 export interface AxisOptions {
   /** Data values at the two ends; for `log`, both must be positive. */
   domain: readonly [number, number];
@@ -81,7 +89,7 @@ function makeScale(axis: AxisOptions, range: [number, number]): Scale {
 }
 
 function axisSpec(axis: AxisOptions, scale: Scale, range: [number, number]): AxisSpec {
-  const format = axis.tickFormat ?? ((v: number) => formatNumber(v, { significant: 3 }));
+  const format = axis.tickFormat ?? defaultTickLabel;
   let values = scale.ticks(axis.tickCount ?? 6);
   if (axis.scale === 'log' && values.length > 10) values = thinLogTicks(values);
   const ticks: Tick[] = values.filter(Number.isFinite).map((value) => ({ value, position: scale(value), label: format(value) }));
