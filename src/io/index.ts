@@ -2,3 +2,5 @@
 export * from './parseNumberText';
 export * from './csv';
 export * from './formatNumber';
+export * from './csvChunkReader';
+export * from './regressionData';
