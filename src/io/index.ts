@@ -2,5 +2,6 @@
 export * from './parseNumberText';
 export * from './csv';
 export * from './formatNumber';
+export * from './studyLabels';
 export * from './csvChunkReader';
 export * from './regressionData';

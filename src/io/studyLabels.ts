@@ -1,0 +1,34 @@
+/**
+ * The labels of the finding being appraised, shared by every calculator so that its text, tables and plots
+ * speak of "cycling to work" and "hypertension" rather than "exposure" and "outcome".
+ */
+export interface StudyLabels {
+  /** A short name of the finding, e.g. "Cycling to work and hypertension". */
+  readonly finding: string;
+  /** The exposure or treatment, e.g. "cycling to work". */
+  readonly exposure: string;
+  /** The outcome, e.g. "hypertension within 5 years". */
+  readonly outcome: string;
+  /** Units of a continuous outcome, e.g. "mmHg" (empty when the outcome is binary). */
+  readonly units: string;
+  /** Where the finding comes from: a citation or a note. */
+  readonly source: string;
+}
+
+export const emptyStudy: StudyLabels = Object.freeze({ finding: '', exposure: '', outcome: '', units: '', source: '' });
+
+/** The exposure's label for prose, or a generic phrase when none was given. */
+export function exposureLabel(study: Partial<StudyLabels> | undefined): string {
+  return study?.exposure?.trim() || 'the exposure';
+}
+
+/** The outcome's label for prose, or a generic phrase when none was given. */
+export function outcomeLabel(study: Partial<StudyLabels> | undefined): string {
+  return study?.outcome?.trim() || 'the outcome';
+}
+
+/** " mmHg" when units are set, for appending to numbers. */
+export function unitsSuffix(study: Partial<StudyLabels> | undefined): string {
+  const units = study?.units?.trim();
+  return units ? ` ${units}` : '';
+}
