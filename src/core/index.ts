@@ -9,3 +9,4 @@ export * from './riskRatioScale';
 export * from './twoByTwo';
 export * from './eValueAnalysis';
 export * from './referenceConfounder';
+export * from './crossProductFit';

@@ -5,3 +5,4 @@ export * from './formatNumber';
 export * from './studyLabels';
 export * from './csvChunkReader';
 export * from './regressionData';
+export * from './summaryStatisticsSql';
