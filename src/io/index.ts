@@ -6,3 +6,5 @@ export * from './studyLabels';
 export * from './csvChunkReader';
 export * from './regressionData';
 export * from './summaryStatisticsSql';
+export * from './twoByTwoFromCsv';
+export * from './eValueText';
