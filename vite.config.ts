@@ -3,15 +3,20 @@ import { defineConfig } from 'vite';
 import { playwright } from '@vitest/browser-playwright';
 import { chromiumArgs, chromiumPath } from './test/support/chromium.ts';
 
-// One config for the app build, the test projects and the benchmarks.
-export default defineConfig({
+// One config for the app build (default), the embeddable components bundle (`--mode components`),
+// the test projects and the benchmarks.
+export default defineConfig(({ mode }) => ({
   server: { host: '127.0.0.1' },
   preview: { host: '127.0.0.1' },
-  build: {
-    target: 'es2022',
-    outDir: 'dist/app',
-    sourcemap: false,
-  },
+  build:
+    mode === 'components'
+      ? {
+          // One module script that registers every <lurk-…> element on any page.
+          target: 'es2022',
+          outDir: 'dist/components',
+          lib: { entry: 'components/index.ts', formats: ['es'], fileName: () => 'lurk-components.js' },
+        }
+      : { target: 'es2022', outDir: 'dist/app', sourcemap: false },
   worker: { format: 'es' },
   test: {
     reporters: ['default', './test/support/count-reporter.ts'],
@@ -56,4 +61,4 @@ export default defineConfig({
       },
     ],
   },
-});
+}));
