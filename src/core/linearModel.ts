@@ -68,6 +68,9 @@ const REFERENCES = Object.freeze([
   'N. R. Draper and H. Smith, Applied Regression Analysis, 3rd ed., Wiley, 1998, ch. 5 (standard errors, t statistics, R²).',
 ]);
 
+/** Variation of the response below this fraction of its norm is rounding noise (constant response, exact fit). */
+const RESPONSE_TOLERANCE = 1e-11;
+
 /** Default collinearity tolerance (R's `lm` uses `tol = 1e-7` in its QR). */
 export const DEFAULT_COLLINEARITY_TOLERANCE = 1e-7;
 
@@ -121,8 +124,8 @@ interface Retriangulated {
   rKept: Float64Array;
   /** Qᵀy restricted to the kept predictors (length rank). */
   z: Float64Array;
-  /** Residual sum of squares of the response on the kept predictors. */
-  rss: number;
+  /** √RSS of the response on the kept predictors (kept as a norm: RSS itself may overflow for huge data). */
+  residualNorm: number;
   collinear: CollinearColumn[];
 }
 
@@ -185,8 +188,8 @@ function retriangulate(design: TriangularDesign, order: readonly number[], respo
   const responseBase = (q - 1) * p;
   const z = new Float64Array(rank);
   for (let i = 0; i < rank; i++) z[i] = a[responseBase + i];
-  const remainder = columnNorm(a, responseBase, rank, p);
-  return { kept: keptSlots, rKept, z, rss: remainder * remainder, collinear };
+  const residualNorm = columnNorm(a, responseBase, rank, p);
+  return { kept: keptSlots, rKept, z, residualNorm, collinear };
 }
 
 /** ‖A[from..p-1, column]‖ with rescaling (the data may be huge or tiny). */
@@ -321,11 +324,12 @@ function computeFit(design: TriangularDesign, spec: LeastSquaresSpec): ComputedF
   const hasIntercept = design.interceptColumn !== null && spec.predictors.includes(design.interceptColumn);
   const rank = tri.kept.length;
   // Total sum of squares: about the mean with an intercept (processed first), about zero without.
-  let tss = tri.rss;
-  for (let i = hasIntercept ? 1 : 0; i < rank; i++) tss += tri.z[i] * tri.z[i];
-  if (hasIntercept && !(tss > 0)) {
+  const totalNorm = scaledHypot([tri.residualNorm, ...tri.z.subarray(hasIntercept ? 1 : 0)]);
+  // The response's own norm: variation below rounding level of it means a constant response.
+  const responseNorm = scaledHypot([tri.residualNorm, ...tri.z]);
+  if (hasIntercept && !(totalNorm > RESPONSE_TOLERANCE * responseNorm)) {
     problems.push(inputProblem('response', 'constant', `"${spec.response}" is constant in every row used, so there is nothing to explain.`, spec.response));
-  } else if (!hasIntercept && !(tss > 0)) {
+  } else if (!hasIntercept && !(totalNorm > 0)) {
     problems.push(inputProblem('response', 'zero-column', `"${spec.response}" is zero in every row used, so there is nothing to explain.`, spec.response));
   }
   if (problems.length > 0) return { problems };
@@ -340,10 +344,12 @@ function computeFit(design: TriangularDesign, spec: LeastSquaresSpec): ComputedF
   const rInv = upperTriangularInverse(tri.rKept, rank);
   const n = design.rowCount;
   const df = n - rank;
-  const rss = tri.rss;
-  const sigma = Math.sqrt(rss / df);
+  const residualNorm = tri.residualNorm;
+  const sigma = residualNorm / Math.sqrt(df);
   const warnings: string[] = [];
-  if (rss === 0) warnings.push('The predictors fit the response exactly (no residual variation): standard errors are zero.');
+  if (!(residualNorm > RESPONSE_TOLERANCE * totalNorm)) {
+    warnings.push('The predictors fit the response exactly (no residual variation beyond rounding): standard errors are zero or meaningless.');
+  }
 
   const count = spec.predictors.length;
   const coefficients = new Array<number>(count);
@@ -377,10 +383,10 @@ function computeFit(design: TriangularDesign, spec: LeastSquaresSpec): ComputedF
     partialR2: Object.freeze(partialR2),
     rowCount: n,
     residualDf: df,
-    residualSumOfSquares: rss,
+    residualSumOfSquares: residualNorm * residualNorm,
     residualSd: sigma,
-    totalSumOfSquares: tss,
-    rSquared: 1 - rss / tss,
+    totalSumOfSquares: totalNorm * totalNorm,
+    rSquared: 1 - (residualNorm / totalNorm) ** 2,
     hasIntercept,
     warnings: Object.freeze(warnings),
   });
@@ -427,7 +433,9 @@ export function partialR2FromT(t: number, df: number): number {
  * **References.** Golub & Van Loan, Matrix Computations, 4th ed., 2013, §5.3.3 (least squares via QR) and
  * §5.4.1 (rank tests); Draper & Smith, Applied Regression Analysis, 3rd ed., 1998, ch. 5.
  *
- * **Special cases.** An exact fit (RSS = 0) gives zero standard errors, infinite t and a warning.
+ * **Special cases.** An exact fit (RSS = 0, or below 1e-11 of the response's variation) gives zero or
+ * rounding-level standard errors and a warning. RSS and TSS are kept as norms internally, so data up to
+ * ~1e300 give finite coefficients, t and R² even where RSS itself overflows.
  *
  * @throws InputError naming the column when a column is unknown or chosen twice, when a predictor is a linear
  *   combination of others (collinear, constant, or zero), when the response is constant, or when n ≤ |S|.
@@ -452,7 +460,20 @@ export function residualSumOfSquares(design: TriangularDesign, response: string,
   const order = predictors.map((name) => design.columnNames.indexOf(name));
   const y = design.columnNames.indexOf(response);
   if (y < 0 || order.some((i) => i < 0)) return NaN;
-  return retriangulate(design, order, y, DEFAULT_COLLINEARITY_TOLERANCE).rss;
+  return retriangulate(design, order, y, DEFAULT_COLLINEARITY_TOLERANCE).residualNorm ** 2;
+}
+
+/** √(Σ v²) without overflow or underflow. */
+function scaledHypot(values: ArrayLike<number>): number {
+  let big = 0;
+  for (let i = 0; i < values.length; i++) big = Math.max(big, Math.abs(values[i]));
+  if (big === 0 || !Number.isFinite(big)) return big;
+  let s = 0;
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i] / big;
+    s += v * v;
+  }
+  return big * Math.sqrt(s);
 }
 
 /**
@@ -479,7 +500,11 @@ export function groupPartialR2(
   });
   throwIfProblems(problems);
   const reduced = spec.predictors.filter((name) => !spec.group.includes(name));
-  const rssReduced = residualSumOfSquares(design, spec.response, reduced);
-  if (!(rssReduced > 0)) return NaN;
-  return (rssReduced - full.residualSumOfSquares) / rssReduced;
+  const order = reduced.map((name) => design.columnNames.indexOf(name));
+  const y = design.columnNames.indexOf(spec.response);
+  const reducedNorm = retriangulate(design, order, y, spec.tolerance ?? DEFAULT_COLLINEARITY_TOLERANCE).residualNorm;
+  if (!(reducedNorm > 0)) return NaN;
+  // (RSS_reduced − RSS_full)/RSS_reduced, as norms (no overflow).
+  const ratio = full.residualSd * Math.sqrt(full.residualDf) / reducedNorm;
+  return Math.max(0, 1 - ratio * ratio);
 }

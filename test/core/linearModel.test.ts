@@ -1,5 +1,16 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { designFromRows, fitLeastSquares, INTERCEPT_NAME } from '../../src/core/linearModel';
+import {
+  designFromRows,
+  fitLeastSquares,
+  groupPartialR2,
+  INTERCEPT_NAME,
+  partialR2FromT,
+  residualSumOfSquares,
+  subsetRegression,
+  validateLeastSquares,
+} from '../../src/core/linearModel';
+import { InputError } from '../../src/core/inputProblem';
 import { expectClose } from '../support/expectClose';
 import { readReferenceJson, readReferenceText } from '../support/reference';
 
@@ -9,6 +20,18 @@ function readNumericCsv(name: string): { names: string[]; rows: number[][] } {
   return { names, rows: lines.slice(1).map((line) => line.split(',').map(Number)) };
 }
 
+function problemsOf(run: () => unknown): { field: string; code: string; message: string }[] {
+  try {
+    run();
+  } catch (error) {
+    if (error instanceof InputError) return [...error.problems];
+    throw error;
+  }
+  throw new Error('expected an InputError');
+}
+
+const swissCovariates = ['Agriculture', 'Examination', 'Catholic', 'Infant.Mortality'];
+
 describe('fitLeastSquares: NIST StRD Longley', () => {
   // NIST Statistical Reference Datasets, linear regression "Longley" (certified values), test/reference/longley.json
   const cert = readReferenceJson('longley.json').certified;
@@ -16,7 +39,7 @@ describe('fitLeastSquares: NIST StRD Longley', () => {
   const design = designFromRows(names, rows);
   const fit = fitLeastSquares(design, { response: 'y', predictors: [INTERCEPT_NAME, 'x1', 'x2', 'x3', 'x4', 'x5', 'x6'] });
   const keys = ['intercept', 'x1', 'x2', 'x3', 'x4', 'x5', 'x6'];
-  it('reproduces the certified coefficients and standard errors', () => {
+  it('reproduces the certified coefficients and standard errors to 10 significant digits', () => {
     keys.forEach((key, i) => {
       expectClose(fit.coefficients[i], cert.coefficients[key], { rel: 1e-10 }, `coefficient ${key}`);
       expectClose(fit.standardErrors[i], cert.standard_errors[key], { rel: 1e-10 }, `SE ${key}`);
@@ -24,5 +47,188 @@ describe('fitLeastSquares: NIST StRD Longley', () => {
     expectClose(fit.residualSd, cert.residual_sd, { rel: 1e-10 }, 'residual SD');
     expectClose(fit.rSquared, cert.r_squared, { rel: 1e-12 }, 'R²');
     expect(fit.residualDf).toBe(cert.residual_df);
+  });
+  it('does not depend on the order of the predictors', () => {
+    const shuffled = ['x6', 'x3', INTERCEPT_NAME, 'x1', 'x5', 'x2', 'x4'];
+    const other = fitLeastSquares(design, { response: 'y', predictors: shuffled });
+    shuffled.forEach((name, i) => {
+      const key = name === INTERCEPT_NAME ? 'intercept' : name;
+      expectClose(other.coefficients[i], cert.coefficients[key], { rel: 1e-9 }, key);
+    });
+  });
+});
+
+describe('fitLeastSquares: R lm on swiss', () => {
+  // R 4.2.2 base lm: test/reference/ovb.json "swiss"
+  const ref = readReferenceJson('ovb.json').swiss;
+  const { names, rows } = readNumericCsv('swiss.csv');
+  const design = designFromRows(names, rows);
+  const main = fitLeastSquares(design, { response: 'Fertility', predictors: [INTERCEPT_NAME, 'Education', ...swissCovariates] });
+
+  it('treatment estimate, SE, t, df and partial R² match lm to 1e-9', () => {
+    expectClose(main.coefficients[1], ref.estimate, { rel: 1e-9 }, 'estimate');
+    expectClose(main.standardErrors[1], ref.se, { rel: 1e-9 }, 'se');
+    expectClose(main.tValues[1], ref.t, { rel: 1e-9 }, 't');
+    expect(main.residualDf).toBe(ref.df);
+    expectClose(main.partialR2[1], ref.R2yd, { rel: 1e-9 }, 'R2yd');
+    expect(main.rowCount).toBe(ref.n);
+  });
+
+  it('covariate t values and partial R² in the outcome model and in the treatment model (sub-regression) match lm', () => {
+    const treatmentModel = subsetRegression(design, 'Education', [INTERCEPT_NAME, ...swissCovariates]);
+    swissCovariates.forEach((covariate, i) => {
+      const b = ref.benchmarks[covariate];
+      expectClose(main.tValues[2 + i], b.t_in_main_model, { rel: 1e-9 }, `${covariate} t in outcome model`);
+      expectClose(main.partialR2[2 + i], b.R2yxj, { rel: 1e-9 }, `${covariate} R2yxj`);
+      expectClose(treatmentModel.tValues[1 + i], b.t_in_D_model, { rel: 1e-9 }, `${covariate} t in treatment model`);
+      expectClose(treatmentModel.partialR2[1 + i], b.R2dxj, { rel: 1e-9 }, `${covariate} R2dxj`);
+      expect(treatmentModel.residualDf).toBe(b.df_D_model);
+    });
+  });
+
+  it('the partial R² of a one-column group equals t²/(t² + df)', () => {
+    const spec = { response: 'Fertility', predictors: [INTERCEPT_NAME, 'Education', ...swissCovariates] };
+    // R 4.2.2 lm via ovb.json: R2yd of Education
+    expectClose(groupPartialR2(design, { ...spec, group: ['Education'] }), ref.R2yd, { rel: 1e-9 });
+  });
+
+  it('the partial R² of a group is (RSS without it − RSS with it)/RSS without it', () => {
+    const spec = { response: 'Fertility', predictors: [INTERCEPT_NAME, 'Education', ...swissCovariates] };
+    const group = ['Agriculture', 'Catholic'];
+    const rssFull = residualSumOfSquares(design, 'Fertility', spec.predictors);
+    const rssReduced = residualSumOfSquares(design, 'Fertility', [INTERCEPT_NAME, 'Education', 'Examination', 'Infant.Mortality']);
+    expectClose(groupPartialR2(design, { ...spec, group }), (rssReduced - rssFull) / rssReduced, { rel: 1e-12 });
+  });
+});
+
+describe('fitLeastSquares: conventions and special cases', () => {
+  const rows = [
+    [1, 2, 3.1],
+    [2, 1, 4.9],
+    [3, 5, 9.2],
+    [4, 3, 9.8],
+    [5, 8, 15.1],
+  ];
+  it('without an intercept, R² is about zero (Σy²), as R\'s lm reports', () => {
+    const design = designFromRows(['a', 'b', 'y'], rows, { intercept: false });
+    const fit = fitLeastSquares(design, { response: 'y', predictors: ['a', 'b'] });
+    const sumY2 = rows.reduce((s, r) => s + r[2] ** 2, 0);
+    expectClose(fit.totalSumOfSquares, sumY2, { rel: 1e-13 });
+    expectClose(fit.rSquared, 1 - fit.residualSumOfSquares / sumY2, { rel: 1e-13 });
+    expect(fit.hasIntercept).toBe(false);
+  });
+
+  it('with an intercept, R² is about the mean', () => {
+    const design = designFromRows(['a', 'b', 'y'], rows);
+    const fit = fitLeastSquares(design, { response: 'y', predictors: [INTERCEPT_NAME, 'a'] });
+    const mean = rows.reduce((s, r) => s + r[2], 0) / rows.length;
+    expectClose(fit.totalSumOfSquares, rows.reduce((s, r) => s + (r[2] - mean) ** 2, 0), { rel: 1e-13 });
+  });
+
+  it('an exact fit gives rounding-level standard errors, partial R² 1 and a warning', () => {
+    const design = designFromRows(['a', 'y'], [
+      [1, 3],
+      [2, 5],
+      [3, 7],
+    ]);
+    const fit = fitLeastSquares(design, { response: 'y', predictors: [INTERCEPT_NAME, 'a'] });
+    expectClose(fit.coefficients[1], 2, { rel: 1e-13 });
+    expect(fit.standardErrors[1]).toBeLessThan(1e-12);
+    expectClose(fit.partialR2[1], 1, { rel: 1e-12 });
+    expect(fit.warnings.length).toBe(1);
+  });
+
+  it('partialR2FromT handles limits and NaN', () => {
+    expect(partialR2FromT(Infinity, 5)).toBe(1);
+    expect(partialR2FromT(-Infinity, 5)).toBe(1);
+    expect(partialR2FromT(0, 5)).toBe(0);
+    expect(partialR2FromT(NaN, 5)).toBeNaN();
+  });
+});
+
+describe('fitLeastSquares: invariants', () => {
+  it('partial R² lies in [0, 1] and equals the group partial R² of that predictor (property)', () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.array(fc.double({ min: -100, max: 100, noNaN: true }), { minLength: 3, maxLength: 3 }), { minLength: 8, maxLength: 30 }),
+        (rows) => {
+          const design = designFromRows(['a', 'b', 'y'], rows);
+          const spec = { response: 'y', predictors: [INTERCEPT_NAME, 'a', 'b'] };
+          if (validateLeastSquares(design, spec).length > 0) return;
+          const fit = fitLeastSquares(design, spec);
+          for (const r2 of fit.partialR2) {
+            expect(r2).toBeGreaterThanOrEqual(0);
+            expect(r2).toBeLessThanOrEqual(1);
+          }
+          if (fit.residualSumOfSquares > 1e-9 * fit.totalSumOfSquares) {
+            expectClose(groupPartialR2(design, { ...spec, group: ['a'] }), fit.partialR2[1], { rel: 1e-6, abs: 1e-9 });
+          }
+        },
+      ),
+      { numRuns: 200 },
+    );
+  });
+});
+
+describe('fitLeastSquares: bad input', () => {
+  const base = [
+    [1, 2, 0, 1],
+    [2, 1, 0, 3],
+    [3, 5, 0, 2],
+    [4, 3, 0, 5],
+    [5, 8, 0, 4],
+    [6, 1, 0, 7],
+  ];
+  const rows = base.map(([a, b, , y]) => [a, b, a + 2 * b, 7, 0, y]);
+  const design = designFromRows(['a', 'b', 'sum', 'seven', 'zero', 'y'], rows);
+
+  it('names a column that is a linear combination of others', () => {
+    const problems = problemsOf(() => fitLeastSquares(design, { response: 'y', predictors: [INTERCEPT_NAME, 'a', 'b', 'sum'] }));
+    expect(problems).toHaveLength(1);
+    expect(problems[0]).toMatchObject({ field: 'predictors[3]', code: 'collinear' });
+    expect(problems[0].message).toContain('"sum" is a linear combination of "a" and "b"');
+  });
+
+  it('names a constant column and a zero column', () => {
+    const problems = problemsOf(() => fitLeastSquares(design, { response: 'y', predictors: [INTERCEPT_NAME, 'a', 'seven', 'zero'] }));
+    expect(problems.map((p) => p.code)).toEqual(['constant', 'zero-column']);
+    expect(problems[0].message).toContain('"seven" is constant');
+    expect(problems[1].message).toContain('"zero" is zero in every row');
+  });
+
+  it('refuses a constant response', () => {
+    const problems = problemsOf(() => fitLeastSquares(design, { response: 'seven', predictors: [INTERCEPT_NAME, 'a'] }));
+    expect(problems[0]).toMatchObject({ field: 'response', code: 'constant' });
+  });
+
+  it('names unknown columns, repeated columns and the response used as a predictor', () => {
+    const problems = problemsOf(() => fitLeastSquares(design, { response: 'nope', predictors: ['a', 'a', 'y2'] }));
+    expect(problems.map((p) => p.code)).toEqual(['unknown-column', 'chosen-twice', 'unknown-column']);
+    const self = problemsOf(() => fitLeastSquares(design, { response: 'y', predictors: ['a', 'y'] }));
+    expect(self[0]).toMatchObject({ field: 'predictors[1]', code: 'response-as-predictor' });
+  });
+
+  it('needs more rows than coefficients', () => {
+    const small = designFromRows(['a', 'y'], [
+      [1, 2],
+      [2, 3],
+    ]);
+    const problems = problemsOf(() => fitLeastSquares(small, { response: 'y', predictors: [INTERCEPT_NAME, 'a'] }));
+    expect(problems[0]).toMatchObject({ field: 'rowCount', code: 'too-few-rows' });
+  });
+
+  it('refuses an empty or foreign group', () => {
+    const spec = { response: 'y', predictors: [INTERCEPT_NAME, 'a', 'b'] };
+    expect(problemsOf(() => groupPartialR2(design, { ...spec, group: [] }))[0].code).toBe('empty');
+    expect(problemsOf(() => groupPartialR2(design, { ...spec, group: ['sum'] }))[0]).toMatchObject({ field: 'group[0]', code: 'not-a-predictor' });
+  });
+
+  it('does not modify its input, and returns a frozen result', () => {
+    const frozen = Object.freeze({ ...design, columnNames: Object.freeze([...design.columnNames]) });
+    const before = [...frozen.r];
+    const fit = fitLeastSquares(frozen, Object.freeze({ response: 'y', predictors: Object.freeze([INTERCEPT_NAME, 'a', 'b']) }));
+    expect([...frozen.r]).toEqual(before);
+    expect(Object.isFrozen(fit)).toBe(true);
+    expect(Object.isFrozen(fit.coefficients)).toBe(true);
   });
 });
