@@ -1,3 +1,5 @@
+import { crc32 } from './crc32';
+
 /**
  * Marks a PNG file with its print resolution by inserting (or replacing) the `pHYs` chunk, so that a journal's
  * system reads "300 dpi" rather than the screen default. PNG specification (W3C, 2nd ed., 2003), §11.3.5.3:
@@ -49,20 +51,4 @@ export function readPngDpi(png: Uint8Array): number | null {
     offset += 12 + length;
   }
   return null;
-}
-
-let table: Uint32Array | undefined;
-
-function crc32(bytes: Uint8Array): number {
-  if (!table) {
-    table = new Uint32Array(256);
-    for (let n = 0; n < 256; n++) {
-      let c = n;
-      for (let k = 0; k < 8; k++) c = c & 1 ? 0xedb88320 ^ (c >>> 1) : c >>> 1;
-      table[n] = c >>> 0;
-    }
-  }
-  let c = 0xffffffff;
-  for (const b of bytes) c = table[(c ^ b) & 0xff] ^ (c >>> 8);
-  return (c ^ 0xffffffff) >>> 0;
 }
