@@ -5,3 +5,4 @@ export * from './palette';
 export * from './svgString';
 export * from './pathData';
 export * from './invertAxis';
+export * from './jointStrengthPlot';
