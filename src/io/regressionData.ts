@@ -136,7 +136,7 @@ export function isMissingCell(text: string): boolean {
 }
 
 /**
- * Reads a numeric cell; NaN when it is not a number. Fast path for plain decimal numbers, else
+ * Reads a numeric cell; NaN when it is not a finite number (1e400 overflows and is refused). Fast path for plain decimal numbers, else
  * {@link parseNumberText} (decimal commas, thin spaces, a typographic minus).
  */
 export function parseNumericCell(text: string, decimalComma: boolean): number {
@@ -153,7 +153,8 @@ export function parseNumericCell(text: string, decimalComma: boolean): number {
       }
     }
   }
-  return parseNumberText(text, decimalComma);
+  const v = parseNumberText(text, decimalComma);
+  return Number.isFinite(v) ? v : NaN;
 }
 
 interface Variable {
