@@ -282,7 +282,7 @@ describe('regressionDataFromText: categorical columns (dummy coding, R\'s treatm
   });
 
   it('a level that only occurs in dropped rows is not a level', () => {
-    const regions = rows.map((r) => (r[4] > 50 ? 'north' : 'south'));
+    const regions: string[] = rows.map((r) => (r[4] > 50 ? 'north' : 'south'));
     regions[4] = 'atlantis';
     const text = csv(rows, regions).split('\n');
     text[5] = text[5].replace(/^[^,]*/, 'NA');
