@@ -1,0 +1,378 @@
+import { inputProblem, throwIfProblems, type InputProblem } from './inputProblem';
+import { signedRanks, type SignedRanks } from './signedRanks';
+import { signedRankBound, signedRankUpperP, type TailMethod } from './signedRankBound';
+import { signTestBound } from './signTestBound';
+import { tippingGamma, type TippingGamma } from './tippingGamma';
+import { walshAverages } from './walshAverages';
+import { effectUnderBias, type EffectUnderBias } from './hodgesLehmannRange';
+import { readableAmplifications, type AmplifiedPair } from './amplification';
+
+/** The data of a matched-pairs study, in one of three forms. */
+export type PairsData =
+  /** One treated-minus-control difference per pair. */
+  | { readonly kind: 'differences'; readonly differences: ArrayLike<number> }
+  /** The two outcomes of each pair (same length; difference = treated − control). */
+  | { readonly kind: 'outcomes'; readonly treated: ArrayLike<number>; readonly control: ArrayLike<number> }
+  /** A binary outcome: counts of discordant pairs. */
+  | { readonly kind: 'discordant'; readonly treatedOnly: number; readonly controlOnly: number };
+
+export type PairsTest = 'signrank' | 'sign';
+export type PairsAlternative = 'greater' | 'less';
+
+export interface PairsInput {
+  readonly data: PairsData;
+  /** Default: `signrank` for numeric outcomes, `sign` for discordant counts (the only choice there). */
+  readonly test?: PairsTest;
+  /** `greater`: treatment raises the outcome (default); `less`: it lowers it. */
+  readonly alternative?: PairsAlternative;
+  /** Significance level, in (0, 1). Default 0.05. */
+  readonly alpha?: number;
+  /** Γ values to tabulate, each ≥ 1. Default: a grid from 1 to just past the sensitivity value. */
+  readonly gammas?: readonly number[];
+  /** `auto` (default): exact up to 1,000 non-zero pairs, normal approximation beyond. */
+  readonly method?: TailMethod | 'auto';
+  /** Normal approximation only: ½ continuity correction. Default false. */
+  readonly continuityCorrection?: boolean;
+  /** Rows the reader dropped because a value was missing (reported back; not used in the computation). */
+  readonly droppedRows?: number;
+}
+
+/** One row of the sensitivity table. */
+export interface PairsRow {
+  readonly gamma: number;
+  readonly pUpper: number;
+  readonly pLower: number;
+}
+
+export interface PairsResult {
+  readonly method: string;
+  readonly references: readonly string[];
+  readonly test: PairsTest;
+  readonly alternative: PairsAlternative;
+  readonly alpha: number;
+  /** How the tails were computed and why. */
+  readonly tailMethod: TailMethod;
+  readonly tailMethodReason: string;
+  readonly continuityCorrection: boolean;
+  /** Pairs used (after dropped rows). */
+  readonly n: number;
+  readonly droppedRows: number;
+  /** Pairs with zero difference (ties), left out of both tests. */
+  readonly zeroDifferences: number;
+  /** Pairs that count in the test: non-zero differences (signed-rank), discordant pairs (sign). */
+  readonly nonZero: number;
+  /** Pairs in the direction of the alternative (treated better for `greater`). */
+  readonly favourable: number;
+  /** T (signed-rank, in the direction of the alternative) or S (sign test). */
+  readonly statistic: number;
+  /** p-value at Γ = 1 (no hidden bias). */
+  readonly pValue: number;
+  /** The sensitivity value: the largest Γ with pUpper ≤ α; null when none (see `sensitivityStatus`). */
+  readonly sensitivityValue: number | null;
+  readonly sensitivityStatus: TippingGamma['status'];
+  readonly searchedUpTo: number;
+  /** What the sign test alone gives (for the signed-rank test too, as a comparison). */
+  readonly signTestSensitivityValue: number | null;
+  readonly rows: readonly PairsRow[];
+  /** Hodges–Lehmann estimate at Γ = 1 (signed-rank test with numeric outcomes only). */
+  readonly estimate: number | null;
+  /** Estimate range and sensitivity interval for each Γ (signed-rank with numeric outcomes; else empty). */
+  readonly estimates: readonly EffectUnderBias[];
+  /** Level of the sensitivity intervals (two-sided), 1 − α. */
+  readonly intervalLevel: number;
+  /** Readable (Λ, Δ) pairs equivalent to the sensitivity value (Rosenbaum & Silber 2009). */
+  readonly amplification: readonly AmplifiedPair[];
+  readonly warnings: readonly string[];
+}
+
+/** Largest number of non-zero pairs for which `auto` uses the exact signed-rank distribution. */
+export const EXACT_PAIRS_LIMIT = 1000;
+
+const REFERENCES = Object.freeze([
+  'Rosenbaum PR (2002) Observational Studies, 2nd ed. New York: Springer, chapter 4.',
+  'Rosenbaum PR (1987) Sensitivity analysis for certain permutation inferences in matched observational studies. Biometrika 74(1):13–26.',
+  'Rosenbaum PR (1993) Hodges–Lehmann point estimates of treatment effect in observational studies. JASA 88(424):1250–1253.',
+  'Rosenbaum PR, Silber JH (2009) Amplification of sensitivity analysis in matched observational studies. JASA 104(488):1398–1405.',
+]);
+
+/**
+ * Checks a matched-pairs input and lists every problem (field, rule, value); an empty list means valid.
+ */
+export function validatePairsInput(input: PairsInput): InputProblem[] {
+  const problems: InputProblem[] = [];
+  const data = input?.data;
+  if (!data || typeof data !== 'object') {
+    problems.push(inputProblem('data', 'missing', 'give the pairs: differences, treated and control outcomes, or discordant counts'));
+  } else if (data.kind === 'differences') {
+    checkFinite(data.differences, 'data.differences', problems);
+    if (problems.length === 0) checkNonZero(data.differences, 'data.differences', problems);
+  } else if (data.kind === 'outcomes') {
+    const before = problems.length;
+    checkFinite(data.treated, 'data.treated', problems);
+    checkFinite(data.control, 'data.control', problems);
+    if (problems.length === before && data.treated.length !== data.control.length) {
+      problems.push(
+        inputProblem(
+          'data.control',
+          'unequal-length',
+          `the treated and control columns must have one value per pair; treated has ${data.treated.length}, control has ${data.control.length}`,
+        ),
+      );
+    }
+    if (problems.length === before) checkNonZero(outcomeDifferences(data.treated, data.control), 'data', problems);
+  } else if (data.kind === 'discordant') {
+    for (const key of ['treatedOnly', 'controlOnly'] as const) {
+      const v = data[key];
+      if (!(typeof v === 'number' && Number.isInteger(v) && v >= 0)) {
+        problems.push(inputProblem(`data.${key}`, 'not-count', 'must be a whole number of pairs, 0 or more', v));
+      }
+    }
+    if (problems.length === 0 && data.treatedOnly + data.controlOnly < 2) {
+      problems.push(
+        inputProblem('data', 'too-few-pairs', 'needs at least two discordant pairs (pairs where exactly one unit had the event)'),
+      );
+    }
+  } else {
+    problems.push(inputProblem('data.kind', 'unknown-kind', 'must be differences, outcomes or discordant', (data as { kind?: unknown }).kind));
+  }
+  if (input?.test !== undefined && input.test !== 'signrank' && input.test !== 'sign') {
+    problems.push(inputProblem('test', 'not-a-choice', 'must be signrank or sign', input.test));
+  }
+  if (input?.alternative !== undefined && input.alternative !== 'greater' && input.alternative !== 'less') {
+    problems.push(inputProblem('alternative', 'not-a-choice', 'must be greater or less', input.alternative));
+  }
+  if (input?.method !== undefined && !['auto', 'exact', 'normal'].includes(input.method)) {
+    problems.push(inputProblem('method', 'not-a-choice', 'must be auto, exact or normal', input.method));
+  }
+  if (input?.alpha !== undefined && !(typeof input.alpha === 'number' && input.alpha > 0 && input.alpha < 1)) {
+    problems.push(inputProblem('alpha', 'outside-interval', 'must be between 0 and 1 (e.g. 0.05), exclusive', input.alpha));
+  }
+  if (input?.gammas !== undefined) {
+    if (!Array.isArray(input.gammas) || input.gammas.length === 0) {
+      problems.push(inputProblem('gammas', 'empty', 'give at least one Γ value, each 1 or more'));
+    } else {
+      input.gammas.forEach((g, i) => {
+        if (!(typeof g === 'number' && Number.isFinite(g))) {
+          problems.push(inputProblem(`gammas[${i}]`, 'not-finite', 'must be a finite number, 1 or more', g));
+        } else if (g < 1) {
+          problems.push(inputProblem(`gammas[${i}]`, 'below-one', `must be 1 or more (Γ = 1 means no hidden bias), got ${g}`, g));
+        }
+      });
+    }
+  }
+  return problems;
+}
+
+function checkFinite(values: ArrayLike<number> | undefined, field: string, problems: InputProblem[]): void {
+  if (!values || typeof values.length !== 'number') {
+    problems.push(inputProblem(field, 'missing', 'give one number per pair'));
+    return;
+  }
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i];
+    if (typeof v !== 'number' || !Number.isFinite(v)) {
+      problems.push(inputProblem(`${field}[${i}]`, 'not-finite', `pair ${i + 1} is not a finite number`, v));
+      return;
+    }
+  }
+}
+
+function checkNonZero(differences: ArrayLike<number>, field: string, problems: InputProblem[]): void {
+  let nonZero = 0;
+  for (let i = 0; i < differences.length && nonZero < 2; i++) if (differences[i] !== 0) nonZero++;
+  if (nonZero < 2) {
+    problems.push(
+      inputProblem(
+        field,
+        'too-few-pairs',
+        `needs at least two pairs whose outcomes differ (non-zero differences); found ${nonZero} among ${differences.length} pairs`,
+      ),
+    );
+  }
+}
+
+/** treated − control, pair by pair. */
+export function outcomeDifferences(treated: ArrayLike<number>, control: ArrayLike<number>): Float64Array {
+  const d = new Float64Array(Math.min(treated.length, control.length));
+  for (let i = 0; i < d.length; i++) d[i] = treated[i] - control[i];
+  return d;
+}
+
+/**
+ * Sensitivity analysis of a matched-pairs study: bounds on the one-sided p-value of the signed-rank or sign
+ * test for a range of hidden biases Γ, the sensitivity value (tipping Γ), the Hodges–Lehmann estimate range
+ * and sensitivity interval under each Γ, and equivalent (Λ, Δ) pairs by amplification.
+ *
+ * **Method.** See `signedRankBound`, `signTestBound`, `tippingGamma`, `effectUnderBias` and
+ * `amplificationDelta`. The alternative `less` is handled by reversing the sign of every difference (equivalently,
+ * swapping treated and control), so both alternatives share one computation. Default Γ grid: from 1 in round
+ * steps to the first step past the sensitivity value (about 6–12 rows).
+ *
+ * **References.** Rosenbaum PR (2002) Observational Studies, 2nd ed., Springer, ch. 4; Rosenbaum 1987,
+ * Biometrika 74:13–26; Rosenbaum 1993, JASA 88:1250–1253; Rosenbaum & Silber 2009, JASA 104:1398–1405.
+ *
+ * **Special cases.** A binary outcome given as discordant counts uses the sign test (McNemar); asking for the
+ * signed-rank test there gives the sign test and a warning. No estimate range without numeric outcomes.
+ *
+ * @throws InputError listing every problem when the input breaks a rule (see `validatePairsInput`)
+ */
+export function analysePairs(input: PairsInput): PairsResult {
+  throwIfProblems(validatePairsInput(input));
+  const alpha = input.alpha ?? 0.05;
+  const alternative = input.alternative ?? 'greater';
+  const continuityCorrection = input.continuityCorrection ?? false;
+  const requested = input.method ?? 'auto';
+  const warnings: string[] = [];
+  const data = input.data;
+  const direction = alternative === 'greater' ? 1 : -1;
+
+  // The study's differences (treated − control), when there are numeric outcomes.
+  const differences: Float64Array | null =
+    data.kind === 'differences'
+      ? Float64Array.from(data.differences as ArrayLike<number>)
+      : data.kind === 'outcomes'
+        ? outcomeDifferences(data.treated, data.control)
+        : null;
+
+  let test: PairsTest = input.test ?? (differences ? 'signrank' : 'sign');
+  if (!differences && test === 'signrank') {
+    warnings.push('With a binary outcome (discordant counts) the signed-rank test is the sign test; the sign test was used.');
+    test = 'sign';
+  }
+
+  let n: number;
+  let zeros: number;
+  let favourable: number;
+  let nonZero: number;
+  let ranks: SignedRanks | null = null;
+  if (differences) {
+    const oriented = direction === 1 ? differences : differences.map((d) => -d);
+    ranks = signedRanks(oriented);
+    n = ranks.pairs;
+    zeros = ranks.zeros;
+    nonZero = ranks.nonZero;
+    favourable = ranks.positive;
+  } else {
+    const d = data as Extract<PairsData, { kind: 'discordant' }>;
+    favourable = direction === 1 ? d.treatedOnly : d.controlOnly;
+    nonZero = d.treatedOnly + d.controlOnly;
+    n = nonZero;
+    zeros = 0;
+  }
+  if (zeros > 0) warnings.push(`${zeros} ${zeros === 1 ? 'pair has' : 'pairs have'} a difference of zero and ${zeros === 1 ? 'was' : 'were'} left out of the test.`);
+  if (ranks?.tiedMagnitudes) warnings.push('Some differences have equal sizes; they share average ranks (handled exactly).');
+
+  let tailMethod: TailMethod;
+  let tailMethodReason: string;
+  if (test === 'sign') {
+    tailMethod = requested === 'normal' ? 'normal' : 'exact';
+    tailMethodReason =
+      tailMethod === 'exact' ? 'exact binomial tails (cheap for any number of pairs)' : 'normal approximation, as requested';
+  } else if (requested === 'auto') {
+    tailMethod = nonZero <= EXACT_PAIRS_LIMIT ? 'exact' : 'normal';
+    tailMethodReason =
+      tailMethod === 'exact'
+        ? `exact bounding distribution (${nonZero} non-zero pairs, at most ${EXACT_PAIRS_LIMIT})`
+        : `normal approximation (${nonZero} non-zero pairs, more than ${EXACT_PAIRS_LIMIT}; its error is negligible at this size)`;
+  } else {
+    tailMethod = requested;
+    tailMethodReason = requested === 'exact' ? 'exact bounding distribution, as requested' : 'normal approximation, as requested';
+  }
+  if (tailMethod === 'exact' && continuityCorrection) {
+    warnings.push('The continuity correction applies to the normal approximation only; the exact tails need none.');
+  }
+  const tailOptions = { method: tailMethod, continuityCorrection };
+
+  const upperAt = (gamma: number): number =>
+    test === 'sign' || !ranks
+      ? signTestBound(favourable, nonZero, gamma, tailOptions).pUpper
+      : signedRankUpperP(ranks, gamma, tailOptions);
+  const normalGuess =
+    tailMethod === 'exact' ? tippingGamma((g) => upperAtNormal(g), alpha, { tolerance: 1e-4 }).gamma ?? undefined : undefined;
+  function upperAtNormal(gamma: number): number {
+    const normal = { method: 'normal' as const, continuityCorrection: false };
+    return test === 'sign' || !ranks
+      ? signTestBound(favourable, nonZero, gamma, normal).pUpper
+      : signedRankUpperP(ranks, gamma, normal);
+  }
+  const tipping = tippingGamma(upperAt, alpha, { guess: normalGuess, tolerance: 1e-9 });
+  const signTipping =
+    test === 'sign' ? tipping : tippingGamma((g) => signTestBound(favourable, nonZero, g, { method: 'exact' }).pUpper, alpha);
+
+  const gammas = input.gammas ? [...input.gammas] : defaultGammaGrid(tipping);
+  const rows: PairsRow[] = gammas.map((gamma) => {
+    const bound =
+      test === 'sign' || !ranks ? signTestBound(favourable, nonZero, gamma, tailOptions) : signedRankBound(ranks, gamma, tailOptions);
+    return Object.freeze({ gamma, pUpper: bound.pUpper, pLower: bound.pLower });
+  });
+
+  let estimate: number | null = null;
+  const estimates: EffectUnderBias[] = [];
+  if (test === 'signrank' && differences) {
+    const walsh = walshAverages(differences);
+    const estimateMethod: TailMethod = requested === 'auto' ? (n <= EXACT_PAIRS_LIMIT ? 'exact' : 'normal') : tailMethod;
+    for (const gamma of gammas) estimates.push(effectUnderBias(walsh, n, gamma, alpha, { method: estimateMethod, continuityCorrection }));
+    estimate = effectUnderBias(walsh, n, 1, alpha, { method: 'normal' }).estimateLow;
+  }
+
+  if (tipping.status === 'not-significant') {
+    warnings.push(`The finding is not significant at α = ${alpha} even with no hidden bias (p = ${tipping.pAtOne.toPrecision(3)} at Γ = 1).`);
+  }
+  if (tipping.status === 'beyond-range') warnings.push(`The bound stays below α up to the largest Γ searched (${tipping.searchedUpTo}).`);
+
+  return Object.freeze({
+    method:
+      test === 'signrank'
+        ? 'Rosenbaum bounds for the Wilcoxon signed-rank test in matched pairs'
+        : 'Rosenbaum bounds for the sign test in matched pairs (McNemar for a binary outcome)',
+    references: REFERENCES,
+    test,
+    alternative,
+    alpha,
+    tailMethod,
+    tailMethodReason,
+    continuityCorrection,
+    n,
+    droppedRows: input.droppedRows ?? 0,
+    zeroDifferences: zeros,
+    nonZero,
+    favourable,
+    statistic: test === 'sign' || !ranks ? favourable : ranks.statistic,
+    pValue: tipping.pAtOne,
+    sensitivityValue: tipping.gamma,
+    sensitivityStatus: tipping.status,
+    searchedUpTo: tipping.searchedUpTo,
+    signTestSensitivityValue: signTipping.gamma,
+    rows: Object.freeze(rows),
+    estimate,
+    estimates: Object.freeze(estimates),
+    intervalLevel: 1 - alpha,
+    amplification: Object.freeze(tipping.gamma !== null ? readableAmplifications(tipping.gamma) : []),
+    warnings: Object.freeze(warnings),
+  });
+}
+
+/**
+ * Γ values from 1 in round steps (0.05, 0.1, 0.25, 0.5, 1, 2, 5, 10, …) up to the first step past the
+ * sensitivity value, at most about 12 rows. Without a sensitivity value: 1, 1.25, 1.5, 2, 3.
+ */
+export function defaultGammaGrid(tipping: Pick<TippingGamma, 'gamma' | 'status' | 'searchedUpTo'>): number[] {
+  const top = tipping.status === 'found' && tipping.gamma !== null ? tipping.gamma : tipping.status === 'beyond-range' ? tipping.searchedUpTo : 2;
+  if (tipping.status === 'not-significant') return [1, 1.25, 1.5, 2, 3];
+  const span = top - 1;
+  const steps = [0.05, 0.1, 0.25, 0.5, 1, 2, 2.5, 5];
+  let step = steps.find((s) => span / s <= 10);
+  if (step === undefined) {
+    let decade = 10;
+    while (span / decade > 10) decade *= 10;
+    step = span / (decade / 2) <= 10 ? decade / 2 : decade;
+  }
+  const grid: number[] = [];
+  for (let k = 0; ; k++) {
+    const gamma = Number((1 + k * step).toPrecision(12));
+    grid.push(gamma);
+    if (gamma > top) break;
+  }
+  return grid;
+}
+

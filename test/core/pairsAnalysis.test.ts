@@ -1,0 +1,207 @@
+import { describe, expect, test } from 'vitest';
+import fc from 'fast-check';
+import { analysePairs, validatePairsInput, defaultGammaGrid, type PairsInput } from '../../src/core/pairsAnalysis';
+import { InputError } from '../../src/core/inputProblem';
+import { expectClose } from '../support/expectClose';
+import { readReferenceJson } from '../support/reference';
+
+const reference = readReferenceJson('rosenbaum.json');
+const datasets = Object.entries<any>(reference.datasets);
+
+describe('reference values through the whole analysis', () => {
+  test.each(datasets)('%s: table rows and sensitivity values (signed-rank and sign, exact and normal)', (_name, ds) => {
+    // R 4.2.2 reference values, test/reference/rosenbaum.json
+    for (const method of ['exact', 'normal'] as const) {
+      for (const test of ['signrank', 'sign'] as const) {
+        const result = analysePairs({ data: { kind: 'differences', differences: ds.differences }, method, test, gammas: reference.gammas });
+        const prefix = test === 'sign' ? 'sign' : 'wilcoxon';
+        result.rows.forEach((row, i) => {
+          const expected = ds.by_gamma[i];
+          expect(row.gamma).toBe(expected.gamma);
+          expectClose(row.pUpper, expected[`${prefix}_upper_${method}`], { rel: 1e-11 }, `${test} ${method} upper Γ=${row.gamma}`);
+          if (method === 'exact') expectClose(row.pLower, expected[`${prefix}_lower_exact`], { rel: 1e-11 }, 'lower');
+        });
+        expect(result.tailMethod).toBe(method);
+        expectClose(result.sensitivityValue!, ds.sensitivity_value[`${prefix}_${method}`], { rel: 1e-8 }, `${test} ${method} Γ*`);
+        expect(result.n).toBe(ds.n_pairs);
+        expect(result.statistic).toBe(test === 'sign' ? ds.sign_S : ds.wilcoxon_T);
+      }
+    }
+  });
+
+  test('auto uses the exact distribution for these sizes and says so', () => {
+    const result = analysePairs({ data: { kind: 'differences', differences: reference.datasets.n40.differences } });
+    expect(result.tailMethod).toBe('exact');
+    expect(result.tailMethodReason).toMatch(/exact/);
+    // R 4.2.2 reference sensitivity value (exact signed-rank), rosenbaum.json
+    expectClose(result.sensitivityValue!, reference.datasets.n40.sensitivity_value.wilcoxon_exact, { rel: 1e-8 });
+    expectClose(result.pValue, reference.datasets.n40.checks_gamma1.psignrank_upper_lowertailFALSE, { rel: 1e-12 });
+    expect(result.rows[0].gamma).toBe(1);
+    expect(result.rows.at(-1)!.gamma).toBeGreaterThan(result.sensitivityValue!);
+    expect(result.rows.at(-2)!.gamma).toBeLessThanOrEqual(result.sensitivityValue!);
+    expect(Object.isFrozen(result)).toBe(true);
+  });
+
+  test('more than 1,000 non-zero pairs use the normal approximation under auto', () => {
+    const d = Array.from({ length: 1200 }, (_, i) => Math.sin(i * 3.7) + 0.2);
+    const result = analysePairs({ data: { kind: 'differences', differences: d }, gammas: [1, 2] });
+    expect(result.tailMethod).toBe('normal');
+    expect(result.tailMethodReason).toMatch(/normal approximation/);
+  });
+});
+
+describe('binary outcomes', () => {
+  test('discordant counts give the sign test (McNemar) bounds', () => {
+    // Same numbers as the sign test of small_n15 (S = 12 of D = 15), R 4.2.2 pbinom reference
+    const ds = reference.datasets.small_n15;
+    const result = analysePairs({ data: { kind: 'discordant', treatedOnly: 12, controlOnly: 3 }, gammas: reference.gammas });
+    expect(result.test).toBe('sign');
+    result.rows.forEach((row, i) => expectClose(row.pUpper, ds.by_gamma[i].sign_upper_exact, { rel: 1e-12 }));
+    expectClose(result.sensitivityValue!, ds.sensitivity_value.sign_exact, { rel: 1e-8 });
+    expect(result.estimates).toEqual([]);
+    expect(result.estimate).toBeNull();
+  });
+  test('asking for the signed-rank test with counts uses the sign test and says so', () => {
+    const result = analysePairs({ data: { kind: 'discordant', treatedOnly: 30, controlOnly: 10 }, test: 'signrank' });
+    expect(result.test).toBe('sign');
+    expect(result.warnings.join(' ')).toMatch(/sign test was used/);
+  });
+  test('alternative less swaps the counts', () => {
+    const a = analysePairs({ data: { kind: 'discordant', treatedOnly: 30, controlOnly: 10 }, gammas: [1, 2] });
+    const b = analysePairs({ data: { kind: 'discordant', treatedOnly: 10, controlOnly: 30 }, alternative: 'less', gammas: [1, 2] });
+    expect(b.rows).toEqual(a.rows);
+  });
+});
+
+describe('special cases', () => {
+  test('not significant at Γ = 1: no sensitivity value, a short default grid, a warning', () => {
+    const result = analysePairs({ data: { kind: 'differences', differences: [1, -1, 2, -2, 0.5, -0.4] } });
+    expect(result.sensitivityValue).toBeNull();
+    expect(result.sensitivityStatus).toBe('not-significant');
+    expect(result.rows.map((r) => r.gamma)).toEqual([1, 1.25, 1.5, 2, 3]);
+    expect(result.warnings.join(' ')).toMatch(/not significant/);
+    expect(result.amplification).toEqual([]);
+  });
+  test('zero differences are counted and reported', () => {
+    const result = analysePairs({ data: { kind: 'differences', differences: [0, 1, 2, 3, 0, 4, 5, 6, 7, 8] } });
+    expect(result.zeroDifferences).toBe(2);
+    expect(result.nonZero).toBe(8);
+    expect(result.n).toBe(10);
+    expect(result.warnings.join(' ')).toMatch(/2 pairs have a difference of zero/);
+  });
+  test('the default grid ends just past the sensitivity value', () => {
+    expect(defaultGammaGrid({ gamma: 1.61, status: 'found', searchedUpTo: 1e6 })).toEqual([1, 1.1, 1.2, 1.3, 1.4, 1.5, 1.6, 1.7]);
+    expect(defaultGammaGrid({ gamma: 4.2, status: 'found', searchedUpTo: 1e6 })).toEqual([1, 1.5, 2, 2.5, 3, 3.5, 4, 4.5]);
+    const wide = defaultGammaGrid({ gamma: 240, status: 'found', searchedUpTo: 1e6 });
+    expect(wide.length).toBeLessThanOrEqual(12);
+    expect(wide.at(-1)).toBeGreaterThan(240);
+  });
+});
+
+describe('invariants', () => {
+  const pairs = fc
+    .array(fc.tuple(fc.integer({ min: 0, max: 20 }), fc.integer({ min: 0, max: 20 })), { minLength: 3, maxLength: 25 })
+    .filter((list) => list.filter(([t, c]) => t !== c).length >= 2);
+
+  test('swapping treated and control with the alternative reversed gives the same bounds', () => {
+    fc.assert(
+      fc.property(pairs, fc.constantFrom('exact' as const, 'normal' as const), (list, method) => {
+        const treated = list.map(([t]) => t);
+        const control = list.map(([, c]) => c);
+        const gammas = [1, 1.5, 2.5];
+        const a = analysePairs({ data: { kind: 'outcomes', treated, control }, method, gammas });
+        const b = analysePairs({ data: { kind: 'outcomes', treated: control, control: treated }, alternative: 'less', method, gammas });
+        expect(b.rows).toEqual(a.rows);
+        expect(b.sensitivityValue).toBe(a.sensitivityValue);
+      }),
+      { numRuns: 60 },
+    );
+  });
+
+  test('outcome columns and their differences give the same analysis', () => {
+    fc.assert(
+      fc.property(pairs, (list) => {
+        const treated = list.map(([t]) => t);
+        const control = list.map(([, c]) => c);
+        const a = analysePairs({ data: { kind: 'outcomes', treated, control }, gammas: [1, 2] });
+        const b = analysePairs({ data: { kind: 'differences', differences: list.map(([t, c]) => t - c) }, gammas: [1, 2] });
+        expect(a.rows).toEqual(b.rows);
+        expect(a.estimates).toEqual(b.estimates);
+      }),
+      { numRuns: 40 },
+    );
+  });
+
+  test('rows: pUpper non-decreasing, pLower non-increasing, pLower ≤ p(Γ = 1) ≤ pUpper', () => {
+    fc.assert(
+      fc.property(pairs, fc.array(fc.double({ min: 1, max: 12, noNaN: true }), { minLength: 1, maxLength: 6 }), (list, raw) => {
+        const gammas = [...raw].sort((x, y) => x - y);
+        const result = analysePairs({ data: { kind: 'differences', differences: list.map(([t, c]) => t - c) }, gammas });
+        for (let i = 0; i < result.rows.length; i++) {
+          const row = result.rows[i];
+          expect(row.pLower).toBeLessThanOrEqual(result.pValue + 1e-12);
+          expect(row.pUpper).toBeGreaterThanOrEqual(result.pValue - 1e-12);
+          if (i > 0) {
+            expect(row.pUpper).toBeGreaterThanOrEqual(result.rows[i - 1].pUpper - 1e-12);
+            expect(row.pLower).toBeLessThanOrEqual(result.rows[i - 1].pLower + 1e-12);
+          }
+        }
+      }),
+      { numRuns: 60 },
+    );
+  });
+});
+
+describe('validation', () => {
+  const codes = (input: unknown) => validatePairsInput(input as PairsInput).map((p) => `${p.field}:${p.code}`);
+
+  test('fewer than two non-zero differences', () => {
+    expect(codes({ data: { kind: 'differences', differences: [0, 0, 3] } })).toEqual(['data.differences:too-few-pairs']);
+    expect(codes({ data: { kind: 'outcomes', treated: [1, 2], control: [1, 2] } })).toEqual(['data:too-few-pairs']);
+    expect(codes({ data: { kind: 'discordant', treatedOnly: 1, controlOnly: 0 } })).toEqual(['data:too-few-pairs']);
+  });
+  test('non-numeric or non-finite values name the pair', () => {
+    const problems = validatePairsInput({ data: { kind: 'differences', differences: [1, NaN, 3] } });
+    expect(problems[0].field).toBe('data.differences[1]');
+    expect(problems[0].message).toMatch(/pair 2 is not a finite number/);
+    expect(codes({ data: { kind: 'outcomes', treated: [1, 2, Infinity], control: [1, 2, 3] } })).toEqual(['data.treated[2]:not-finite']);
+  });
+  test('Γ below 1, α outside (0, 1), unequal columns, bad counts and choices', () => {
+    const good = { kind: 'differences', differences: [1, 2, 3] };
+    expect(codes({ data: good, gammas: [1, 0.5] })).toEqual(['gammas[1]:below-one']);
+    expect(codes({ data: good, gammas: [] })).toEqual(['gammas:empty']);
+    expect(codes({ data: good, alpha: 0 })).toEqual(['alpha:outside-interval']);
+    expect(codes({ data: good, alpha: 1.5 })).toEqual(['alpha:outside-interval']);
+    expect(codes({ data: { kind: 'outcomes', treated: [1, 2, 3], control: [1, 2] } })).toEqual(['data.control:unequal-length']);
+    expect(codes({ data: { kind: 'discordant', treatedOnly: 2.5, controlOnly: -1 } })).toEqual([
+      'data.treatedOnly:not-count',
+      'data.controlOnly:not-count',
+    ]);
+    expect(codes({ data: good, test: 'median', alternative: 'two', method: 'fast' })).toEqual([
+      'test:not-a-choice',
+      'alternative:not-a-choice',
+      'method:not-a-choice',
+    ]);
+    expect(codes({})).toEqual(['data:missing']);
+  });
+  test('analysePairs throws one InputError carrying every problem', () => {
+    try {
+      analysePairs({ data: { kind: 'differences', differences: [1, 2, 3] }, alpha: 2, gammas: [0] });
+      expect.unreachable();
+    } catch (error) {
+      expect(error).toBeInstanceOf(InputError);
+      expect((error as InputError).problems.map((p) => p.field)).toEqual(['alpha', 'gammas[0]']);
+    }
+  });
+});
+
+describe('non-mutation', () => {
+  test('frozen inputs are accepted and left unchanged', () => {
+    const differences = Object.freeze([3, 1, -2, 5, 4, 0, 6]);
+    const gammas = Object.freeze([1, 2]);
+    const input = Object.freeze({ data: Object.freeze({ kind: 'differences' as const, differences }), gammas });
+    const result = analysePairs(input);
+    expect(differences).toEqual([3, 1, -2, 5, 4, 0, 6]);
+    expect(result.rows.map((r) => r.gamma)).toEqual([1, 2]);
+  });
+});
