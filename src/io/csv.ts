@@ -1,6 +1,7 @@
 import Papa from 'papaparse';
 import { InputError, inputProblem } from '../core/inputProblem';
 import { parseNumberText } from './parseNumberText';
+import { isMissingCell } from './missingCell';
 
 /** A CSV read into text cells; `null` marks a missing value. */
 export interface CsvTable {
@@ -13,13 +14,6 @@ export interface CsvTable {
   readonly decimalComma: boolean;
   /** Things the reader repaired and the user should know (short rows padded, blank or duplicate headers renamed). */
   readonly warnings: readonly string[];
-}
-
-/** Cell texts that mean "missing" (case-insensitive): empty, NA, N/A, NaN, NULL, and "." (a common export form). */
-const MISSING = new Set(['', 'na', 'n/a', 'nan', 'null', '.', '#n/a']);
-
-export function isMissingCell(text: string): boolean {
-  return MISSING.has(text.trim().toLowerCase());
 }
 
 /**

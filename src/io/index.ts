@@ -8,3 +8,4 @@ export * from './regressionData';
 export * from './summaryStatisticsSql';
 export * from './twoByTwoFromCsv';
 export * from './eValueText';
+export * from './missingCell';

@@ -3,6 +3,7 @@ import { INTERCEPT_NAME, type TriangularDesign } from '../core/linearModel';
 import { StreamingQr, triangularFactor } from '../core/streamingQr';
 import { CsvChunkReader, type CsvDialect } from './csvChunkReader';
 import { parseNumberText } from './parseNumberText';
+import { isMissingCell } from './missingCell';
 
 /** Which columns of a CSV enter the regression, and how. */
 export interface RegressionDataSpec {
@@ -71,8 +72,6 @@ export const TYPE_SAMPLE_ROWS = 1000;
 export const MAX_CATEGORY_LEVELS = 200;
 
 /** Cell texts read as missing (after trimming, any letter case), besides the empty cell. */
-export const MISSING_CELL_TEXTS: readonly string[] = Object.freeze(['NA', 'N/A', 'NAN', '.', 'NULL']);
-const MISSING_SET = new Set(MISSING_CELL_TEXTS);
 
 /** Progress of a streaming read. */
 export interface RegressionProgress {
@@ -127,13 +126,6 @@ export function validateRegressionDataSpec(spec: RegressionDataSpec, header: rea
   return problems;
 }
 
-/** A cell is missing when empty or one of {@link MISSING_CELL_TEXTS} (trimmed, any case). */
-export function isMissingCell(text: string): boolean {
-  if (text.length === 0) return true;
-  if (text.length > 6) return false;
-  const t = text.trim();
-  return t === '' || MISSING_SET.has(t.toUpperCase());
-}
 
 /**
  * Reads a numeric cell; NaN when it is not a finite number (1e400 overflows and is refused). Fast path for plain decimal numbers, else

@@ -6,13 +6,13 @@ import { designFromRows, fitLeastSquares, INTERCEPT_NAME, type LeastSquaresFit }
 import {
   accumulateRegressionFromStream,
   createRegressionAccumulator,
-  isMissingCell,
   parseNumericCell,
   regressionDataFromText,
   TYPE_SAMPLE_ROWS,
   type RegressionData,
   type RegressionDataSpec,
 } from '../../src/io/regressionData';
+import { isMissingCell } from '../../src/io/missingCell';
 import { expectClose } from '../support/expectClose';
 import { readReferenceJson, readReferenceText } from '../support/reference';
 
