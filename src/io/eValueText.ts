@@ -69,7 +69,7 @@ export function describeEValue(result: EValueResult, study?: Partial<StudyLabels
   } else {
     estimate =
       `To ${goal}, ${strength(result.eValueEstimate)}. ` +
-      'Weaker confounding could not do it; a confounder weaker on one side would have to be stronger on the other (see the plot).';
+      'Weaker confounding could not do it; a confounder weaker on one side would have to be stronger on the other.';
   }
 
   let interval: string | null = null;
@@ -103,8 +103,8 @@ export function describeReferenceConfounder(
   const factor = formatNumber(assessment.boundingFactor, { significant: 3 });
   const goal = result.targetIsNull ? 'explain away the estimate' : 'move the estimate to the target';
   const estimatePart = assessment.explainsEstimate
-    ? `enough to ${goal} (it needs ${formatPlain(result.ratioToTarget)})`
-    : `not enough to ${goal} (it needs ${formatPlain(result.ratioToTarget)})`;
+    ? `enough to ${goal} (that takes ${formatPlain(result.ratioToTarget)})`
+    : `not enough to ${goal} (that takes ${formatPlain(result.ratioToTarget)})`;
   let intervalPart = '';
   if (assessment.explainsInterval !== null && result.intervalRatioToTarget !== null) {
     const where = result.targetIsNull ? 'the null' : 'the target';
@@ -112,8 +112,8 @@ export function describeReferenceConfounder(
       result.intervalRatioToTarget <= 1
         ? `; the interval already includes ${where}`
         : assessment.explainsInterval
-          ? `, but enough to make the interval include ${where} (it needs ${formatPlain(result.intervalRatioToTarget)})`
-          : `, nor to make the interval include ${where} (it needs ${formatPlain(result.intervalRatioToTarget)})`;
+          ? `, but enough to make the interval include ${where} (that takes ${formatPlain(result.intervalRatioToTarget)})`
+          : `, nor to make the interval include ${where} (that takes ${formatPlain(result.intervalRatioToTarget)})`;
     if (assessment.explainsEstimate && result.intervalRatioToTarget > 1) {
       intervalPart = `, and so also to make the interval include ${where}`;
     }

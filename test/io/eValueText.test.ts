@@ -12,7 +12,7 @@ describe('describeEValue', () => {
     expect(reading.estimate).toBe(
       'To explain away the estimate, a hidden confounder would need to be associated with both cycling to work and ' +
         'hypertension by a risk ratio of at least 7.26 each, beyond the measured covariates. Weaker confounding could not ' +
-        'do it; a confounder weaker on one side would have to be stronger on the other (see the plot).',
+        'do it; a confounder weaker on one side would have to be stronger on the other.',
     );
     expect(reading.interval).toMatch(/To move the 95% interval so that it includes the null, .* at least 3\.00 each/);
     expect(reading.caution).toBe(E_VALUE_CAUTION);
@@ -48,8 +48,8 @@ describe('describeReferenceConfounder', () => {
     const assessment = assessReferenceConfounder(published, { name: 'age', rrExposure: 4, rrOutcome: 4 });
     expect(describeReferenceConfounder(assessment, published, study)).toBe(
       'A hidden confounder as strong as age (risk ratio 4 with cycling to work and 4 with hypertension) could shift ' +
-        'the risk ratio by a factor of at most 2.29: not enough to explain away the estimate (it needs 3.9), but enough ' +
-        'to make the interval include the null (it needs 1.8).',
+        'the risk ratio by a factor of at most 2.29: not enough to explain away the estimate (that takes 3.9), but enough ' +
+        'to make the interval include the null (that takes 1.8).',
     );
   });
 
