@@ -9,6 +9,7 @@ export interface LurkCommand {
 // Each command lives in its own module under ./commands and is loaded only when used.
 const commands: Record<string, () => Promise<LurkCommand>> = {
   evalue: () => import('./commands/evalue').then((m) => m.command),
+  batch: () => import('./commands/batch').then((m) => m.command),
 };
 
 const CAUTION =
