@@ -27,3 +27,4 @@ export * from './walshAverages';
 export * from './hodgesLehmannRange';
 export * from './amplification';
 export * from './pairsAnalysis';
+export * from './ovbRegression';

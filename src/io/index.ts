@@ -9,3 +9,4 @@ export * from './summaryStatisticsSql';
 export * from './twoByTwoFromCsv';
 export * from './eValueText';
 export * from './missingCell';
+export * from './ovbRegressionData';
