@@ -191,11 +191,25 @@ function checkNonZero(differences: ArrayLike<number>, field: string, problems: I
   }
 }
 
-/** treated − control, pair by pair. */
+/**
+ * treated − control, pair by pair, rounded to 12 significant digits: binary floating point turns equal
+ * differences of decimal numbers into unequal ones (1.3 − 1.2 ≠ 2.3 − 2.2), which would break ties that are
+ * ties on paper and so change the ranks. 12 digits keep far more precision than any measured outcome has.
+ */
 export function outcomeDifferences(treated: ArrayLike<number>, control: ArrayLike<number>): Float64Array {
   const d = new Float64Array(Math.min(treated.length, control.length));
-  for (let i = 0; i < d.length; i++) d[i] = treated[i] - control[i];
+  for (let i = 0; i < d.length; i++) d[i] = roundSignificant(treated[i] - control[i], 12);
   return d;
+}
+
+/** x rounded to `digits` significant digits (0 and non-finite values unchanged). */
+export function roundSignificant(x: number, digits: number): number {
+  if (x === 0 || !Number.isFinite(x)) return x;
+  const exponent = Math.floor(Math.log10(Math.abs(x)));
+  const scale = Math.pow(10, digits - 1 - exponent);
+  if (!Number.isFinite(scale) || scale === 0) return Number(x.toPrecision(digits));
+  const rounded = Math.round(x * scale) / scale;
+  return Number.isFinite(rounded) ? rounded : x;
 }
 
 /**

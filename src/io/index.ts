@@ -10,3 +10,6 @@ export * from './twoByTwoFromCsv';
 export * from './eValueText';
 export * from './missingCell';
 export * from './ovbRegressionData';
+export * from './pairsFromCsv';
+export * from './pairsFromText';
+export * from './pairsText';

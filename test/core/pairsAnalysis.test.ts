@@ -205,3 +205,12 @@ describe('non-mutation', () => {
     expect(result.rows.map((r) => r.gamma)).toEqual([1, 2]);
   });
 });
+
+describe('decimal differences', () => {
+  test('1.3 − 1.2 and 2.3 − 2.2 tie, as they do on paper', () => {
+    const result = analysePairs({ data: { kind: 'outcomes', treated: [1.3, 2.3, 5, 7, 9], control: [1.2, 2.2, 1, 1, 1] }, gammas: [1] });
+    const same = analysePairs({ data: { kind: 'differences', differences: [0.1, 0.1, 4, 6, 8] }, gammas: [1] });
+    expect(result.rows).toEqual(same.rows);
+    expect(result.warnings.join(' ')).toMatch(/equal sizes/);
+  });
+});

@@ -1,0 +1,131 @@
+import { describe, expect, test } from 'vitest';
+import { execFileSync, spawnSync } from 'node:child_process';
+import { existsSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { runLurk } from '../../src/cli/main';
+import { memoryIo } from '../../src/cli/cliIo';
+import { expectClose } from '../support/expectClose';
+import { readReferenceJson, readReferenceText, referencePath } from '../support/reference';
+
+const reference = readReferenceJson('rosenbaum.json');
+
+async function lurk(args: string[], files: Record<string, string> = {}) {
+  const io = memoryIo(files);
+  const code = await runLurk(args, io);
+  return { code, stdout: io.stdout, stderr: io.stderr };
+}
+
+describe('lurk pairs --json against the reference', () => {
+  test('n = 40 differences: rows, sensitivity value and n', async () => {
+    // R 4.2.2 reference, test/reference/rosenbaum.json (exact signed-rank, alternative treated > control)
+    const { code, stdout, stderr } = await lurk([
+      'pairs', '--file', referencePath('rosenbaum_n40.csv'), '--diff', 'd', '--gamma', reference.gammas.join(','), '--json',
+    ]);
+    expect(stderr).toBe('');
+    expect(code).toBe(0);
+    const json = JSON.parse(stdout);
+    const ds = reference.datasets.n40;
+    expect(json.n).toBe(40);
+    expectClose(json.sensitivityValue, ds.sensitivity_value.wilcoxon_exact, { rel: 1e-8 });
+    json.rows.forEach((row: any, i: number) => {
+      expect(Object.keys(row)).toEqual(['gamma', 'pUpper', 'pLower']);
+      expectClose(row.pUpper, ds.by_gamma[i].wilcoxon_upper_exact, { rel: 1e-11 });
+      expectClose(row.pLower, ds.by_gamma[i].wilcoxon_lower_exact, { rel: 1e-11 });
+    });
+    expect(json.estimates).toHaveLength(reference.gammas.length);
+    expect(json.tailMethod).toBe('exact');
+  });
+
+  test('sign test, normal approximation with continuity correction', async () => {
+    // R 4.2.2 reference, rosenbaum.json: sign_upper_normal_cc and its sensitivity value
+    const { code, stdout } = await lurk([
+      'pairs', '--file', referencePath('rosenbaum_small_n15.csv'), '--diff', 'd', '--test', 'sign', '--method', 'normal',
+      '--continuity-correction', '--gamma', '1,2', '--json',
+    ]);
+    expect(code).toBe(0);
+    const json = JSON.parse(stdout);
+    const ds = reference.datasets.small_n15;
+    expectClose(json.rows[1].pUpper, ds.by_gamma[3].sign_upper_normal_cc, { rel: 1e-11 });
+    expectClose(json.sensitivityValue, ds.sensitivity_value.sign_normal_cc, { rel: 1e-8 });
+  });
+
+  test('discordant counts', async () => {
+    // Same as the sign test of small_n15: S = 12 of D = 15 (R 4.2.2 pbinom reference)
+    const { code, stdout } = await lurk(['pairs', '--discordant', '12,3', '--json']);
+    expect(code).toBe(0);
+    const json = JSON.parse(stdout);
+    expect(json.test).toBe('sign');
+    expectClose(json.sensitivityValue, reference.datasets.small_n15.sensitivity_value.sign_exact, { rel: 1e-8 });
+  });
+
+  test('treated and control columns, with a missing row dropped and counted', async () => {
+    const csv = 'pair;treated;control\r\n1;5,1;4,2\r\n2;6,0;5,5\r\n3;NA;4,9\r\n4;7,2;6,1\r\n5;5,5;5,0\r\n6;6,6;5,1\r\n7;3,9;3,2\r\n8;5,0;4,1\r\n9;6,2;5,9\r\n';
+    const { code, stdout } = await lurk(['pairs', '--file', 'p.csv', '--treated', 'treated', '--control', 'control', '--json'], { 'p.csv': '\ufeff' + csv });
+    expect(code).toBe(0);
+    const json = JSON.parse(stdout);
+    expect(json.n).toBe(8);
+    expect(json.droppedRows).toBe(1);
+    expect(json.warnings.join(' ')).toMatch(/1 of 9 rows were left out/);
+    // All 8 differences positive: exact p at Γ = 1 is 2⁻⁸ (Wilcoxon 1945: only one sign pattern reaches T = 36)
+    expectClose(json.pValue, 2 ** -8, { rel: 1e-13 });
+  });
+});
+
+describe('readable report', () => {
+  test('names the tipping Γ, the table, the reading and the caution', async () => {
+    const { code, stdout } = await lurk(['pairs', '--file', referencePath('rosenbaum_small_n15.csv'), '--diff', 'd']);
+    expect(code).toBe(0);
+    expect(stdout).toMatch(/Tipping Γ \(sensitivity value\): 1\.611/);
+    expect(stdout).toMatch(/p upper bound/);
+    expect(stdout).toMatch(/by a factor of more than 1\.611/);
+    expect(stdout).toMatch(/does not prove causation/);
+    expect(stdout).not.toMatch(/NaN|undefined|Infinity/);
+  });
+  test('--help lists the options', async () => {
+    const { code, stdout } = await lurk(['pairs', '--help']);
+    expect(code).toBe(0);
+    expect(stdout).toMatch(/--discordant/);
+    expect(stdout).toMatch(/--continuity-correction/);
+  });
+});
+
+describe('bad input exits 2 with one line naming the option', () => {
+  const file = { 'p.csv': 'd,t,c\n1,2,1\n2,3,1\nx,4,1\n', 'z.csv': 'd\n0\n0\n1\n', 'e.csv': '' };
+  test.each([
+    [['pairs', '--file', 'p.csv', '--diff', 'd'], /^lurk pairs: --diff: column "d" has "x" in row 3, which is not a number\n$/],
+    [['pairs', '--file', 'z.csv', '--diff', 'd'], /^lurk pairs: --file: needs at least two pairs whose outcomes differ/],
+    [['pairs', '--file', 'p.csv', '--diff', 'q'], /^lurk pairs: --diff: no column named "q" \(columns: d, t, c\)\n$/],
+    [['pairs', '--file', 'p.csv', '--treated', 't', '--control', 'c', '--gamma', '1,0.5'], /^lurk pairs: --gamma: must be 1 or more/],
+    [['pairs', '--file', 'p.csv', '--treated', 't', '--control', 'c', '--alpha', '1.2'], /^lurk pairs: --alpha: must be between 0 and 1/],
+    [['pairs', '--file', 'p.csv', '--treated', 't'], /^lurk pairs: --control: name the control-outcome column/],
+    [['pairs', '--file', 'e.csv', '--diff', 'd'], /^lurk pairs: --file: the file is empty\n$/],
+    [['pairs', '--file', 'missing.csv', '--diff', 'd'], /^lurk pairs: --file: "missing.csv": no such file\n$/],
+    [['pairs', '--discordant', '3'], /^lurk pairs: --discordant: needs two counts/],
+    [['pairs', '--discordant', '1,0'], /^lurk pairs: --discordant: needs at least two discordant pairs/],
+    [['pairs', '--discordant', '2.5,4'], /^lurk pairs: --discordant: must be a whole number/],
+    [['pairs', '--discordant', '5,1', '--test', 'median'], /^lurk pairs: --test: must be one of signrank, sign/],
+    [['pairs', '--discordant', '5,1', '--frobnicate'], /^lurk pairs: --frobnicate: is not an option/],
+    [['pairs'], /^lurk pairs: --file: give a CSV file of pairs/],
+  ])('%j', async (args, message) => {
+    const { code, stderr, stdout } = await lurk(args as string[], file);
+    expect(code).toBe(2);
+    expect(stdout).toBe('');
+    expect(stderr).toMatch(message);
+    expect(stderr.trim().split('\n')).toHaveLength(1);
+  });
+});
+
+describe('the built command', () => {
+  const built = fileURLToPath(new URL('../../dist/cli/lurk.js', import.meta.url));
+  test('node dist/cli/lurk.js pairs prints JSON and exits 0; bad input exits 2', () => {
+    if (!existsSync(built)) execFileSync('npm', ['run', 'build:cli'], { cwd: fileURLToPath(new URL('../..', import.meta.url)), stdio: 'ignore' });
+    const ok = spawnSync('node', [built, 'pairs', '--file', referencePath('rosenbaum_small_n15.csv'), '--diff', 'd', '--json'], { encoding: 'utf8' });
+    expect(ok.status).toBe(0);
+    // R 4.2.2 reference sensitivity value (exact signed-rank), rosenbaum.json
+    expectClose(JSON.parse(ok.stdout).sensitivityValue, reference.datasets.small_n15.sensitivity_value.wilcoxon_exact, { rel: 1e-8 });
+    const bad = spawnSync('node', [built, 'pairs', '--discordant', '1,-4'], { encoding: 'utf8' });
+    expect(bad.status).toBe(2);
+    expect(bad.stderr).toMatch(/^lurk pairs: --discordant: /);
+    expect(readReferenceText('rosenbaum_small_n15.csv').length).toBeGreaterThan(0);
+  }, 60_000);
+});
