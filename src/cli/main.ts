@@ -11,6 +11,7 @@ const commands: Record<string, () => Promise<LurkCommand>> = {
   evalue: () => import('./commands/evalue').then((m) => m.command),
   batch: () => import('./commands/batch').then((m) => m.command),
   pairs: () => import('./commands/pairs').then((m) => m.command),
+  ovb: () => import('./commands/ovb').then((m) => m.command),
 };
 
 const CAUTION =

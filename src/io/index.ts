@@ -13,3 +13,4 @@ export * from './ovbRegressionData';
 export * from './pairsFromCsv';
 export * from './pairsFromText';
 export * from './pairsText';
+export * from './ovbText';

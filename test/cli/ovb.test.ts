@@ -1,0 +1,180 @@
+import { describe, expect, it } from 'vitest';
+import { execFileSync, spawnSync } from 'node:child_process';
+import { existsSync } from 'node:fs';
+import { runLurk } from '../../src/cli/main';
+import { memoryIo } from '../../src/cli/cliIo';
+import { expectClose } from '../support/expectClose';
+import { readReferenceJson, referencePath } from '../support/reference';
+
+const ovb = readReferenceJson('ovb.json');
+const swiss = ovb.swiss;
+const swissPath = referencePath('swiss.csv');
+
+async function lurk(args: string[], files: Record<string, string> = {}) {
+  const io = memoryIo(files);
+  const code = await runLurk(['ovb', ...args], io);
+  return { code, out: io.stdout, err: io.stderr };
+}
+
+describe('lurk ovb', () => {
+  it('reproduces the published example from reported numbers', async () => {
+    // Cinelli & Hazlett 2020, JRSS-B 82(1):39–67: t = 4.18, df = 783 → 2.2%, 13.9%, 7.6%
+    const { code, out } = await lurk(['--estimate', '4.18', '--se', '1', '--df', '783']);
+    expect(code).toBe(0);
+    expect(out).toMatch(/2\.2%/);
+    expect(out).toMatch(/13\.9%/);
+    expect(out).toMatch(/7\.6%/);
+    expect(out).toMatch(/does not prove causation/);
+    expect(out).not.toMatch(/NaN|undefined|Infinity/);
+  });
+
+  it('prints the specified JSON fields for reported numbers', async () => {
+    const { code, out } = await lurk(['--estimate', '4.18', '--se', '1', '--n', '790', '--parameters', '7', '--json']);
+    expect(code).toBe(0);
+    const json = JSON.parse(out);
+    for (const key of ['estimate', 'se', 't', 'df', 'partialR2', 'rv', 'rvAlpha']) expect(json).toHaveProperty(key);
+    expect(json.df).toBe(783);
+    // R 4.2.2 (ovb.json published_example)
+    expectClose(json.rv, ovb.published_example.RV_1, { rel: 1e-12 });
+    expectClose(json.rvAlpha, ovb.published_example['RV_1_0.05'], { rel: 1e-10 });
+  });
+
+  it('uses covariate t-statistics from a paper as benchmarks', async () => {
+    const b = swiss.benchmarks.Agriculture;
+    const { code, out } = await lurk([
+      '--estimate', String(swiss.estimate), '--se', String(swiss.se), '--df', String(swiss.df),
+      '--covariate-t', `Agriculture=${b.t_in_main_model}:${b.t_in_D_model},Catholic=${swiss.benchmarks.Catholic.t_in_main_model}`,
+      '--json',
+    ]);
+    expect(code).toBe(0);
+    const json = JSON.parse(out);
+    const row = json.benchmarks.find((r: any) => r.covariate === 'Agriculture' && r.k === 1);
+    // R 4.2.2 on datasets::swiss; bound formulas from memory, re-derived (ovb.json)
+    expectClose(row.r2dz, b.bounds[0].r2dz, { rel: 1e-12 });
+    expectClose(row.correctedEstimate, b.bounds[0].adjusted_estimate_toward_zero, { rel: 1e-11 });
+    const catholic = json.benchmarks.find((r: any) => r.covariate === 'Catholic');
+    expect(catholic.correctedEstimate).toBeNull();
+    expect(catholic.unavailable).toMatch(/treatment/);
+  });
+
+  it('analyses the swiss CSV like R lm, with benchmark bounds for k = 1, 2, 3', async () => {
+    const { code, out, err } = await lurk(['--file', swissPath, '--outcome', 'Fertility', '--treatment', 'Education', '--json']);
+    expect(err).toBe('');
+    expect(code).toBe(0);
+    const json = JSON.parse(out);
+    // R 4.2.2: lm(Fertility ~ ., swiss) (ovb.json swiss)
+    expectClose(json.estimate, swiss.estimate, { rel: 1e-9 });
+    expectClose(json.se, swiss.se, { rel: 1e-9 });
+    expectClose(json.t, swiss.t, { rel: 1e-9 });
+    expect(json.df).toBe(41);
+    expectClose(json.partialR2, swiss.R2yd, { rel: 1e-9 });
+    expectClose(json.rv, swiss.RV_1, { rel: 1e-9 });
+    expectClose(json.rvAlpha, swiss['RV_1_0.05'], { rel: 1e-9 });
+    expect(json.benchmarks).toHaveLength(12);
+    for (const row of json.benchmarks) {
+      expect(Object.keys(row)).toEqual(expect.arrayContaining(['covariate', 'k', 'r2dz', 'r2yz', 'correctedEstimate', 'correctedSe', 'correctedT']));
+      const ref = swiss.benchmarks[row.covariate].bounds.find((x: any) => x.kd === row.k);
+      if (!ref.valid) {
+        expect(row.r2dz).toBeNull();
+        continue;
+      }
+      expectClose(row.r2dz, ref.r2dz, { rel: 1e-9 }, `${row.covariate} ${row.k}`);
+      expectClose(row.r2yz, ref.r2yz, { rel: 1e-9 }, `${row.covariate} ${row.k}`);
+      expectClose(row.correctedEstimate, ref.adjusted_estimate_toward_zero, { rel: 1e-9 });
+      if (ref.adjusted_se > 0) expectClose(row.correctedSe, ref.adjusted_se, { rel: 1e-9 });
+    }
+  });
+
+  it('takes covariates, benchmarks, k, q, α and a confounder strength', async () => {
+    const { code, out } = await lurk([
+      '--file', swissPath, '--outcome', 'Fertility', '--treatment', 'Education',
+      '--covariates', 'Agriculture,Examination,Catholic,Infant.Mortality',
+      '--benchmark', 'Agriculture,Catholic+Infant.Mortality', '--k', '0.5,1', '--q', '0.5', '--alpha', '0.1',
+      '--r2dz', '0.1', '--r2yz', '0.2',
+    ]);
+    expect(code).toBe(0);
+    expect(out).toMatch(/Catholic \+ Infant\.Mortality/);
+    expect(out).toMatch(/reduce the estimate by 50%/);
+    expect(out).toMatch(/With R²\(D~Z\|X\) = 10\.0%/);
+    expect(out).toMatch(/47 rows used of 47/);
+    const json = JSON.parse((await lurk(['--file', swissPath, '--outcome', 'Fertility', '--treatment', 'Education', '--q', '0.5', '--json'])).out);
+    // R 4.2.2 (ovb.json swiss RV_0.5, RV_0.5_0.05)
+    expectClose(json.rv, swiss['RV_0.5'], { rel: 1e-9 });
+    expectClose(json.rvAlpha, swiss['RV_0.5_0.05'], { rel: 1e-9 });
+  });
+
+  it('prints the summary-statistics query and reads its result back', async () => {
+    const args = ['--outcome', 'Fertility', '--treatment', 'Education', '--covariates', 'Agriculture,Examination,Catholic,Infant.Mortality'];
+    const sql = await lurk(['--sql', 'swiss', ...args]);
+    expect(sql.code).toBe(0);
+    expect(sql.out).toMatch(/SELECT/);
+    expect(sql.out).toMatch(/"Education"/);
+    // the query's result computed here from the CSV (what a database would return)
+    const { readCsvText } = await import('../../src/io/csv');
+    const table = readCsvText((await import('node:fs')).readFileSync(swissPath, 'utf8'));
+    const vars = ['Agriculture', 'Examination', 'Catholic', 'Infant.Mortality', 'Education', 'Fertility'];
+    const cols = vars.map((v) => table.rows.map((r) => Number(r[table.columns.indexOf(v)])));
+    const row: Record<string, number> = { n: table.rows.length };
+    cols.forEach((c, i) => (row[`s_${i + 1}`] = c.reduce((a, b) => a + b, 0)));
+    for (let i = 0; i < vars.length; i++) for (let j = i; j < vars.length; j++) row[`c_${i + 1}_${j + 1}`] = cols[i].reduce((a, x, r) => a + x * cols[j][r], 0);
+    const fromJson = await lurk(['--summary', 'result.json', ...args, '--json'], { 'result.json': JSON.stringify(row) });
+    expect(fromJson.err).toBe('');
+    const json = JSON.parse(fromJson.out);
+    // R 4.2.2 (ovb.json swiss); the cross-product path is less accurate than QR on raw rows
+    expectClose(json.estimate, swiss.estimate, { rel: 1e-7 });
+    expectClose(json.rv, swiss.RV_1, { rel: 1e-7 });
+    const csv = Object.keys(row).join(',') + '\n' + Object.values(row).join(',') + '\n';
+    const fromCsv = await lurk(['--summary', 'result.csv', ...args, '--json'], { 'result.csv': csv });
+    expectClose(JSON.parse(fromCsv.out).rv, swiss.RV_1, { rel: 1e-7 });
+  });
+
+  it('exits 2 with one line naming the option for bad input', async () => {
+    const cases: [string[], RegExp][] = [
+      [['--estimate', '1', '--se', '1', '--df', '1'], /^lurk ovb: --df: must be greater than 1/],
+      [['--estimate', '1', '--se', '0', '--df', '10'], /^lurk ovb: --se: /],
+      [['--estimate', 'abc', '--se', '1', '--df', '10'], /^lurk ovb: --estimate: must be a finite number/],
+      [['--se', '1', '--df', '10'], /^lurk ovb: --estimate: is needed/],
+      [['--estimate', '1', '--se', '1', '--df', '10', '--r2dz', '1', '--r2yz', '0.1'], /^lurk ovb: --r2dz: must be a partial R² in \[0, 1\)/],
+      [['--estimate', '1', '--se', '1', '--df', '10', '--r2yz', '0.1'], /^lurk ovb: --r2dz: is needed/],
+      [['--estimate', '1', '--se', '1', '--df', '10', '--k', '1,-1'], /^lurk ovb: --k: must be greater than 0/],
+      [['--estimate', '1', '--se', '1', '--df', '10', '--direction', 'up'], /^lurk ovb: --direction: must be one of/],
+      [['--estimate', '1', '--se', '1', '--df', '10', '--file', swissPath], /^lurk ovb: --estimate: gives reported numbers/],
+      [['--estimate', '1', '--se', '1', '--df', '10', '--covariate-t', 'age'], /^lurk ovb: --covariate-t: item 1/],
+      [['--file', swissPath, '--outcome', 'Fertility', '--treatment', 'Fertility'], /^lurk ovb: --treatment: .*outcome/],
+      [['--file', swissPath, '--outcome', 'Fertility', '--treatment', 'Education', '--covariates', 'Agriculture,Agriculture'], /^lurk ovb: --covariates: .*twice/],
+      [['--file', swissPath, '--outcome', 'Fertility', '--treatment', 'Nope'], /^lurk ovb: --treatment: there is no column named "Nope"/],
+      [['--file', swissPath, '--outcome', 'Fertility', '--treatment', 'Education', '--benchmark', 'Age'], /^lurk ovb: --benchmark: "Age" is not one of the covariates/],
+      [['--file', 'missing.csv', '--outcome', 'a', '--treatment', 'b'], /^lurk ovb: --file: cannot read "missing.csv"/],
+      [['--file', 'const.csv', '--outcome', 'y', '--treatment', 'd'], /^lurk ovb: --treatment: "d" is constant/],
+      [['--file', 'text.csv', '--outcome', 'y', '--treatment', 'd'], /^lurk ovb: /],
+      [['--wrong'], /^lurk ovb: --wrong: is not an option/],
+    ];
+    const files = { 'const.csv': 'y,d,x\n1,2,3\n2,2,1\n4,2,7\n3,2,2\n5,2,9\n', 'text.csv': 'y,d\n1,2\n2,x\n3,4\n5,1\n' };
+    for (const [args, message] of cases) {
+      const { code, err, out } = await lurk(args, files);
+      expect(code, args.join(' ')).toBe(2);
+      expect(out).toBe('');
+      expect(err.trim().split('\n')).toHaveLength(1);
+      expect(err, args.join(' ')).toMatch(message);
+    }
+  });
+
+  it('prints help', async () => {
+    const { code, out } = await lurk(['--help']);
+    expect(code).toBe(0);
+    expect(out).toMatch(/--covariate-t/);
+  });
+
+  it('runs as the built command', () => {
+    const built = 'dist/cli/lurk.js';
+    // build from the current sources (a stale dist/ would test old code)
+    execFileSync('npm', ['run', 'build:cli'], { stdio: 'ignore' });
+    expect(existsSync(built)).toBe(true);
+    const result = spawnSync('node', [built, 'ovb', '--estimate', '-4.18', '--se', '1', '--df', '783', '--json'], { encoding: 'utf8' });
+    expect(result.status).toBe(0);
+    expect(JSON.parse(result.stdout).rv).toBeCloseTo(0.1386, 4);
+    const bad = spawnSync('node', [built, 'ovb', '--estimate', '1', '--se', '1', '--df', '0'], { encoding: 'utf8' });
+    expect(bad.status).toBe(2);
+    expect(bad.stderr).toMatch(/--df/);
+  }, 120_000);
+});
