@@ -10,6 +10,7 @@ export interface LurkCommand {
 const commands: Record<string, () => Promise<LurkCommand>> = {
   evalue: () => import('./commands/evalue').then((m) => m.command),
   batch: () => import('./commands/batch').then((m) => m.command),
+  report: () => import('./commands/report').then((m) => m.command),
   pairs: () => import('./commands/pairs').then((m) => m.command),
   ovb: () => import('./commands/ovb').then((m) => m.command),
 };

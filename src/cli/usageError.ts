@@ -33,6 +33,7 @@ export function reportBadInput(command: string, error: unknown, io: CliIo): numb
 
 /** Input-object field names are camelCase; on the command line they are --kebab-case options. */
 export function optionName(field: string): string {
-  if (field.startsWith('--') || field.includes(' ') || field.includes('[') || field.includes('.')) return field;
+  // Only plain camelCase names are option names; FILE-like placeholders and key paths stay as they are.
+  if (!/^[a-z][a-zA-Z0-9]*$/.test(field)) return field;
   return '--' + field.replace(/[A-Z]/g, (c) => '-' + c.toLowerCase());
 }
