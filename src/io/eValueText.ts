@@ -123,3 +123,21 @@ export function describeReferenceConfounder(
     `${estimatePart}${intervalPart}.`
   );
 }
+
+/**
+ * A read-out for a point of the joint-strength plot: what a hidden confounder with these two strengths could
+ * do to the estimate (for the pointer).
+ */
+export function describeStrengthPair(
+  rrExposure: number,
+  rrOutcome: number,
+  factor: number,
+  result: Pick<EValueResult, 'ratioToTarget' | 'targetIsNull'>,
+): string {
+  if (!(rrExposure >= 1 && rrOutcome >= 1 && Number.isFinite(factor))) return '';
+  const verdict = factor >= result.ratioToTarget * (1 - 1e-12) ? 'enough' : 'not enough';
+  return (
+    `Risk ratios ${formatPlain(rrExposure)} with the exposure and ${formatPlain(rrOutcome)} with the outcome: a shift by a factor ` +
+    `of at most ${formatPlain(factor)}, ${verdict} to ${result.targetIsNull ? 'explain away the estimate' : 'move the estimate to the target'}.`
+  );
+}

@@ -14,3 +14,4 @@ export * from './pairsFromCsv';
 export * from './pairsFromText';
 export * from './pairsText';
 export * from './ovbText';
+export * from './eValueForm';

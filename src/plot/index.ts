@@ -6,3 +6,6 @@ export * from './svgString';
 export * from './pathData';
 export * from './invertAxis';
 export * from './jointStrengthPlot';
+export * from './pValueByGammaPlot';
+export * from './estimateRangePlot';
+export * from './amplificationPlot';

@@ -150,7 +150,7 @@ export function jointStrengthPlot(result: EValueResult, options: JointStrengthPl
       color: palette.reference,
       size: 5,
       label: c.name,
-      labelSide: 'right',
+      labelSide: 'above',
     });
   }
   if (confounders.length > 0) legend.push({ label: 'reference confounder', color: palette.reference, swatch: 'square' });
