@@ -74,6 +74,11 @@ export interface PairsResult {
   /** What the sign test alone gives (for the signed-rank test too, as a comparison). */
   readonly signTestSensitivityValue: number | null;
   readonly rows: readonly PairsRow[];
+  /**
+   * The same bounds on a finer Γ grid for drawing (41 points from 1 to the last tabulated Γ), computed the
+   * same way as the rows; just the rows when the exact tails are too slow to repeat (over 300 pairs).
+   */
+  readonly curve: readonly PairsRow[];
   /** Hodges–Lehmann estimate at Γ = 1 (signed-rank test with numeric outcomes only). */
   readonly estimate: number | null;
   /** Estimate range and sensitivity interval for each Γ (signed-rank with numeric outcomes; else empty). */
@@ -84,6 +89,9 @@ export interface PairsResult {
   readonly amplification: readonly AmplifiedPair[];
   readonly warnings: readonly string[];
 }
+
+/** Above this many non-zero pairs the exact plotting curve is not computed (the table rows are drawn). */
+const CURVE_EXACT_LIMIT = 300;
 
 /** Largest number of non-zero pairs for which `auto` uses the exact signed-rank distribution. */
 export const EXACT_PAIRS_LIMIT = 1000;
@@ -320,6 +328,18 @@ export function analysePairs(input: PairsInput): PairsResult {
     return Object.freeze({ gamma, pUpper: bound.pUpper, pLower: bound.pLower });
   });
 
+  const curveCheap = tailMethod === 'normal' || test === 'sign' || nonZero <= CURVE_EXACT_LIMIT;
+  const top = Math.max(...gammas);
+  const curve: PairsRow[] = [];
+  if (curveCheap && top > 1) {
+    for (let i = 0; i <= 40; i++) {
+      const gamma = 1 + ((top - 1) * i) / 40;
+      const bound =
+        test === 'sign' || !ranks ? signTestBound(favourable, nonZero, gamma, tailOptions) : signedRankBound(ranks, gamma, tailOptions);
+      curve.push(Object.freeze({ gamma, pUpper: bound.pUpper, pLower: bound.pLower }));
+    }
+  } else curve.push(...[...rows].sort((a, b) => a.gamma - b.gamma));
+
   let estimate: number | null = null;
   const estimates: EffectUnderBias[] = [];
   if (test === 'signrank' && differences) {
@@ -358,6 +378,7 @@ export function analysePairs(input: PairsInput): PairsResult {
     searchedUpTo: tipping.searchedUpTo,
     signTestSensitivityValue: signTipping.gamma,
     rows: Object.freeze(rows),
+    curve: Object.freeze(curve),
     estimate,
     estimates: Object.freeze(estimates),
     intervalLevel: 1 - alpha,
