@@ -15,3 +15,4 @@ export * from './pairsFromText';
 export * from './pairsText';
 export * from './ovbText';
 export * from './eValueForm';
+export * from './decimalSpan';

@@ -1,7 +1,8 @@
 import { type InputProblem, InputError, inputProblem, throwIfProblems } from '../core/inputProblem';
 import { INTERCEPT_NAME, type TriangularDesign } from '../core/linearModel';
 import { StreamingQr, triangularFactor } from '../core/streamingQr';
-import { CsvChunkReader, type CsvDialect } from './csvChunkReader';
+import { CsvChunkReader, type CsvDialect, type CsvRecordSpans } from './csvChunkReader';
+import { parseDecimalSpan } from './decimalSpan';
 import { parseNumberText } from './parseNumberText';
 import { isMissingCell } from './missingCell';
 
@@ -70,8 +71,6 @@ export interface RegressionData {
 export const TYPE_SAMPLE_ROWS = 1000;
 /** More distinct values than this and a column is treated as an identifier or free text, not a category. */
 export const MAX_CATEGORY_LEVELS = 200;
-
-/** Cell texts read as missing (after trimming, any letter case), besides the empty cell. */
 
 /** Progress of a streaming read. */
 export interface RegressionProgress {
@@ -196,21 +195,21 @@ export function createRegressionAccumulator(
   let typed = false;
   let sample: string[][] = [];
   let resolvedCovariates: string[] = [];
-  const numbers = new Float64Array(0);
-  let values = numbers;
+  let values = new Float64Array(0);
   let levelsOfRow: (string | null)[] = [];
   let decimalComma = false;
+  let hasCategorical = false;
   const warnings: string[] = [];
 
-  const reader = new CsvChunkReader((fields, recordNumber) => {
+  const reader = CsvChunkReader.withSpans((record, recordNumber) => {
     if (header === null) {
-      onHeader(fields);
+      onHeader(Array.from({ length: record.count }, (_, i) => record.field(i)));
       return;
     }
     rowsRead++;
-    if (fields.length !== header.length) {
-      // A lone empty field is a line with only spaces or a stray delimiter-free blank: skip it.
-      if (fields.length === 1 && fields[0].trim() === '') {
+    if (record.count !== header.length) {
+      // A lone empty field is a line with only spaces: skip it.
+      if (record.count === 1 && record.field(0).trim() === '') {
         rowsRead--;
         return;
       }
@@ -218,18 +217,73 @@ export function createRegressionAccumulator(
         inputProblem(
           'file',
           'ragged-row',
-          `row ${rowsRead} (record ${recordNumber}) has ${fields.length} fields but the header has ${header.length}.`,
+          `row ${rowsRead} (record ${recordNumber}) has ${record.count} fields but the header has ${header.length}.`,
           rowsRead,
         ),
       ]);
     }
     if (!typed) {
-      sample.push(variables.map((v) => fields[v.source]));
+      sample.push(variables.map((v) => record.field(v.source)));
       if (sample.length >= TYPE_SAMPLE_ROWS) decideTypes();
       return;
     }
-    addFields(fields, rowsRead, true);
+    addSpans(record, rowsRead);
   }, options.dialect);
+
+  /**
+   * The hot path: numbers are read straight from the text (no string per cell) by Clinger's fast path; any
+   * other cell text goes through the full cell reader and the missing-value rule.
+   */
+  function addSpans(record: CsvRecordSpans, rowNumber: number): void {
+    const text = record.text;
+    const starts = record.start;
+    const ends = record.end;
+    const unescaped = record.unescaped;
+    const decimalCode = decimalComma ? 44 : 46;
+    let missing = false;
+    for (let i = 0; i < variables.length; i++) {
+      const v = variables[i];
+      const source = v.source;
+      if (v.categorical) {
+        const cell = record.field(source);
+        if (isMissingCell(cell)) {
+          v.missing++;
+          missing = true;
+        } else levelsOfRow[i] = cell.trim();
+        continue;
+      }
+      let x = unescaped[source] === null ? parseDecimalSpan(text, starts[source], ends[source], decimalCode) : NaN;
+      if (x !== x) {
+        const cell = record.field(source);
+        x = parseNumericCell(cell, decimalComma);
+        if (x !== x) {
+          if (isMissingCell(cell)) {
+            v.missing++;
+            missing = true;
+            continue;
+          }
+          throw notANumber(v, rowNumber, cell);
+        }
+      }
+      values[i] = x;
+    }
+    if (missing) {
+      dropped++;
+      return;
+    }
+    commitRow();
+  }
+
+  function notANumber(v: Variable, rowNumber: number, text: string): InputError {
+    return new InputError([
+      inputProblem(
+        v.field,
+        'not-a-number',
+        `column "${v.column}", row ${rowNumber}: "${text}" is not a number (the first rows of this column were numbers; list it as categorical to dummy-code it).`,
+        text,
+      ),
+    ]);
+  }
 
   function onHeader(fields: string[]): void {
     header = fields.map((f) => f.trim());
@@ -265,11 +319,12 @@ export function createRegressionAccumulator(
       v.categorical = sample.some((cells) => !isMissingCell(cells[i]) && Number.isNaN(parseNumericCell(cells[i], decimalComma)));
     });
     layout();
+    hasCategorical = variables.some((v) => v.categorical);
     typed = true;
     const rows = sample;
     sample = [];
     const base = rowsRead - rows.length;
-    rows.forEach((cells, k) => addFields(cells, base + k + 1, false));
+    rows.forEach((cells, k) => addFields(cells, base + k + 1));
   }
 
   /** Column offsets in the accumulating design: [intercept, variables…] with every level of a categorical. */
@@ -282,12 +337,12 @@ export function createRegressionAccumulator(
     return offset;
   }
 
-  function addFields(cells: string[], rowNumber: number, fromRecord: boolean): void {
-    // First pass: missing values and numbers; nothing is registered until the row is known to be complete.
+  /** A row of the typing sample (cells of the chosen columns, as text). */
+  function addFields(cells: string[], rowNumber: number): void {
     let missing = false;
     for (let i = 0; i < variables.length; i++) {
       const v = variables[i];
-      const text = fromRecord ? cells[v.source] : cells[i];
+      const text = cells[i];
       if (isMissingCell(text)) {
         v.missing++;
         missing = true;
@@ -297,16 +352,7 @@ export function createRegressionAccumulator(
         levelsOfRow[i] = text.trim();
       } else {
         const x = parseNumericCell(text, decimalComma);
-        if (Number.isNaN(x)) {
-          throw new InputError([
-            inputProblem(
-              v.field,
-              'not-a-number',
-              `column "${v.column}", row ${rowNumber}: "${text}" is not a number (the first rows of this column were numbers; list it as categorical to dummy-code it).`,
-              text,
-            ),
-          ]);
-        }
+        if (Number.isNaN(x)) throw notANumber(v, rowNumber, text);
         values[i] = x;
       }
     }
@@ -314,15 +360,22 @@ export function createRegressionAccumulator(
       dropped++;
       return;
     }
+    commitRow();
+  }
+
+  /** Adds the complete row held in `values` / `levelsOfRow` to the QR (registering new levels first). */
+  function commitRow(): void {
     if (qr === null) {
       qr = new StreamingQr(Math.max(1, layout()));
       row = new Float64Array(qr.columnCount);
     }
-    for (let i = 0; i < variables.length; i++) {
-      const v = variables[i];
-      if (v.categorical && !v.levelIndex.has(levelsOfRow[i]!)) addLevel(v, levelsOfRow[i]!);
+    if (hasCategorical) {
+      for (let i = 0; i < variables.length; i++) {
+        const v = variables[i];
+        if (v.categorical && !v.levelIndex.has(levelsOfRow[i]!)) addLevel(v, levelsOfRow[i]!);
+      }
+      row.fill(0);
     }
-    row.fill(0);
     if (intercept) row[0] = 1;
     for (let i = 0; i < variables.length; i++) {
       const v = variables[i];
