@@ -20,11 +20,11 @@ export function formatGamma(gamma: number | null | undefined): string {
 
 /** Γ values of the table: as given (they are round, e.g. 1.25), never NaN/Infinity. */
 export function formatGammaValue(gamma: number): string {
-  return plainNumber(gamma);
+  return formatAsTyped(gamma);
 }
 
 /** A number typed by a person (α, Γ, a level) as they would write it: 0.05, 1.25, 95. */
-export function plainNumber(x: number | null | undefined): string {
+export function formatAsTyped(x: number | null | undefined): string {
   if (x === null || x === undefined || !Number.isFinite(x)) return 'not available';
   const abs = Math.abs(x);
   if (abs !== 0 && (abs >= 1e9 || abs < 1e-6)) return formatNumber(x, { significant: 6 });
@@ -81,7 +81,7 @@ export function pairsReading(result: PairsResult, study?: Partial<StudyLabels>):
   const testName = result.test === 'signrank' ? 'Wilcoxon signed-rank test' : 'sign test';
   const direction =
     result.alternative === 'greater' ? `${treatmentWords(study)} raises ${outcomeLabel(study)}` : `${treatmentWords(study)} lowers ${outcomeLabel(study)}`;
-  const alpha = plainNumber(result.alpha);
+  const alpha = formatAsTyped(result.alpha);
   if (result.sensitivityStatus === 'not-significant') {
     sentences.push(
       `Even with no hidden bias, the ${testName} does not support the finding that ${direction} at α = ${alpha} (${pPhrase(result.pValue)} across ${result.nonZero} informative pairs), so there is no significant finding for hidden bias to explain away.`,
@@ -108,7 +108,7 @@ export function pairsReading(result: PairsResult, study?: Partial<StudyLabels>):
   const last = result.estimates.length > 0 ? result.estimates[result.estimates.length - 1] : null;
   if (result.estimate !== null && last) {
     sentences.push(
-      `With no hidden bias the Hodges–Lehmann estimate of the effect is ${formatEffect(result.estimate, study)}; allowing bias up to Γ = ${formatGammaValue(last.gamma)}, the estimate could lie anywhere from ${formatEffect(last.estimateLow, study)} to ${formatEffect(last.estimateHigh, study)}, with a ${plainNumber(result.intervalLevel * 100)}% sensitivity interval from ${formatEffect(last.intervalLow, study)} to ${formatEffect(last.intervalHigh, study)}.`,
+      `With no hidden bias the Hodges–Lehmann estimate of the effect is ${formatEffect(result.estimate, study)}; allowing bias up to Γ = ${formatGammaValue(last.gamma)}, the estimate could lie anywhere from ${formatEffect(last.estimateLow, study)} to ${formatEffect(last.estimateHigh, study)}, with a ${formatAsTyped(result.intervalLevel * 100)}% sensitivity interval from ${formatEffect(last.intervalLow, study)} to ${formatEffect(last.intervalHigh, study)}.`,
     );
   }
   return sentences;
@@ -164,7 +164,7 @@ export function alignTable(header: string[], rows: string[][]): string {
 export function pairsTable(result: PairsResult, study?: Partial<StudyLabels>): { header: string[]; rows: string[][] } {
   const withEstimates = result.estimates.length === result.rows.length && result.estimates.length > 0;
   const header = ['Γ', 'p upper bound', 'p lower bound'];
-  if (withEstimates) header.push('estimate low', 'estimate high', `${plainNumber(result.intervalLevel * 100)}% interval`);
+  if (withEstimates) header.push('estimate low', 'estimate high', `${formatAsTyped(result.intervalLevel * 100)}% interval`);
   const rows = result.rows.map((row, i) => {
     const cells = [formatGammaValue(row.gamma), formatPValue(row.pUpper), formatPValue(row.pLower)];
     if (withEstimates) {
@@ -183,11 +183,11 @@ export function pairsReportText(result: PairsResult, study?: Partial<StudyLabels
   const used = `${result.n} pairs used` + (result.droppedRows > 0 ? ` (${result.droppedRows} rows with a missing value left out)` : '');
   const informative =
     result.test === 'signrank'
-      ? `${result.nonZero} non-zero differences, ${result.zeroDifferences} zero; T = ${plainNumber(result.statistic)}`
+      ? `${result.nonZero} non-zero differences, ${result.zeroDifferences} zero; T = ${formatAsTyped(result.statistic)}`
       : `${result.nonZero} informative (discordant or non-tied) pairs, ${result.favourable} favouring the alternative`;
   lines.push(`${used}; ${informative}.`);
   lines.push(
-    `Alternative: treatment ${result.alternative === 'greater' ? 'raises' : 'lowers'} the outcome (one-sided), α = ${plainNumber(result.alpha)}. Tails: ${result.tailMethodReason}${result.tailMethod === 'normal' && result.continuityCorrection ? ', with a ½ continuity correction' : ''}.`,
+    `Alternative: treatment ${result.alternative === 'greater' ? 'raises' : 'lowers'} the outcome (one-sided), α = ${formatAsTyped(result.alpha)}. Tails: ${result.tailMethodReason}${result.tailMethod === 'normal' && result.continuityCorrection ? ', with a ½ continuity correction' : ''}.`,
   );
   lines.push('');
   const tipping =

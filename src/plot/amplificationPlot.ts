@@ -1,6 +1,6 @@
 import { amplificationDelta, amplificationSymmetricPoint } from '../core/amplification';
 import type { PairsResult } from '../core/pairsAnalysis';
-import { formatGamma, plainNumber } from '../io/pairsText';
+import { formatGamma, formatAsTyped } from '../io/pairsText';
 import { formatNumber } from '../io/formatNumber';
 import { createFrame } from './frame';
 import { palette } from './palette';
@@ -64,7 +64,7 @@ export function amplificationPlot(result: PairsResult, options: PairsPlotOptions
       shape: 'circle',
       color: palette.interval,
       size: 5,
-      label: `Λ = ${plainNumber(pair.lambda)}, Δ = ${plainNumber(Number(pair.delta.toPrecision(2)))}`,
+      label: `Λ = ${formatAsTyped(pair.lambda)}, Δ = ${formatAsTyped(Number(pair.delta.toPrecision(2)))}`,
       labelSide: frame.x(pair.lambda) > frame.inner.left + 0.6 * (frame.inner.right - frame.inner.left) ? 'above' : 'right',
     });
   }
@@ -72,7 +72,7 @@ export function amplificationPlot(result: PairsResult, options: PairsPlotOptions
   const tableLambdas = [1.25, 1.5, 2, 3, 4, 5, 6, 8, 10, 15, 20, 30, 50, 100, 200, 500, 1000].map((m) => m * Math.max(1, Math.pow(10, Math.floor(Math.log10(gamma)) - 1)));
   const rows = tableLambdas
     .filter((l) => l > gamma * 1.05 && l <= top)
-    .map((l) => [plainNumber(l), formatNumber(amplificationDelta(gamma, l), { significant: 3 })]);
+    .map((l) => [formatAsTyped(l), formatNumber(amplificationDelta(gamma, l), { significant: 3 })]);
   return Object.freeze({
     id: 'pairs-amplification',
     title: `Ways a hidden covariate could produce bias Γ = ${formatGamma(gamma)}`,

@@ -1,5 +1,5 @@
 import type { PairsResult } from '../core/pairsAnalysis';
-import { formatEffect, formatGammaValue, plainNumber } from '../io/pairsText';
+import { formatEffect, formatGammaValue, formatAsTyped } from '../io/pairsText';
 import { outcomeLabel } from '../io/studyLabels';
 import { createFrame } from './frame';
 import { palette } from './palette';
@@ -40,7 +40,7 @@ export function estimateRangePlot(result: PairsResult, options: PairsPlotOptions
     const bottom: [number, number][] = rows.map((e, i) => [frame.x(e.gamma), clamp(low(i))]).reverse() as [number, number][];
     return polygonPath([...top, ...bottom]);
   };
-  const level = `${plainNumber(result.intervalLevel * 100)}%`;
+  const level = `${formatAsTyped(result.intervalLevel * 100)}%`;
   if (rows.length > 1) {
     marks.push({
       kind: 'path',

@@ -1,6 +1,6 @@
 import type { PairsResult } from '../core/pairsAnalysis';
 import { formatPValue } from '../io/formatNumber';
-import { formatGamma, formatGammaValue, plainNumber } from '../io/pairsText';
+import { formatGamma, formatGammaValue, formatAsTyped } from '../io/pairsText';
 import type { StudyLabels } from '../io/studyLabels';
 import { createFrame } from './frame';
 import { palette } from './palette';
@@ -44,13 +44,13 @@ export function pValueByGammaPlot(result: PairsResult, options: PairsPlotOptions
     stroke: palette.threshold,
     strokeWidth: 1.5,
     dash: '4 4',
-    label: `α = ${plainNumber(result.alpha)}`,
+    label: `α = ${formatAsTyped(result.alpha)}`,
   });
   marks.push({
     kind: 'text',
     x: frame.inner.left + 6,
     y: frame.y(result.alpha) - 6,
-    text: `α = ${plainNumber(result.alpha)}`,
+    text: `α = ${formatAsTyped(result.alpha)}`,
     anchor: 'start',
     color: palette.threshold,
     size: 12,
@@ -106,9 +106,9 @@ export function pValueByGammaPlot(result: PairsResult, options: PairsPlotOptions
   const testName = result.test === 'signrank' ? 'signed-rank' : 'sign';
   const tipping =
     result.sensitivityStatus === 'found'
-      ? `The upper bound reaches α = ${plainNumber(result.alpha)} at Γ = ${formatGamma(result.sensitivityValue)}.`
+      ? `The upper bound reaches α = ${formatAsTyped(result.alpha)} at Γ = ${formatGamma(result.sensitivityValue)}.`
       : result.sensitivityStatus === 'not-significant'
-        ? `The p-value is above α = ${plainNumber(result.alpha)} already at Γ = 1.`
+        ? `The p-value is above α = ${formatAsTyped(result.alpha)} already at Γ = 1.`
         : `The upper bound stays below α over the whole searched range.`;
   return Object.freeze({
     id: 'pairs-p-value-by-gamma',
