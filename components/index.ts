@@ -1,4 +1,8 @@
-// One module that registers every Lurk element on a page: <script type="module" src=".../lurk.js">.
+// One module that registers every Lurk element on a page: <script type="module" src=".../lurk-components.js">.
 export { LurkPlot } from './lurk-plot';
 export { LurkStudy } from './lurk-study';
+export { LurkEValue } from './lurk-evalue';
+export { LurkStatement } from './lurk-statement';
+export { LurkBottomLine } from './lurk-bottom-line';
+export { LurkBatch } from './lurk-batch';
 export { LurkApp } from './lurk-app';

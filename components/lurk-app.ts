@@ -1,11 +1,27 @@
 import { LitElement, css, html, nothing, type TemplateResult } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import { emptyStudy, type StudyLabels } from '../src/io/studyLabels';
+import { createAppraisal, readAppraisal, type Appraisal, type CalculatorEntry, type CalculatorName, type CalculatorSummary } from '../src/io/appraisal';
+import { encodeShareFragment } from '../src/io/shareLink';
+import { downloadBlob } from '../src/io/figureExport.browser';
 import { baseStyles } from './styles/base';
 import './lurk-study';
+import './lurk-statement';
+import './lurk-bottom-line';
+import './lurk-batch';
 
 /** The views of the workspace, in tab order. */
-export type WorkspaceView = 'evalue' | 'pairs' | 'regression';
+export type WorkspaceView = 'evalue' | 'pairs' | 'regression' | 'statement' | 'bottom-line' | 'batch';
+
+/** The calculators among the views, keyed as in an appraisal file. */
+const CALCULATOR_OF: Partial<Record<WorkspaceView, CalculatorName>> = { evalue: 'evalue', pairs: 'pairs', regression: 'regression' };
+
+/** What a calculator element offers the workspace besides its events. */
+interface CalculatorElement extends HTMLElement {
+  /** Headline numbers of the current result (null while the inputs give none). */
+  readonly summary?: CalculatorSummary | null;
+  updateComplete?: Promise<boolean>;
+}
 
 interface ViewInfo {
   readonly id: WorkspaceView;
@@ -33,6 +49,24 @@ const VIEWS: readonly ViewInfo[] = [
     heading: 'Omitted-variable bias in a linear regression',
     intro: 'How much of the residual variance of treatment and outcome would a hidden confounder have to explain to change the conclusion?',
   },
+  {
+    id: 'statement',
+    tab: 'Robustness statement',
+    heading: 'Robustness statement for a paper',
+    intro: 'A paragraph per calculator used, with the numbers, the assumptions each method makes, and full references.',
+  },
+  {
+    id: 'bottom-line',
+    tab: 'Bottom line',
+    heading: 'The bottom line: how sure are we?',
+    intro: 'In plain words, for decision-makers.',
+  },
+  {
+    id: 'batch',
+    tab: 'Many findings',
+    heading: 'Many reported findings at once',
+    intro: 'For reviewers and evidence synthesis: E-values and robustness values for a table of reported estimates.',
+  },
 ];
 
 /** What the workspace keeps of each calculator: the raw inputs as typed (never lost) and the last result. */
@@ -46,7 +80,11 @@ export interface CalculatorState {
  *
  * @property study - the finding's labels, shared by every calculator.
  * @property view - the open tab.
+ * @property inputs - each calculator's inputs as typed, keyed by view.
+ * @property banner - a note above the calculators (e.g. that the study shown is fictional).
+ * @property notice - a message about saving, opening or sharing.
  * @fires lurk-view-change - {view} when the user opens another tab.
+ * @fires lurk-appraisal-change - {appraisal} after the user changed anything (the page keeps it for the next visit).
  */
 @customElement('lurk-app')
 export class LurkApp extends LitElement {
@@ -102,6 +140,38 @@ export class LurkApp extends LitElement {
       [role='tabpanel'] {
         padding-top: 0.5rem;
       }
+      .toolbar {
+        display: flex;
+        flex-wrap: wrap;
+        gap: 0.4rem;
+        align-items: center;
+        margin-bottom: 0.5rem;
+      }
+      .toolbar button,
+      .file-button {
+        padding: 0.3rem 0.7rem;
+        font-size: 0.9rem;
+        min-height: 2.1rem;
+      }
+      .file-button {
+        display: inline-flex;
+        align-items: center;
+        margin: 0;
+        font-weight: normal;
+        border: 1px solid var(--_accent);
+        border-radius: var(--_radius);
+        color: var(--_accent);
+        background: var(--_bg);
+        cursor: pointer;
+      }
+      #open-appraisal:focus-visible + .file-button,
+      .file-button:focus-within {
+        outline: 3px solid var(--_focus);
+      }
+      .notice {
+        font-size: 0.9rem;
+        color: var(--_muted);
+      }
       .demo-banner {
         background: var(--_warning-bg);
         border-radius: var(--_radius);
@@ -119,7 +189,50 @@ export class LurkApp extends LitElement {
   /** A note shown above the calculators, e.g. that the filled-in study is fictional. */
   @property() banner = '';
 
-  @state() private results: Partial<Record<WorkspaceView, unknown>> = {};
+  /** A message about loading, saving or sharing, shown in the toolbar. */
+  @property() notice = '';
+
+  @state() private summaries: Partial<Record<CalculatorName, CalculatorSummary | null>> = {};
+  @state() private batchText = '';
+  @state() private batchAlpha = '0.05';
+
+  /** The appraisal as it stands: study labels, inputs as typed, and the summaries of the results. */
+  get appraisal(): Appraisal {
+    const calculators: Partial<Record<CalculatorName, CalculatorEntry>> = {};
+    for (const name of ['evalue', 'pairs', 'regression'] as const) {
+      const inputs = this.inputs[name];
+      const summary = this.summaries[name] ?? null;
+      if (inputs || summary) calculators[name] = { inputs: (inputs ?? {}) as Record<string, unknown>, summary };
+    }
+    return createAppraisal(this.study, calculators);
+  }
+
+  /** Replaces the whole workspace with a saved appraisal (file, share link or local storage). */
+  load(appraisal: Appraisal): void {
+    this.study = appraisal.study;
+    const inputs: Partial<Record<WorkspaceView, Record<string, unknown>>> = {};
+    for (const [name, entry] of Object.entries(appraisal.calculators)) if (entry) inputs[name as WorkspaceView] = entry.inputs;
+    this.inputs = inputs;
+    this.summaries = {};
+    void this.collectSummaries();
+  }
+
+  protected override firstUpdated(): void {
+    void this.collectSummaries();
+  }
+
+  /** Reads each calculator's summary once it has rendered its inputs (set by the page, not typed). */
+  private async collectSummaries(): Promise<void> {
+    await this.updateComplete;
+    const next: Partial<Record<CalculatorName, CalculatorSummary | null>> = {};
+    for (const [view, name] of Object.entries(CALCULATOR_OF) as [WorkspaceView, CalculatorName][]) {
+      const element = this.renderRoot.querySelector<CalculatorElement>(`#panel-${view} [data-calculator]`);
+      if (!element) continue;
+      await element.updateComplete;
+      next[name] = element.summary ?? null;
+    }
+    this.summaries = next;
+  }
 
   override render() {
     return html`
@@ -128,6 +241,14 @@ export class LurkApp extends LitElement {
         <p>How strong would a hidden confounder have to be to overturn this finding?</p>
       </header>
       <p class="privacy">Everything is computed in this browser; nothing you type or load is sent anywhere.</p>
+      <div class="toolbar" role="toolbar" aria-label="Appraisal file">
+        <button class="secondary" type="button" @click=${this.save}>Save appraisal</button>
+        <label class="file-button secondary" for="open-appraisal">Open appraisal…</label>
+        <input id="open-appraisal" class="visually-hidden" type="file" accept=".json,application/json" @change=${this.openFile} />
+        <button class="secondary" type="button" @click=${this.share}>Copy share link</button>
+        <button class="secondary" type="button" @click=${this.clear}>Start a new appraisal</button>
+        <span class="notice" role="status" aria-live="polite">${this.notice}</span>
+      </div>
       ${this.banner ? html`<div class="demo-banner" role="note">${this.banner}</div>` : nothing}
       <lurk-study .study=${this.study} @lurk-study-change=${this.onStudy}></lurk-study>
       <div role="tablist" aria-label="Calculators" @keydown=${this.onTabKey}>
@@ -156,26 +277,99 @@ export class LurkApp extends LitElement {
 
   private calculator(view: WorkspaceView): TemplateResult {
     const inputs = this.inputs[view] ?? null;
-    const record = (e: CustomEvent<{ inputs?: Record<string, unknown>; result?: unknown }>) => this.onCalculatorEvent(view, e);
+    const record = (e: CustomEvent<{ inputs?: Record<string, unknown> }>) => this.onCalculatorEvent(view, e);
     switch (view) {
       case 'evalue':
-        return html`<lurk-evalue .study=${this.study} .inputs=${inputs} @lurk-inputs-change=${record} @lurk-result=${record}></lurk-evalue>`;
+        return html`<lurk-evalue data-calculator .study=${this.study} .inputs=${inputs} @lurk-inputs-change=${record} @lurk-result=${record}></lurk-evalue>`;
       case 'pairs':
-        return html`<lurk-pairs .study=${this.study} .inputs=${inputs} @lurk-inputs-change=${record} @lurk-result=${record}></lurk-pairs>`;
+        return html`<lurk-pairs data-calculator .study=${this.study} .inputs=${inputs} @lurk-inputs-change=${record} @lurk-result=${record}></lurk-pairs>`;
       case 'regression':
-        return html`<lurk-ovb .study=${this.study} .inputs=${inputs} @lurk-inputs-change=${record} @lurk-result=${record}></lurk-ovb>`;
+        return html`<lurk-ovb data-calculator .study=${this.study} .inputs=${inputs} @lurk-inputs-change=${record} @lurk-result=${record}></lurk-ovb>`;
+      case 'statement':
+        return html`<lurk-statement .appraisal=${this.view === 'statement' ? this.appraisal : null}></lurk-statement>`;
+      case 'bottom-line':
+        return html`<lurk-bottom-line .appraisal=${this.view === 'bottom-line' ? this.appraisal : null}></lurk-bottom-line>`;
+      case 'batch':
+        return html`<lurk-batch
+          .text=${this.batchText}
+          .alpha=${this.batchAlpha}
+          @lurk-batch-change=${(e: CustomEvent<{ text: string; alpha: string }>) => {
+            this.batchText = e.detail.text;
+            this.batchAlpha = e.detail.alpha;
+          }}
+        ></lurk-batch>`;
     }
   }
 
-  private onCalculatorEvent(view: WorkspaceView, event: CustomEvent<{ inputs?: Record<string, unknown>; result?: unknown }>): void {
+  private onCalculatorEvent(view: WorkspaceView, event: CustomEvent<{ inputs?: Record<string, unknown> }>): void {
+    const name = CALCULATOR_OF[view];
+    if (!name) return;
     if (event.type === 'lurk-inputs-change' && event.detail.inputs) {
       this.inputs = { ...this.inputs, [view]: event.detail.inputs };
     }
-    if (event.type === 'lurk-result') this.results = { ...this.results, [view]: event.detail.result ?? null };
+    const element = event.currentTarget as CalculatorElement;
+    this.summaries = { ...this.summaries, [name]: element.summary ?? null };
+    this.changed();
+  }
+
+  /** Tells the page the appraisal changed (it saves it for the next visit). */
+  private changed(): void {
+    this.dispatchEvent(new CustomEvent('lurk-appraisal-change', { detail: { appraisal: this.appraisal }, bubbles: true, composed: true }));
+  }
+
+  private save(): void {
+    const text = JSON.stringify(this.appraisal, null, 2) + '\n';
+    const name = (this.study.finding.trim() || 'appraisal').replace(/[^\w-]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 60).toLowerCase();
+    downloadBlob(new Blob([text], { type: 'application/json' }), `lurk-${name || 'appraisal'}.json`);
+    this.notice = 'Saved the appraisal as a JSON file (inputs and results; raw data files are not included).';
+  }
+
+  private async openFile(event: Event): Promise<void> {
+    const input = event.target as HTMLInputElement;
+    const file = input.files?.[0];
+    input.value = '';
+    if (!file) return;
+    let json: unknown;
+    try {
+      json = JSON.parse(await file.text());
+    } catch {
+      this.notice = `"${file.name}" is not a JSON file; your current work is kept.`;
+      return;
+    }
+    const read = readAppraisal(json);
+    if (read.appraisal === null) {
+      const p = read.problems[0];
+      this.notice = `"${file.name}" cannot be opened: ${p.field} ${p.message}. Your current work is kept.`;
+      return;
+    }
+    this.banner = '';
+    this.load(read.appraisal);
+    this.notice = `Opened "${file.name}".`;
+    this.changed();
+  }
+
+  private async share(): Promise<void> {
+    const url = `${location.origin}${location.pathname}${encodeShareFragment(this.appraisal)}`;
+    history.replaceState(null, '', url);
+    try {
+      await navigator.clipboard.writeText(url);
+      this.notice = 'Share link copied. It carries your inputs, never raw data rows; anyone with it sees the same appraisal.';
+    } catch {
+      this.notice = 'Share link placed in the address bar (copying is not allowed here). It carries your inputs, never raw data rows.';
+    }
+  }
+
+  private clear(): void {
+    if (!confirm('Start a new, empty appraisal? The current one is not kept unless you saved it.')) return;
+    this.banner = '';
+    this.load(createAppraisal(emptyStudy, {}));
+    this.notice = 'Started a new appraisal.';
+    this.changed();
   }
 
   private onStudy(event: CustomEvent<{ study: StudyLabels }>): void {
     this.study = event.detail.study;
+    this.changed();
   }
 
   private open(view: WorkspaceView): void {
@@ -205,5 +399,6 @@ declare global {
   }
   interface GlobalEventHandlersEventMap {
     'lurk-view-change': CustomEvent<{ view: WorkspaceView }>;
+    'lurk-appraisal-change': CustomEvent<{ appraisal: Appraisal }>;
   }
 }

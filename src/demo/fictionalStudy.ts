@@ -22,7 +22,20 @@ export function fictionalStudy(): DemoAppraisal {
       source: 'Invented for this demo; not a real study.',
     }),
     inputs: {
-      evalue: {},
+      // A reported finding of the fictional study: cyclists had a lower 5-year risk of high blood pressure.
+      evalue: {
+        source: 'reported',
+        measure: 'rr',
+        estimate: '0.72',
+        intervalBy: 'limits',
+        lower: '0.61',
+        upper: '0.85',
+        level: '95',
+        confounders: [
+          { name: 'leisure-time exercise', rrExposure: '1.8', rrOutcome: '1.5' },
+          { name: 'smoking', rrExposure: '1.3', rrOutcome: '1.6' },
+        ],
+      },
       pairs: {},
       regression: {},
     },

@@ -91,7 +91,7 @@ function makeScale(axis: AxisOptions, range: [number, number]): Scale {
 function axisSpec(axis: AxisOptions, scale: Scale, range: [number, number]): AxisSpec {
   const format = axis.tickFormat ?? defaultTickLabel;
   let values = scale.ticks(axis.tickCount ?? 6);
-  if (axis.scale === 'log' && values.length > 10) values = thinLogTicks(values);
+  if (axis.scale === 'log' && values.length > 7) values = thinLogTicks(values);
   const ticks: Tick[] = values.filter(Number.isFinite).map((value) => ({ value, position: scale(value), label: format(value) }));
   return {
     label: axis.label,

@@ -1,5 +1,5 @@
 import { appraiseBatchCsv, BATCH_COLUMNS, BATCH_MEASURES, type BatchResult } from '../../io/batchFindings';
-import { toSafeCsv } from '../../io/csvExport';
+import { batchCsvText } from '../../io/batchCsv';
 import { formatNumber, formatPercent } from '../../io/formatNumber';
 import type { CliIo } from '../cliIo';
 import type { LurkCommand } from '../main';
@@ -52,7 +52,7 @@ export const command: LurkCommand = {
       }
       const result = appraiseBatchCsv(text, alpha);
       if (values.json) io.out(JSON.stringify(result, null, 2) + '\n');
-      else if (values.csv) io.out(batchCsv(result));
+      else if (values.csv) io.out(batchCsvText(result));
       else io.out(batchReport(result));
       return 0;
     } catch (error) {
@@ -60,15 +60,6 @@ export const command: LurkCommand = {
     }
   },
 };
-
-/** The results as a spreadsheet-safe CSV. */
-export function batchCsv(result: BatchResult): string {
-  const columns = ['row', 'label', 'measure', 'estimate', 'lower', 'upper', 'se', 'df', 'e_value_estimate', 'e_value_interval', 't', 'partial_r2', 'rv', 'rv_alpha', 'problem'];
-  return toSafeCsv(
-    columns,
-    result.rows.map((r) => [r.row, r.label, r.measure, r.estimate, r.lower, r.upper, r.se, r.df, r.eValueEstimate, r.eValueInterval, r.t, r.partialR2, r.rv, r.rvAlpha, r.problem || null]),
-  );
-}
 
 /** A readable table. */
 export function batchReport(result: BatchResult): string {

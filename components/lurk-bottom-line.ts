@@ -1,0 +1,78 @@
+import { LitElement, css, html, nothing } from 'lit';
+import { customElement, property } from 'lit/decorators.js';
+import type { Appraisal } from '../src/io/appraisal';
+import { buildBottomLine, type BottomLine } from '../src/io/bottomLine';
+import { baseStyles } from './styles/base';
+
+/**
+ * @summary The bottom line for decision-makers: in plain words, how strong a hidden confounder would have to be,
+ * compared with measured factors, what would and would not change the conclusion, and the caution.
+ *
+ * @property appraisal - the current appraisal (study labels and calculator summaries).
+ */
+@customElement('lurk-bottom-line')
+export class LurkBottomLine extends LitElement {
+  static override styles = [
+    baseStyles,
+    css`
+      section {
+        max-width: 52rem;
+      }
+      .finding {
+        font-size: 1.1rem;
+        font-weight: 600;
+      }
+      li {
+        margin-bottom: 0.4rem;
+      }
+      .caution {
+        font-size: 1rem;
+      }
+    `,
+  ];
+
+  @property({ attribute: false }) appraisal: Appraisal | null = null;
+
+  private line: BottomLine | null = null;
+
+  protected override willUpdate(changed: Map<string, unknown>): void {
+    if (changed.has('appraisal')) this.line = this.appraisal ? buildBottomLine(this.appraisal) : null;
+  }
+
+  override render() {
+    const line = this.line;
+    if (!line) return nothing;
+    const finding = this.appraisal?.study.finding.trim();
+    return html`
+      <section aria-label="Bottom line">
+        ${finding ? html`<p class="finding">${finding}</p>` : nothing}
+        ${line.empty
+          ? html`<p>No calculator has a result yet. Fill in at least one of the calculators.</p>`
+          : html`
+              <h3>How strong would a hidden confounder have to be?</h3>
+              <ul>
+                ${line.howStrong.map((s) => html`<li>${s}</li>`)}
+              </ul>
+              ${this.list('Compared with the measured factors', line.comparedWithMeasured)}
+              ${this.list('What would change the conclusion', line.wouldChange)}
+              ${this.list('What would not change it', line.wouldNotChange)}
+            `}
+        <p class="caution" role="note">${line.caution}</p>
+      </section>
+    `;
+  }
+
+  private list(title: string, items: readonly string[]) {
+    if (items.length === 0) return nothing;
+    return html`<h3>${title}</h3>
+      <ul>
+        ${items.map((s) => html`<li>${s}</li>`)}
+      </ul>`;
+  }
+}
+
+declare global {
+  interface HTMLElementTagNameMap {
+    'lurk-bottom-line': LurkBottomLine;
+  }
+}
