@@ -16,5 +16,13 @@ import jStat from 'jstat';
  */
 export function confidenceZ(level: number): number {
   if (!(level > 0 && level < 1)) return NaN;
-  return -jStat.normal.inv((1 - level) / 2, 0, 1);
+  // Analyses of many estimates ask for the same level again and again: keep the last answer.
+  if (level !== lastLevel) {
+    lastLevel = level;
+    lastZ = -jStat.normal.inv((1 - level) / 2, 0, 1);
+  }
+  return lastZ;
 }
+
+let lastLevel = NaN;
+let lastZ = NaN;
