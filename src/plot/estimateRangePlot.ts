@@ -21,7 +21,11 @@ export function estimateRangePlot(result: PairsResult, options: PairsPlotOptions
   const finite = rows.flatMap((e) => [e.estimateLow, e.estimateHigh, e.intervalLow, e.intervalHigh]).filter(Number.isFinite);
   let lo = Math.min(0, ...finite);
   let hi = Math.max(0, ...finite);
-  if (hi === lo) hi = lo + 1;
+  // A degenerate span (all estimates equal, or subnormal magnitudes) would give the scale no room.
+  if (!(hi - lo > 1e-290)) {
+    lo -= 1;
+    hi += 1;
+  }
   const pad = (hi - lo) * 0.08;
   lo -= pad;
   hi += pad;
