@@ -145,6 +145,29 @@ describe('<lurk-evalue>', () => {
     expect(text('.warning')).toMatch(/1 row was left out/);
   });
 
+  it('an empty CSV file is refused with a message beside the file field', async () => {
+    await userEvent.click(page.getByLabelText('A CSV file, one row per person'));
+    await userEvent.upload(page.getByLabelText('CSV file', { exact: true }), new File([''], 'empty.csv', { type: 'text/csv' }));
+    await settle();
+    expect(text('#file-error')).toBe('empty.csv: the file is empty');
+    expect(shadow().querySelector('#file')?.getAttribute('aria-invalid')).toBe('true');
+    expect(shadow().querySelector('#evalue-estimate')).toBeNull();
+  });
+
+  it('can be filled in with the keyboard alone', async () => {
+    (shadow().querySelector('#estimate') as HTMLInputElement).focus();
+    await userEvent.keyboard('2');
+    await userEvent.tab();
+    await userEvent.tab(); // past the two interval radios, which form one tab stop
+    await userEvent.keyboard('1.5');
+    await userEvent.tab();
+    await userEvent.keyboard('2.7');
+    await settle();
+    expect(text('#evalue-estimate')).toBe((2 + Math.SQRT2).toFixed(2));
+    // hand computation: E(1.5) = 1.5 + √0.75
+    expect(text('#evalue-interval')).toBe((1.5 + Math.sqrt(0.75)).toFixed(2));
+  });
+
   it('a programmatic inputs change fires no event and restores the typed text', async () => {
     element.inputs = { estimate: '2', lower: '1,5', upper: 'oops' };
     await settle();
