@@ -9,3 +9,4 @@ export * from './jointStrengthPlot';
 export * from './pValueByGammaPlot';
 export * from './estimateRangePlot';
 export * from './amplificationPlot';
+export * from './ovbExtremeScenarioPlot';
