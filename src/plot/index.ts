@@ -10,3 +10,4 @@ export * from './pValueByGammaPlot';
 export * from './estimateRangePlot';
 export * from './amplificationPlot';
 export * from './ovbExtremeScenarioPlot';
+export * from './ovbContourPlot';
