@@ -5,6 +5,7 @@ import type { InputProblem } from './inputProblem';
 import { inputProblem, throwIfProblems } from './inputProblem';
 import {
   EFFECT_MEASURES,
+  EFFECT_MEASURE_NAMES,
   OUTCOME_PREVALENCES,
   SMD_LOG_RISK_RATIO_SLOPE,
   isRatioMeasure,
@@ -107,13 +108,7 @@ const CONVERSION_REFERENCES: Partial<Record<RiskRatioConversion, string>> = {
     'VanderWeele TJ (2020). Optimal approximate conversions of odds ratios and hazard ratios to risk ratios. Biometrics 76(3):746–752.',
 };
 
-const MEASURE_NAMES: Record<EffectMeasure, string> = {
-  rr: 'risk ratio',
-  or: 'odds ratio',
-  hr: 'hazard ratio',
-  smd: 'standardized mean difference',
-  md: 'mean difference',
-};
+const MEASURE_NAMES = EFFECT_MEASURE_NAMES;
 
 const isGiven = (value: unknown): boolean => value !== undefined && value !== null;
 

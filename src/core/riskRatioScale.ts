@@ -6,6 +6,15 @@ export type EffectMeasure = 'rr' | 'or' | 'hr' | 'smd' | 'md';
 /** All effect measures, in the order they are offered. */
 export const EFFECT_MEASURES: readonly EffectMeasure[] = Object.freeze(['rr', 'or', 'hr', 'smd', 'md']);
 
+/** Each measure's name in prose (lower case). */
+export const EFFECT_MEASURE_NAMES: Readonly<Record<EffectMeasure, string>> = Object.freeze({
+  rr: 'risk ratio',
+  or: 'odds ratio',
+  hr: 'hazard ratio',
+  smd: 'standardized mean difference',
+  md: 'mean difference',
+});
+
 /** Whether the outcome is rare (under about 15% in every exposure group) or common. */
 export type OutcomePrevalence = 'rare' | 'common';
 

@@ -1,5 +1,6 @@
 import type { EValueResult } from '../core/eValueAnalysis';
 import type { ReferenceConfounderAssessment } from '../core/referenceConfounder';
+import { EFFECT_MEASURE_NAMES } from '../core/riskRatioScale';
 import type { EffectMeasure } from '../core/riskRatioScale';
 import { formatNumber, formatRatio } from './formatNumber';
 import { exposureLabel, outcomeLabel } from './studyLabels';
@@ -11,13 +12,8 @@ export const E_VALUE_CAUTION =
   'nothing about other biases such as selection or measurement error. Decisions about health or safety defer to ' +
   'domain experts, local guidance and licensed practice.';
 
-export const MEASURE_LABELS: Record<EffectMeasure, string> = {
-  rr: 'risk ratio',
-  or: 'odds ratio',
-  hr: 'hazard ratio',
-  smd: 'standardized mean difference',
-  md: 'mean difference',
-};
+/** Each measure's name in prose (the core's names). */
+export const MEASURE_LABELS = EFFECT_MEASURE_NAMES;
 
 /** A number with 3 significant digits and no trailing zeros after the point (4 rather than 4.00). */
 export function formatPlain(value: number | null | undefined): string {
