@@ -8,7 +8,7 @@ import { createFrame } from './frame';
 import type { Frame } from './frame';
 import { palette } from './palette';
 import { polygonPath, polylinePath } from './pathData';
-import type { LegendItem, PlotMark, PlotSpec } from './plotSpec';
+import type { LegendItem, PlotArea, PlotMark, PlotSpec, PointMark } from './plotSpec';
 
 export interface JointStrengthPlotOptions {
   readonly width?: number;
@@ -116,8 +116,9 @@ export function jointStrengthPlot(result: EValueResult, options: JointStrengthPl
     legend.push({ label: 'interval limit', color: palette.interval, swatch: 'line', dash: '7 4' });
   }
 
+  const points: PointMark[] = [];
   if (Number.isFinite(eEstimate) && eEstimate > 1 && eEstimate <= top) {
-    marks.push({
+    points.push({
       kind: 'point',
       x: frame.x(eEstimate),
       y: frame.y(eEstimate),
@@ -129,7 +130,7 @@ export function jointStrengthPlot(result: EValueResult, options: JointStrengthPl
     });
   }
   if (eInterval !== null && Number.isFinite(eInterval) && eInterval > 1 && eInterval <= top) {
-    marks.push({
+    points.push({
       kind: 'point',
       x: frame.x(eInterval),
       y: frame.y(eInterval),
@@ -142,7 +143,7 @@ export function jointStrengthPlot(result: EValueResult, options: JointStrengthPl
   }
   for (const c of confounders) {
     if (!(Number.isFinite(c.strengthExposure) && Number.isFinite(c.strengthOutcome))) continue;
-    marks.push({
+    points.push({
       kind: 'point',
       x: frame.x(c.strengthExposure),
       y: frame.y(c.strengthOutcome),
@@ -153,6 +154,7 @@ export function jointStrengthPlot(result: EValueResult, options: JointStrengthPl
       labelSide: 'above',
     });
   }
+  marks.push(...placeLabels(points, inner));
   if (confounders.length > 0) legend.push({ label: 'reference confounder', color: palette.reference, swatch: 'square' });
 
   return Object.freeze({
@@ -168,6 +170,57 @@ export function jointStrengthPlot(result: EValueResult, options: JointStrengthPl
     legend: Object.freeze(legend),
     table: dataTable(result, confounders, top),
   });
+}
+
+type Box = { left: number; right: number; top: number; bottom: number };
+type Side = NonNullable<PointMark['labelSide']>;
+
+/**
+ * Chooses each point's label side so that labels overlap neither each other nor other points and stay inside
+ * the plotting area, trying the preferred side first; when no side is free, the preferred one is kept.
+ * Text is measured roughly (6.4 px a character at 11 px), as the renderer's legend does.
+ */
+function placeLabels(points: readonly PointMark[], inner: PlotArea): PointMark[] {
+  const markers: Box[] = points.map((p) => {
+    const r = (p.size ?? 5) + 1;
+    return { left: p.x - r, right: p.x + r, top: p.y - r, bottom: p.y + r };
+  });
+  const placed: Box[] = [];
+  return points.map((point, i) => {
+    if (!point.label) return point;
+    const preferred = point.labelSide ?? 'right';
+    const sides: Side[] = [preferred, ...(['right', 'left', 'above', 'below'] as const).filter((s) => s !== preferred)];
+    const fits = (box: Box) =>
+      box.left >= inner.left &&
+      box.right <= inner.right &&
+      box.top >= inner.top &&
+      box.bottom <= inner.bottom &&
+      !placed.some((other) => overlaps(box, other)) &&
+      !markers.some((other, j) => j !== i && overlaps(box, other));
+    const side = sides.find((s) => fits(labelBox(point, s))) ?? preferred;
+    placed.push(labelBox(point, side));
+    return { ...point, labelSide: side };
+  });
+}
+
+/** Where the renderer puts a label on each side of its point (see svgString's pointLabel). */
+function labelBox(point: PointMark, side: Side): Box {
+  const width = (point.label ?? '').length * 6.4;
+  const gap = (point.size ?? 5) + 4;
+  switch (side) {
+    case 'right':
+      return { left: point.x + gap, right: point.x + gap + width, top: point.y - 7, bottom: point.y + 5 };
+    case 'left':
+      return { left: point.x - gap - width, right: point.x - gap, top: point.y - 7, bottom: point.y + 5 };
+    case 'above':
+      return { left: point.x - width / 2, right: point.x + width / 2, top: point.y - gap - 11, bottom: point.y - gap + 1 };
+    case 'below':
+      return { left: point.x - width / 2, right: point.x + width / 2, top: point.y + gap, bottom: point.y + gap + 12 };
+  }
+}
+
+function overlaps(a: Box, b: Box): boolean {
+  return a.left < b.right && b.left < a.right && a.top < b.bottom && b.top < a.bottom;
 }
 
 /** The top of both axes: room past the E-value and every reference point, on a round value. */

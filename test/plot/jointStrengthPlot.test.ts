@@ -80,3 +80,31 @@ describe('jointStrengthPlot', () => {
     expect(JSON.stringify(beyond.table)).not.toMatch(/NaN|Infinity/);
   });
 });
+
+describe('jointStrengthPlot: labels', () => {
+  it('moves a label that would cover another one', () => {
+    // The demo's protective estimate: the interval E-value (1.63) sits next to a reference point at (1.8, 1.5).
+    const result = analyseEValue({ measure: 'rr', estimate: 0.72, lower: 0.61, upper: 0.85 });
+    const confounders = [
+      assessReferenceConfounder(result, { name: 'leisure-time exercise', rrExposure: 1.8, rrOutcome: 1.5 }),
+      assessReferenceConfounder(result, { name: 'smoking', rrExposure: 1.3, rrOutcome: 1.6 }),
+    ];
+    const spec = jointStrengthPlot(result, { confounders });
+    const points = spec.marks.filter((m): m is PointMark => m.kind === 'point');
+    const boxes = points.map((p) => {
+      const width = (p.label ?? '').length * 6.4;
+      const gap = (p.size ?? 5) + 4;
+      const side = p.labelSide ?? 'right';
+      const left = side === 'right' ? p.x + gap : side === 'left' ? p.x - gap - width : p.x - width / 2;
+      const top = side === 'above' ? p.y - gap - 11 : side === 'below' ? p.y + gap : p.y - 7;
+      return { left, right: left + width, top, bottom: top + 12 };
+    });
+    for (let i = 0; i < boxes.length; i++) {
+      for (let j = i + 1; j < boxes.length; j++) {
+        const [a, b] = [boxes[i], boxes[j]];
+        const overlap = a.left < b.right && b.left < a.right && a.top < b.bottom && b.top < a.bottom;
+        expect(overlap, `${points[i].label} and ${points[j].label}`).toBe(false);
+      }
+    }
+  });
+});
