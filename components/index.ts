@@ -6,3 +6,4 @@ export { LurkStatement } from './lurk-statement';
 export { LurkBottomLine } from './lurk-bottom-line';
 export { LurkBatch } from './lurk-batch';
 export { LurkApp } from './lurk-app';
+export { LurkPairs } from './lurk-pairs';

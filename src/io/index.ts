@@ -16,3 +16,4 @@ export * from './pairsText';
 export * from './ovbText';
 export * from './eValueForm';
 export * from './decimalSpan';
+export * from './pairsForm';
