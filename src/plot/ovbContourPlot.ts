@@ -1,7 +1,7 @@
 import { contours } from 'd3-contour';
 import { scaleLinear } from 'd3-scale';
 import type { OvbResult } from '../core/ovbAnalysis';
-import { adjustForConfounder, type ConfounderStrength } from '../core/confounderAdjustment';
+import { adjustForConfounder, adjustedGrid, type ConfounderStrength } from '../core/confounderAdjustment';
 import { estimateBoundaryR2yz, fq, significanceInterval, significanceRegionStart } from '../core/flipBoundary';
 import { criticalF } from '../core/robustnessValue';
 import { formatNumber, formatPercent } from '../io/formatNumber';
@@ -24,7 +24,7 @@ export interface OvbContourOptions {
   readonly maxR2dz?: number;
   /** Upper end of the R²(Y~Z|D,X) axis, in (0, 1]; default as for `maxR2dz`. */
   readonly maxR2yz?: number;
-  /** Grid points per axis for the contour lines (default 61). The flip boundary does not use the grid. */
+  /** Grid points per axis for the contour lines (default 41). The flip boundary does not use the grid. */
   readonly gridSize?: number;
   /** A confounder strength to mark (e.g. the one the user chose). */
   readonly scenario?: ConfounderStrength | null;
@@ -90,7 +90,9 @@ export function ovbContourPlot(result: OvbResult, options: OvbContourOptions): P
 
   // Level lines from the grid.
   const levels = contourLevels(result, kind, value, maxX, maxY, flipLevel);
-  for (const line of levelLines(value, levels, maxX, maxY, options.gridSize ?? 61)) {
+  const gridValues = (bs: Float64Array, as: Float64Array) =>
+    adjustedGrid(reported, result.direction, bs, as, kind, result.threshold);
+  for (const line of levelLines(gridValues, levels, maxX, maxY, options.gridSize ?? 41)) {
     for (const ring of line.rings) {
       marks.push({ kind: 'path', d: polylinePath(ring.map(([b, a]) => [frame.x(b), frame.y(a)] as const)), stroke: palette.contour, strokeWidth: 1, label: `${kindLabel(kind)} ${formatLevel(line.level, kind)}` });
     }
@@ -312,21 +314,31 @@ interface LevelLine {
 }
 
 /** Level lines of `value` on a gridSize × gridSize grid over [0, maxX] × [0, maxY] (d3-contour). */
-function levelLines(value: (b: number, a: number) => number, levels: readonly number[], maxX: number, maxY: number, gridSize: number): LevelLine[] {
+function levelLines(
+  gridValues: (r2dz: Float64Array, r2yz: Float64Array) => Float64Array,
+  levels: readonly number[],
+  maxX: number,
+  maxY: number,
+  gridSize: number,
+): LevelLine[] {
   const n = Math.max(8, Math.round(gridSize));
-  const grid = new Float64Array(n * n);
-  for (let j = 0; j < n; j++) {
-    const a = (maxY * j) / (n - 1);
-    for (let i = 0; i < n; i++) {
-      const v = value((maxX * i) / (n - 1), a);
-      grid[j * n + i] = Number.isFinite(v) ? v : v > 0 ? 1e300 : -1e300;
-    }
+  if (levels.length === 0) return [];
+  const bs = new Float64Array(n);
+  const as = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    bs[i] = (maxX * i) / (n - 1);
+    as[i] = (maxY * i) / (n - 1);
+  }
+  const grid = gridValues(bs, as);
+  for (let k = 0; k < grid.length; k++) {
+    const v = grid[k];
+    if (!Number.isFinite(v)) grid[k] = v > 0 ? 1e300 : -1e300;
   }
   // d3-contour puts value i at the centre of cell [i, i + 1]; map back so grid point i is R² = i·step.
   const toData = (gx: number, gy: number): [number, number] => [((gx - 0.5) * maxX) / (n - 1), ((gy - 0.5) * maxY) / (n - 1)];
   const generator = contours().size([n, n]).thresholds([...levels]);
   const lines: LevelLine[] = [];
-  for (const polygon of generator(Array.from(grid))) {
+  for (const polygon of generator(grid as unknown as number[])) {
     const rings: [number, number][][] = [];
     let labelAt: [number, number] | null = null;
     let best = -Infinity;
