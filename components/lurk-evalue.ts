@@ -21,6 +21,8 @@ import {
   formatPlain,
 } from '../src/io/eValueText';
 import { emptyStudy } from '../src/io/studyLabels';
+import { eValueSummary, type EValueSummary } from '../src/io/calculatorSummaries';
+import type { ReferenceConfounderAssessment } from '../src/core/referenceConfounder';
 import type { StudyLabels } from '../src/io/studyLabels';
 import { guessYesValues } from '../src/io/twoByTwoFromCsv';
 import { jointStrengthPlot } from '../src/plot/jointStrengthPlot';
@@ -85,6 +87,13 @@ export class LurkEValue extends LitElement {
   private outcome: EValueFormOutcome = evaluateEValueForm(this.form, null);
   private spec: PlotSpec | null = null;
   private evaluatedFor: unknown = undefined;
+
+  /** Headline numbers of the current result, for the workspace's appraisal file, statement and bottom line. */
+  get summary(): EValueSummary | null {
+    const result = this.outcome.result;
+    if (!result) return null;
+    return eValueSummary(result, this.outcome.confounders.filter((c): c is ReferenceConfounderAssessment => c !== null));
+  }
 
   protected override willUpdate(changed: Map<string, unknown>): void {
     if (changed.has('inputs') && this.inputs !== this.form) {

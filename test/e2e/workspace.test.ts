@@ -1,0 +1,178 @@
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import type { Page } from 'playwright-core';
+import { artifactPath, openSession, type BrowserSession } from '../support/browserSession';
+
+const baseUrl = inject('baseUrl');
+const require = createRequire(import.meta.url);
+const axeSource = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
+
+/** The appraisal the page holds now, without the time stamp. */
+async function currentAppraisal(page: Page): Promise<Record<string, unknown>> {
+  return page.evaluate(() => {
+    const { savedAt: _ignored, ...rest } = (document.querySelector('lurk-app') as unknown as { appraisal: Record<string, unknown> }).appraisal;
+    return JSON.parse(JSON.stringify(rest));
+  });
+}
+
+async function openTab(page: Page, name: string): Promise<void> {
+  await page.getByRole('tab', { name }).click();
+}
+
+describe('the appraisal workspace in Chromium', () => {
+  let session: BrowserSession;
+
+  beforeAll(async () => {
+    session = await openSession({ width: 1280, height: 900 });
+    await session.page.goto(baseUrl);
+    await session.page.locator('lurk-evalue').waitFor();
+  });
+  afterAll(async () => {
+    await session?.close();
+  });
+
+  it('opens the fictional demo with the E-value calculator showing numbers', async () => {
+    const { page } = session;
+    await expect.poll(() => page.locator('#evalue-estimate').textContent()).toBe('2.12');
+    await expect.poll(() => page.locator('#evalue-interval').textContent()).toBe('1.63');
+    await page.screenshot({ path: artifactPath('workspace-1280.png'), fullPage: true });
+  });
+
+  it('writes a robustness statement with the E-value computed from the inputs, in three formats', async () => {
+    const { page } = session;
+    await openTab(page, 'Robustness statement');
+    const article = page.getByRole('article', { name: 'Robustness statement' });
+    await expect.poll(() => article.textContent()).toContain('E-value for the point estimate is 2.12');
+    await page.getByRole('radio', { name: 'LaTeX' }).check();
+    expect(await page.locator('#statement-text').inputValue()).toContain('\\subsection*{');
+    await page.screenshot({ path: artifactPath('statement-1280.png'), fullPage: true });
+  });
+
+  it('gives the bottom line in plain words with the caution', async () => {
+    const { page } = session;
+    await openTab(page, 'Bottom line');
+    const section = page.getByRole('region', { name: 'Bottom line' });
+    await expect.poll(() => section.textContent()).toContain('at least 2.12 times as likely');
+    expect(await section.textContent()).toContain('licensed practice');
+  });
+
+  it('saves the appraisal as JSON and opens it again exactly', async () => {
+    const { page } = session;
+    const before = await currentAppraisal(page);
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Save appraisal' }).click()]);
+    const path = artifactPath('saved-appraisal.json');
+    await download.saveAs(path);
+    const saved = JSON.parse(readFileSync(path, 'utf8'));
+    expect(saved.format).toBe('lurk-appraisal');
+    expect(saved.version).toBe(1);
+
+    // Change something, then open the saved file: everything comes back.
+    await page.getByLabel('Finding', { exact: true }).fill('Something else entirely');
+    expect((await currentAppraisal(page)).study).not.toEqual(before.study);
+    await page.locator('#open-appraisal').setInputFiles(path);
+    await expect.poll(() => currentAppraisal(page)).toEqual(before);
+  });
+
+  it('refuses a file that is not an appraisal and keeps the current work', async () => {
+    const { page } = session;
+    const before = await currentAppraisal(page);
+    await page.locator('#open-appraisal').setInputFiles({ name: 'other.json', mimeType: 'application/json', buffer: Buffer.from('{"format":"something else"}') });
+    await expect.poll(() => page.getByRole('status').filter({ hasText: 'cannot be opened' }).count()).toBeGreaterThan(0);
+    expect(await currentAppraisal(page)).toEqual(before);
+  });
+
+  it('makes a share link that restores the inputs exactly in a new page', async () => {
+    const { page, browser } = session;
+    const before = await currentAppraisal(page);
+    await page.getByRole('button', { name: 'Copy share link' }).click();
+    const link = page.url();
+    expect(link).toContain('#appraisal=1.');
+    const other = await browser.newPage();
+    await other.goto(link);
+    await other.locator('lurk-evalue').waitFor();
+    await expect.poll(() => currentAppraisal(other)).toEqual(before);
+    await other.close();
+  });
+
+  it('refuses a tampered share link with a message and keeps the work of this browser', async () => {
+    const { page, browser } = session;
+    await page.getByRole('button', { name: 'Copy share link' }).click();
+    const link = page.url();
+    const [head, payload, check] = link.split('.').length > 3 ? splitLink(link) : splitLink(link);
+    const tampered = `${head}.${payload.slice(0, 20)}${payload[20] === 'A' ? 'B' : 'A'}${payload.slice(21)}.${check}`;
+    const other = await browser.newPage();
+    await other.goto(tampered);
+    await other.locator('lurk-app').waitFor();
+    await expect.poll(() => other.getByRole('status').filter({ hasText: 'was changed after it was made' }).count()).toBeGreaterThan(0);
+    await other.close();
+  });
+
+  it('made no request beyond its own origin during the whole session', () => {
+    const origin = new URL(baseUrl).origin;
+    const outside = session.requests.filter((url) => !url.startsWith(origin) && !url.startsWith('data:') && !url.startsWith('blob:'));
+    expect(outside).toEqual([]);
+    expect(session.errors).toEqual([]);
+  });
+});
+
+/** Splits a share URL into (everything up to the version mark, payload, check digits). */
+function splitLink(link: string): [string, string, string] {
+  const at = link.indexOf('#appraisal=');
+  const [version, payload, check] = link.slice(at + '#appraisal='.length).split('.');
+  return [`${link.slice(0, at)}#appraisal=${version}`, payload, check];
+}
+
+describe('accessibility and layout', () => {
+  for (const width of [390, 1280]) {
+    it(`has no automated accessibility violations (axe-core) at ${width} px, and looks right`, async () => {
+      const session = await openSession({ width, height: 900 });
+      try {
+        // axe is injected as an inline script, which the page's own policy rightly forbids: bypass it for the audit only.
+        const context = await session.browser.newContext({ viewport: { width, height: 900 }, bypassCSP: true });
+        const page = await context.newPage();
+        await page.goto(baseUrl);
+        await page.locator('lurk-evalue').waitFor();
+        await expect.poll(() => page.locator('#evalue-estimate').textContent()).toBe('2.12');
+        await page.addScriptTag({ content: axeSource });
+        const views = ['Reported estimate', 'Matched pairs', 'Regression', 'Robustness statement', 'Bottom line', 'Many findings'];
+        for (const view of views) {
+          await page.getByRole('tab', { name: view }).click();
+          const violations = await page.evaluate(async () => {
+            const result = await (window as unknown as { axe: { run: (c: unknown) => Promise<{ violations: { id: string; nodes: { target: unknown }[] }[] }> } }).axe.run(document);
+            return result.violations.map((v) => `${v.id}: ${v.nodes.map((n) => JSON.stringify(n.target)).join(' ')}`);
+          });
+          expect(violations, view).toEqual([]);
+        }
+        await page.getByRole('tab', { name: 'Reported estimate' }).click();
+        await page.screenshot({ path: artifactPath(`layout-${width}.png`), fullPage: true });
+        const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+        expect(overflow).toBeLessThanOrEqual(0);
+      } finally {
+        await session.close();
+      }
+    });
+  }
+
+  it('reaches every tab by keyboard with a visible focus', async () => {
+    const session = await openSession({ width: 1280, height: 900 });
+    try {
+      const { page } = session;
+      await page.goto(baseUrl);
+      await page.locator('lurk-evalue').waitFor();
+      await page.getByRole('tab', { name: 'Reported estimate' }).focus();
+      await page.keyboard.press('ArrowRight');
+      await expect.poll(() => page.getByRole('tab', { name: 'Matched pairs' }).getAttribute('aria-selected')).toBe('true');
+      await page.keyboard.press('End');
+      await expect.poll(() => page.getByRole('tab', { name: 'Many findings' }).getAttribute('aria-selected')).toBe('true');
+      const outline = await page.evaluate(() => {
+        const app = document.querySelector('lurk-app')!;
+        const focused = app.shadowRoot!.activeElement as HTMLElement;
+        return getComputedStyle(focused).outlineStyle;
+      });
+      expect(outline).not.toBe('none');
+    } finally {
+      await session.close();
+    }
+  });
+});
