@@ -27,7 +27,6 @@ export class StreamingQr {
   private block: Float64Array;
   private buffered = 0;
   private rows = 0;
-  private work: Float64Array;
 
   /**
    * @param columnCount number of columns p ≥ 1 (the augmented design: intercept, predictors, responses)
@@ -40,7 +39,6 @@ export class StreamingQr {
     this.blockRows = blockRows;
     this.r = new Float64Array(columnCount * columnCount);
     this.block = new Float64Array(blockRows * columnCount);
-    this.work = new Float64Array(columnCount);
   }
 
   /** The number of columns p. */
@@ -56,10 +54,11 @@ export class StreamingQr {
   /** Adds one row of p values. */
   addRow(values: ArrayLike<number>): void {
     const p = this.columns;
-    const offset = this.buffered * p;
+    const m = this.blockRows;
     const block = this.block;
-    for (let k = 0; k < p; k++) block[offset + k] = values[k];
-    if (++this.buffered === this.blockRows) this.flush();
+    // The block is stored column by column, so the reflections run down long contiguous columns.
+    for (let k = 0, at = this.buffered; k < p; k++, at += m) block[at] = values[k];
+    if (++this.buffered === m) this.flush();
   }
 
   /** Adds `rowCount` rows stored row-major (p values per row) in `values`. */
@@ -92,7 +91,6 @@ export class StreamingQr {
     this.columns = q;
     this.r = r;
     this.block = new Float64Array(this.blockRows * q);
-    this.work = new Float64Array(q);
   }
 
   /** A copy of R (p×p, row-major, upper triangular, non-negative diagonal) after absorbing every row given. */
@@ -110,7 +108,7 @@ export class StreamingQr {
   private flush(): void {
     const m = this.buffered;
     if (m === 0) return;
-    absorbBlock(this.r, this.block, m, this.columns, this.work);
+    absorbBlock(this.r, this.block, m, this.blockRows, this.columns);
     this.rows += m;
     this.buffered = 0;
   }
@@ -118,58 +116,52 @@ export class StreamingQr {
 
 /**
  * Replaces R (p×p upper triangular, row-major) by the R factor of [R; B], where B holds m rows of p values
- * (row-major). B is overwritten. `work` has length ≥ p.
+ * stored column by column (B[i, k] = b[k·stride + i], stride ≥ m). B is overwritten.
  */
-export function absorbBlock(r: Float64Array, b: Float64Array, m: number, p: number, work: Float64Array): void {
+export function absorbBlock(r: Float64Array, b: Float64Array, m: number, stride: number, p: number): void {
   for (let j = 0; j < p; j++) {
+    const cj = j * stride;
     // The column below the diagonal: B[0..m-1, j].
     let sigma = 0;
-    for (let i = 0, at = j; i < m; i++, at += p) sigma += b[at] * b[at];
+    for (let i = 0; i < m; i++) sigma += b[cj + i] * b[cj + i];
     if (sigma === 0) continue;
     const alpha = r[j * p + j];
     let xnorm: number;
     if (sigma === Infinity || sigma < 1e-280 || !Number.isFinite(alpha) || Math.abs(alpha) > 1e140) {
-      xnorm = scaledNorm(b, m, p, j, alpha);
+      xnorm = scaledNorm(b, cj, m, alpha);
     } else {
       xnorm = Math.sqrt(alpha * alpha + sigma);
     }
     if (!(xnorm > 0) || !Number.isFinite(xnorm)) {
-      // NaN or infinite data: let it propagate rather than loop on nonsense.
+      // NaN or infinite data: let it propagate rather than compute with nonsense.
       if (Number.isNaN(xnorm) || xnorm === Infinity) r[j * p + j] = NaN;
       continue;
     }
     const beta = alpha >= 0 ? -xnorm : xnorm;
     const tau = (beta - alpha) / beta;
     const scale = 1 / (alpha - beta);
-    for (let i = 0, at = j; i < m; i++, at += p) b[at] *= scale;
-    // w[k] = R[j,k] + Σ_i v_i B[i,k] for k > j (v_0 = 1 on row j of R).
-    for (let k = j + 1; k < p; k++) work[k] = r[j * p + k];
-    for (let i = 0, row = 0; i < m; i++, row += p) {
-      const vi = b[row + j];
-      if (vi === 0) continue;
-      for (let k = j + 1; k < p; k++) work[k] += vi * b[row + k];
-    }
+    for (let i = 0; i < m; i++) b[cj + i] *= scale;
+    // For each later column k: w = R[j,k] + Σ_i v_i B[i,k] (v_0 = 1 on row j of R); then subtract τ·w·v.
     for (let k = j + 1; k < p; k++) {
-      work[k] *= tau;
-      r[j * p + k] -= work[k];
-    }
-    for (let i = 0, row = 0; i < m; i++, row += p) {
-      const vi = b[row + j];
-      if (vi === 0) continue;
-      for (let k = j + 1; k < p; k++) b[row + k] -= work[k] * vi;
+      const ck = k * stride;
+      let w = r[j * p + k];
+      for (let i = 0; i < m; i++) w += b[cj + i] * b[ck + i];
+      w *= tau;
+      r[j * p + k] -= w;
+      for (let i = 0; i < m; i++) b[ck + i] -= w * b[cj + i];
     }
     r[j * p + j] = beta;
   }
 }
 
-/** √(α² + Σ B[i,j]²) without overflow or underflow. */
-function scaledNorm(b: Float64Array, m: number, p: number, j: number, alpha: number): number {
+/** √(α² + Σ B[i,j]²) without overflow or underflow (column j starts at `base`). */
+function scaledNorm(b: Float64Array, base: number, m: number, alpha: number): number {
   let big = Math.abs(alpha);
-  for (let i = 0, at = j; i < m; i++, at += p) big = Math.max(big, Math.abs(b[at]));
+  for (let i = 0; i < m; i++) big = Math.max(big, Math.abs(b[base + i]));
   if (big === 0 || !Number.isFinite(big)) return big;
   let sum = (alpha / big) * (alpha / big);
-  for (let i = 0, at = j; i < m; i++, at += p) {
-    const x = b[at] / big;
+  for (let i = 0; i < m; i++) {
+    const x = b[base + i] / big;
     sum += x * x;
   }
   return big * Math.sqrt(sum);
@@ -182,8 +174,9 @@ function scaledNorm(b: Float64Array, m: number, p: number, j: number, alpha: num
  */
 export function triangularFactor(a: ArrayLike<number>, rows: number, q: number): Float64Array {
   const r = new Float64Array(q * q);
-  const b = Float64Array.from({ length: rows * q }, (_, i) => a[i]);
-  absorbBlock(r, b, rows, q, new Float64Array(q));
+  const b = new Float64Array(rows * q);
+  for (let i = 0; i < rows; i++) for (let k = 0; k < q; k++) b[k * rows + i] = a[i * q + k];
+  absorbBlock(r, b, rows, rows, q);
   for (let i = 0; i < q; i++) {
     if (r[i * q + i] < 0) for (let k = i; k < q; k++) r[i * q + k] = -r[i * q + k];
   }

@@ -28,36 +28,33 @@ export function parseDecimalSpan(text: string, start: number, end: number, decim
     if (++i >= end) return NaN;
     c = text.charCodeAt(i);
   }
+  // Digits accumulate exactly while the integer stays below 2^53 (checked once at the end).
   let mantissa = 0;
-  let significant = 0;
   let exponent = 0;
-  let digits = 0;
-  while (i < end) {
+  const firstDigit = i;
+  let d = c - 48;
+  while (d >= 0 && d <= 9) {
+    mantissa = mantissa * 10 + d;
+    if (++i >= end) break;
     c = text.charCodeAt(i);
-    if (c < 48 || c > 57) break;
-    if (mantissa !== 0 || c !== 48) {
-      mantissa = mantissa * 10 + (c - 48);
-      significant++;
-    }
-    digits++;
-    i++;
+    d = c - 48;
   }
+  let digits = i - firstDigit;
   if (i < end && c === decimalCode) {
-    i++;
+    const fractionStart = ++i;
     while (i < end) {
       c = text.charCodeAt(i);
-      if (c < 48 || c > 57) break;
-      if (mantissa !== 0 || c !== 48) {
-        mantissa = mantissa * 10 + (c - 48);
-        significant++;
-      }
-      exponent--;
-      digits++;
+      d = c - 48;
+      if (d < 0 || d > 9) break;
+      mantissa = mantissa * 10 + d;
       i++;
     }
+    exponent = fractionStart - i;
+    digits += i - fractionStart;
   }
   if (digits === 0) return NaN;
-  if (i < end && (c === 101 || c === 69)) {
+  if (i < end) {
+    if (c !== 101 && c !== 69) return NaN;
     i++;
     let expNegative = false;
     if (i < end) {
@@ -68,23 +65,20 @@ export function parseDecimalSpan(text: string, start: number, end: number, decim
       }
     }
     let e = 0;
-    let expDigits = 0;
+    const expStart = i;
     while (i < end) {
-      c = text.charCodeAt(i);
-      if (c < 48 || c > 57) break;
-      if (e < 10000) e = e * 10 + (c - 48);
-      expDigits++;
+      d = text.charCodeAt(i) - 48;
+      if (d < 0 || d > 9) return NaN;
+      if (e < 10000) e = e * 10 + d;
       i++;
     }
-    if (expDigits === 0) return NaN;
+    if (i === expStart) return NaN;
     exponent += expNegative ? -e : e;
   }
-  if (i !== end) return NaN;
-  // Clinger's fast path: at most 15 significant digits (< 2^53) and an exact power of ten.
-  if (significant > 15) return NaN;
+  // Clinger's fast path: an exact integer mantissa (< 2^53) and an exact power of ten (|k| ≤ 22).
+  if (!(mantissa < 9007199254740992)) return NaN;
   let value: number;
-  if (mantissa === 0) value = 0;
-  else if (exponent === 0) value = mantissa;
+  if (mantissa === 0 || exponent === 0) value = mantissa;
   else if (exponent > 0 && exponent <= 22) value = mantissa * POWERS_OF_TEN[exponent];
   else if (exponent < 0 && exponent >= -22) value = mantissa / POWERS_OF_TEN[-exponent];
   else return NaN;

@@ -10,7 +10,7 @@ export interface RegressionWorkerOptions {
   readonly onProgress?: (progress: RegressionProgress) => void;
   /** Aborting stops the worker at once; the promise then rejects with an `AbortError` DOMException. */
   readonly signal?: AbortSignal;
-  /** Bytes read per chunk (default 1 MiB). */
+  /** Bytes read per chunk (default 256 KiB). */
   readonly chunkBytes?: number;
 }
 
@@ -57,7 +57,7 @@ export function runRegressionInWorker(
     const request: RegressionWorkerRequest = {
       file,
       spec: JSON.parse(JSON.stringify(spec)) as RegressionDataSpec,
-      chunkBytes: options.chunkBytes ?? 1 << 20,
+      chunkBytes: options.chunkBytes ?? 1 << 18,
     };
     worker.postMessage(request);
   });
