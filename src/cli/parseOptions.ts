@@ -13,7 +13,7 @@ export function parseOptions(
 ): { values: Record<string, string | boolean | undefined>; positionals: string[] } {
   try {
     const parsed = parseArgs({
-      args: [...args],
+      args: attachNegativeValues(args, options),
       options: { ...options, help: { type: 'boolean', short: 'h' } },
       strict: true,
       allowPositionals: true,
@@ -29,6 +29,23 @@ export function parseOptions(
     if (/does not take an argument/i.test(message)) throw new UsageError(option, 'takes no value');
     throw new UsageError(option, message);
   }
+}
+
+/**
+ * Node's parser reads the "-0.4" of `--estimate -0.4` as an option of its own; a value that looks like a
+ * negative number, following an option that takes a value, is joined to it (`--estimate=-0.4`).
+ */
+function attachNegativeValues(args: readonly string[], options: OptionKinds): string[] {
+  const out: string[] = [];
+  for (let i = 0; i < args.length; i++) {
+    const name = args[i].startsWith('--') ? args[i].slice(2) : null;
+    const next = args[i + 1];
+    if (name && options[name]?.type === 'string' && next !== undefined && /^-(\d|\.\d)/.test(next)) {
+      out.push(`${args[i]}=${next}`);
+      i++;
+    } else out.push(args[i]);
+  }
+  return out;
 }
 
 /** Reads a number option: finite, decimal point or decimal comma; names the option when it is not a number. */

@@ -19,7 +19,7 @@ export type StatementFormat = 'md' | 'tex' | 'html';
 const REFERENCES = {
   evalue: 'VanderWeele TJ, Ding P. Sensitivity analysis in observational research: introducing the E-value. Annals of Internal Medicine. 2017;167(4):268–274.',
   bounding: 'Ding P, VanderWeele TJ. Sensitivity analysis without assumptions. Epidemiology. 2016;27(3):368–377.',
-  orCommon: 'VanderWeele TJ. On a square-root transformation of the odds ratio for a common outcome. Epidemiology. 2017;28(2):e11–e12.',
+  orCommon: 'VanderWeele TJ. On a square-root transformation of the odds ratio for a common outcome. Epidemiology. 2017;28(6):e58–e60.',
   hrCommon: 'VanderWeele TJ. Optimal approximate conversions of odds ratios and hazard ratios to risk ratios. Biometrics. 2020;76(3):746–752.',
   rosenbaum: 'Rosenbaum PR. Observational Studies. 2nd ed. New York: Springer; 2002. Chapter 4.',
   hodgesLehmann: 'Rosenbaum PR. Hodges–Lehmann point estimates of treatment effect in observational studies. Journal of the American Statistical Association. 1993;88(424):1250–1253.',

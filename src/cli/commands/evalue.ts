@@ -85,7 +85,7 @@ export const command: LurkCommand = {
   summary: 'E-value for a risk, odds or hazard ratio, a standardized or raw mean difference, or a 2×2 table',
   async run(args: readonly string[], io: CliIo): Promise<number> {
     try {
-      const { values } = parseOptions(attachNegativeValues(args), OPTIONS);
+      const { values } = parseOptions(args, OPTIONS);
       if (values.help) {
         io.out(HELP);
         return 0;
@@ -100,23 +100,6 @@ export const command: LurkCommand = {
     }
   },
 };
-
-/**
- * `--estimate -0.4` would read "-0.4" as an option: a negative number right after an option that takes a value
- * is attached to it (`--estimate=-0.4`), since differences, limits and counts are often negative.
- */
-function attachNegativeValues(args: readonly string[]): string[] {
-  const out: string[] = [];
-  for (let i = 0; i < args.length; i++) {
-    const name = args[i].startsWith('--') ? args[i].slice(2) : null;
-    const next = args[i + 1];
-    if (name && OPTIONS[name]?.type === 'string' && next !== undefined && /^-(\d|\.\d)/.test(next)) {
-      out.push(`${args[i]}=${next}`);
-      i++;
-    } else out.push(args[i]);
-  }
-  return out;
-}
 
 interface Analysis {
   readonly result: EValueResult;
