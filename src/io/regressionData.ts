@@ -158,6 +158,8 @@ interface Variable {
   levelIndex: Map<string, number>;
   offset: number;
   missing: number;
+  /** First text cell of a column whose first rows otherwise hold numbers. */
+  mixed?: { row: number; text: string };
 }
 
 /**
@@ -167,8 +169,9 @@ interface Variable {
  * **Method.** Each complete row with a value in every chosen column becomes one design row
  * [1, covariates…, treatment, outcome] and is absorbed by a {@link StreamingQr} (Householder on blocks of
  * rows), so memory does not grow with the number of rows. Columns are typed from the first
- * {@link TYPE_SAMPLE_ROWS} rows: a column with a non-numeric cell there (or listed in `categorical`) is
- * dummy-coded. Every level gets an indicator while streaming — a level first seen mid-stream adds a column
+ * {@link TYPE_SAMPLE_ROWS} rows: a column of text there (or listed in `categorical`) is dummy-coded; a column
+ * of numbers with some text is an error naming the first text cell (a mistyped number is likelier than a
+ * category; list a category written partly in digits in `categorical`). Every level gets an indicator while streaming — a level first seen mid-stream adds a column
  * that is zero in every earlier row, which R absorbs as an inserted zero column — and at the end the
  * reference level (alphabetically first) is dropped and the kept columns re-triangularised (R[:,S]ᵀR[:,S] =
  * X_Sᵀ X_S). This reproduces R's `lm` with treatment contrasts and `na.omit`.
@@ -274,6 +277,16 @@ export function createRegressionAccumulator(
     commitRow();
   }
 
+  /** A column of numbers with some text in its first rows. */
+  function mixedProblem(v: Variable): InputProblem {
+    return inputProblem(
+      v.field,
+      'not-a-number',
+      `column "${v.column}", row ${v.mixed!.row}: "${v.mixed!.text}" is not a number, while other rows hold numbers; correct the cell (or list the column as categorical if it is one).`,
+      v.mixed!.text,
+    );
+  }
+
   function notANumber(v: Variable, rowNumber: number, text: string): InputError {
     return new InputError([
       inputProblem(
@@ -314,16 +327,28 @@ export function createRegressionAccumulator(
 
   function decideTypes(): void {
     decimalComma = reader.dialect?.decimalComma ?? false;
+    const base = rowsRead - sample.length;
     variables.forEach((v, i) => {
       if (v.categorical) return;
-      v.categorical = sample.some((cells) => !isMissingCell(cells[i]) && Number.isNaN(parseNumericCell(cells[i], decimalComma)));
+      let numeric = 0;
+      let firstText: { row: number; text: string } | null = null;
+      sample.forEach((cells, k) => {
+        if (isMissingCell(cells[i])) return;
+        if (Number.isNaN(parseNumericCell(cells[i], decimalComma))) firstText ??= { row: base + k + 1, text: cells[i] };
+        else numeric++;
+      });
+      v.categorical = firstText !== null;
+      // Numbers and text mixed: most likely a mistyped number. A real category written partly in digits
+      // ("0", "1", "2", "3+") must be listed in `categorical`.
+      if (firstText !== null && numeric > 0) v.mixed = firstText;
     });
+    const mixed = variables.filter((v) => v.mixed);
+    if (mixed.length > 0) throw new InputError(mixed.map(mixedProblem));
     layout();
     hasCategorical = variables.some((v) => v.categorical);
     typed = true;
     const rows = sample;
     sample = [];
-    const base = rowsRead - rows.length;
     rows.forEach((cells, k) => addFields(cells, base + k + 1));
   }
 

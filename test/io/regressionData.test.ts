@@ -199,8 +199,10 @@ describe('regressionDataFromText: adversarial CSV text', () => {
     const cells = lines[12].split(',');
     cells[3] = 'twelve';
     lines[12] = cells.join(',');
-    // Typed as categorical in the sample, so Education gets many levels: not allowed for a treatment.
-    expect(problemsOf(() => regressionDataFromText(lines.join('\n'), swissSpec))[0]).toMatchObject({ field: 'treatment', code: 'too-many-levels' });
+    // Within the typing sample: the column is numbers with one text cell, named with its row.
+    const early = problemsOf(() => regressionDataFromText(lines.join('\n'), swissSpec))[0];
+    expect(early).toMatchObject({ field: 'treatment', code: 'not-a-number', value: 'twelve' });
+    expect(early.message).toContain('column "Education", row 12: "twelve" is not a number, while other rows hold numbers');
     // After the typing sample, a non-number is an error naming column, row and value.
     const long = [lines[0], ...Array.from({ length: TYPE_SAMPLE_ROWS + 10 }, (_, i) => swissText.trim().split('\n')[1 + (i % 47)])];
     const bad = long[TYPE_SAMPLE_ROWS + 5].split(',');
@@ -209,6 +211,16 @@ describe('regressionDataFromText: adversarial CSV text', () => {
     const problems = problemsOf(() => regressionDataFromText(long.join('\n'), swissSpec));
     expect(problems[0]).toMatchObject({ field: 'treatment', code: 'not-a-number', value: '1O' });
     expect(problems[0].message).toContain(`column "Education", row ${TYPE_SAMPLE_ROWS + 5}: "1O" is not a number`);
+  });
+
+  it('a covariate of numbers with a text cell is named (not silently made a category)', () => {
+    const lines = swissText.trim().split('\n');
+    const cells = lines[7].split(',');
+    cells[1] = '4O.5';
+    lines[7] = cells.join(',');
+    const problems = problemsOf(() => regressionDataFromText(lines.join('\n'), swissSpec));
+    expect(problems).toHaveLength(1);
+    expect(problems[0]).toMatchObject({ field: 'covariates[0]', code: 'not-a-number', value: '4O.5' });
   });
 
   it('constant and collinear columns are named by the fit', () => {
