@@ -125,10 +125,9 @@ export function validateRegressionDataSpec(spec: RegressionDataSpec, header: rea
   return problems;
 }
 
-
 /**
- * Reads a numeric cell; NaN when it is not a finite number (1e400 overflows and is refused). Fast path for plain decimal numbers, else
- * {@link parseNumberText} (decimal commas, thin spaces, a typographic minus).
+ * Reads a numeric cell; NaN when it is not a finite number (1e400 overflows and is refused). Fast path for
+ * plain decimal numbers, else {@link parseNumberText} (decimal commas, thin spaces, a typographic minus).
  */
 export function parseNumericCell(text: string, decimalComma: boolean): number {
   if (!decimalComma) {
