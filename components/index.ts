@@ -7,3 +7,4 @@ export { LurkBottomLine } from './lurk-bottom-line';
 export { LurkBatch } from './lurk-batch';
 export { LurkApp } from './lurk-app';
 export { LurkPairs } from './lurk-pairs';
+export { LurkOvb } from './lurk-ovb';

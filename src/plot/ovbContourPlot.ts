@@ -179,6 +179,7 @@ type Side = 'right' | 'left' | 'above' | 'below';
 function placePointLabels(marks: PlotMark[], inner: { left: number; right: number; top: number; bottom: number }): void {
   type Box = [number, number, number, number];
   const boxes: Box[] = [];
+  const pointBoxes: Box[] = [];
   // Left to right: a label on the right of an earlier point is then known when later points choose.
   const points = marks
     .map((m, i) => ({ m, i }))
@@ -187,7 +188,7 @@ function placePointLabels(marks: PlotMark[], inner: { left: number; right: numbe
   for (const { m } of points) {
     if (m.kind !== 'point') continue;
     const r = m.size ?? 5;
-    boxes.push([m.x - r, m.y - r, m.x + r, m.y + r]);
+    pointBoxes.push([m.x - r, m.y - r, m.x + r, m.y + r]);
   }
   const boxFor = (x: number, y: number, r: number, w: number, side: Side): Box => {
     const gap = r + 4;
@@ -207,7 +208,9 @@ function placePointLabels(marks: PlotMark[], inner: { left: number; right: numbe
     // Cost: area hidden under other labels and points, plus area outside the plotting area (weighted more).
     const cost = (box: Box) => {
       let c = 0;
-      for (const b of boxes) if (!(b[0] === own[0] && b[1] === own[1] && b[2] === own[2])) c += area(b, box);
+      for (const b of boxes) c += area(b, box);
+      // a label must not hide another point: weigh that far more than overlapping text
+      for (const b of pointBoxes) if (!(b[0] === own[0] && b[1] === own[1] && b[2] === own[2])) c += 60 * area(b, box);
       const full = (box[2] - box[0]) * (box[3] - box[1]);
       const within = area(box, [inner.left, inner.top - 4, inner.right + 20, inner.bottom + 4]);
       return c + 3 * (full - within);

@@ -1,0 +1,149 @@
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { page, userEvent } from 'vitest/browser';
+import axe from 'axe-core';
+import '../../components/lurk-ovb';
+import type { LurkOvb } from '../../components/lurk-ovb';
+import swissText from '../reference/swiss.csv?raw';
+import ovb from '../reference/ovb.json';
+
+let element: LurkOvb;
+let events: { type: string; detail: any }[];
+
+beforeEach(async () => {
+  await page.viewport(1280, 2400);
+  element = document.createElement('lurk-ovb');
+  events = [];
+  for (const type of ['lurk-inputs-change', 'lurk-result']) element.addEventListener(type, (e) => events.push({ type, detail: (e as CustomEvent).detail }));
+  document.body.append(element);
+  await element.updateComplete;
+});
+
+afterEach(() => element.remove());
+
+const shadow = () => element.shadowRoot as ShadowRoot;
+const text = (selector: string) => (shadow().querySelector(selector)?.textContent ?? '').replace(/\s+/g, ' ').trim();
+
+async function settle() {
+  await element.updateComplete;
+  for (const plot of shadow().querySelectorAll('lurk-plot')) await (plot as HTMLElement & { updateComplete: Promise<unknown> }).updateComplete;
+}
+
+async function until(check: () => boolean, ms = 15000) {
+  const start = performance.now();
+  while (!check()) {
+    if (performance.now() - start > ms) throw new Error('timed out waiting for the page');
+    await new Promise((r) => setTimeout(r, 50));
+  }
+  await settle();
+}
+
+describe('<lurk-ovb>', () => {
+  it('reproduces the published example from reported numbers', async () => {
+    // Cinelli & Hazlett 2020, JRSS-B 82(1):39–67: t = 4.18, df = 783 → 2.2%, 13.9%, 7.6%
+    await userEvent.fill(page.getByLabelText('Estimate (coefficient)'), '4.18');
+    await userEvent.fill(page.getByLabelText('Standard error'), '1');
+    await userEvent.fill(page.getByLabelText('Degrees of freedom'), '783');
+    await settle();
+    expect(text('#partial-r2')).toBe('2.2%');
+    expect(text('#rv')).toBe('13.9%');
+    expect(text('#rv-alpha')).toBe('7.6%');
+    expect(text('.caution')).toMatch(/does not prove causation/);
+    expect(events.filter((e) => e.type === 'lurk-result').at(-1)?.detail.result.rv).toBeCloseTo(ovb.published_example.RV_1, 12);
+    expect(events.filter((e) => e.type === 'lurk-inputs-change').at(-1)?.detail.inputs.df).toBe('783');
+    expect(shadow().textContent).not.toMatch(/NaN|undefined|Infinity/);
+  });
+
+  it('keeps what was typed and names the field of a bad value', async () => {
+    await userEvent.fill(page.getByLabelText('Estimate (coefficient)'), '0,5');
+    await userEvent.fill(page.getByLabelText('Standard error'), '0.1');
+    await userEvent.fill(page.getByLabelText('Degrees of freedom'), '1');
+    await settle();
+    expect(text('#df-error')).toMatch(/greater than 1/);
+    expect(shadow().querySelector('#df')?.getAttribute('aria-invalid')).toBe('true');
+    expect((shadow().querySelector('#df') as HTMLInputElement).value).toBe('1');
+    await userEvent.fill(page.getByLabelText('Partial R² with the treatment'), '120%');
+    await userEvent.fill(page.getByLabelText('Degrees of freedom'), '50');
+    await userEvent.fill(page.getByLabelText('Partial R² with the outcome'), '0.1');
+    await settle();
+    expect(text('#r2dz-error')).toMatch(/\[0, 1\)/);
+    expect((shadow().querySelector('#estimate') as HTMLInputElement).value).toBe('0,5');
+  });
+
+  it('loads a CSV, picks columns, fits in a worker, and shows RV, a benchmark row and the contour plots', async () => {
+    await page.getByLabelText('A CSV file of the data').click();
+    await userEvent.upload(page.getByLabelText('CSV file', { exact: true }), new File([swissText], 'swiss.csv', { type: 'text/csv' }));
+    await until(() => shadow().querySelector('#column-outcome') !== null);
+    await userEvent.selectOptions(page.getByLabelText('Outcome', { exact: true }), 'Fertility');
+    await userEvent.selectOptions(page.getByLabelText('Treatment (exposure)'), 'Education');
+    await settle();
+    await userEvent.click(page.getByRole('button', { name: 'Fit the regression' }));
+    await until(() => text('#rv') !== '');
+
+    // R 4.2.2 lm on datasets::swiss (test/reference/ovb.json swiss): RV 51.7%, RV at α 34.3%, R²yd 35.6%
+    expect(text('#rv')).toBe('51.7%');
+    expect(text('#rv-alpha')).toBe('34.3%');
+    expect(text('#partial-r2')).toBe('35.6%');
+    expect(text('#data-note')).toMatch(/47 rows used of 47/);
+    const rows = [...shadow().querySelectorAll('#benchmarks tbody tr')].map((tr) => [...tr.children].map((c) => c.textContent!.replace(/\s+/g, ' ').trim()));
+    // Agriculture, k = 1: r2dz 16.08%, r2yz 20.22%, adjusted −0.6402, SE 0.1807, t −3.54 (bound formulas from memory, re-derived)
+    expect(rows[0]).toEqual(['Agriculture', '1', '16.1%', '20.2%', '-0.6402', '0.181', '-3.54']);
+    expect(rows.find((r) => r[0] === 'Examination' && r[1] === '2')?.[2]).toMatch(/Not available/);
+    expect(text('#reading')).toMatch(/at least 51\.7% of the residual variance of both Education and Fertility/);
+
+    const plot = shadow().querySelector('#plot-estimate') as HTMLElement;
+    const svg = plot.shadowRoot?.querySelector('svg') as SVGSVGElement;
+    expect(svg.textContent).toMatch(/1× Agriculture/);
+    expect(svg.querySelectorAll('path').length).toBeGreaterThan(8);
+    expect(shadow().textContent).not.toMatch(/NaN|undefined|Infinity/);
+
+    // Pointing at the plot reads off the adjusted values.
+    const box = svg.getBoundingClientRect();
+    await userEvent.hover(page.elementLocator(svg), { position: { x: box.width * 0.4, y: box.height * 0.5 } });
+    await settle();
+    expect((plot as HTMLElement & { readout: string }).readout).toMatch(/adjusted estimate .*SE .*t /);
+
+    // A viewport that fits the runner's window, so the screenshot is not scaled down.
+    await page.viewport(1200, 700);
+    await settle();
+    plot.scrollIntoView();
+    await page.screenshot({ path: '../artifacts/ovb.png', element: plot });
+    element.scrollIntoView();
+    await page.screenshot({ path: '../artifacts/ovb-page.png' });
+    const report = await axe.run(element);
+    expect(report.violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target).join(' ')}`)).toEqual([]);
+  });
+
+  it('cancels a long read and reports a constant treatment by name', async () => {
+    await page.getByLabelText('A CSV file of the data').click();
+    const csv = 'y,d,x\n1,2,3\n2,2,1\n4,2,7\n3,2,2\n5,2,9\n';
+    await userEvent.upload(page.getByLabelText('CSV file', { exact: true }), new File([csv], 'const.csv', { type: 'text/csv' }));
+    await until(() => shadow().querySelector('#column-outcome') !== null);
+    await userEvent.selectOptions(page.getByLabelText('Outcome', { exact: true }), 'y');
+    await userEvent.selectOptions(page.getByLabelText('Treatment (exposure)'), 'd');
+    await userEvent.click(page.getByRole('button', { name: 'Fit the regression' }));
+    await until(() => text('#column-treatment-error') !== '');
+    expect(text('#column-treatment-error')).toMatch(/"d" is constant/);
+  });
+
+  it('shows the SQL for summary statistics and analyses a pasted result', async () => {
+    await page.getByLabelText('Summary statistics from a database').click();
+    await userEvent.fill(page.getByLabelText('Table or view'), 'swiss');
+    await userEvent.fill(page.getByLabelText('Outcome column'), 'Fertility');
+    await userEvent.fill(page.getByLabelText('Treatment column'), 'Education');
+    await userEvent.fill(page.getByLabelText('Covariate columns'), 'Agriculture, Examination, Catholic, Infant.Mortality');
+    await settle();
+    expect(text('#sql')).toMatch(/SELECT/);
+    // The query's result, computed here from the CSV (as a database would)
+    const [header, ...lines] = swissText.trim().split(/\r?\n/);
+    const names = header.split(',').map((h) => h.replace(/"/g, ''));
+    const vars = ['Agriculture', 'Examination', 'Catholic', 'Infant.Mortality', 'Education', 'Fertility'];
+    const cols = vars.map((v) => lines.map((l) => Number(l.split(',')[names.indexOf(v)])));
+    const row: Record<string, number> = { n: lines.length };
+    cols.forEach((c, i) => (row[`s_${i + 1}`] = c.reduce((a, b) => a + b, 0)));
+    for (let i = 0; i < vars.length; i++) for (let j = i; j < vars.length; j++) row[`c_${i + 1}_${j + 1}`] = cols[i].reduce((a, x, r) => a + x * cols[j][r], 0);
+    (shadow().querySelector('#summaryResult') as HTMLTextAreaElement).value = JSON.stringify(row);
+    shadow().querySelector('#summaryResult')!.dispatchEvent(new Event('input', { bubbles: true }));
+    await settle();
+    expect(text('#rv')).toBe('51.7%');
+  });
+});
