@@ -156,11 +156,14 @@ describe('fitLeastSquares: invariants', () => {
           const spec = { response: 'y', predictors: [INTERCEPT_NAME, 'a', 'b'] };
           if (validateLeastSquares(design, spec).length > 0) return;
           const fit = fitLeastSquares(design, spec);
+          // An exact fit (possible with subnormal data) has SE 0 and t = 0/0 for a zero coefficient, as in R.
+          if (fit.warnings.length > 0) return;
           for (const r2 of fit.partialR2) {
             expect(r2).toBeGreaterThanOrEqual(0);
             expect(r2).toBeLessThanOrEqual(1);
           }
-          if (fit.residualSumOfSquares > 1e-9 * fit.totalSumOfSquares) {
+          // Near-exact fits leave a residual at rounding level, where RSS has few correct digits.
+          if (fit.rSquared < 1 - 1e-6) {
             expectClose(groupPartialR2(design, { ...spec, group: ['a'] }), fit.partialR2[1], { rel: 1e-6, abs: 1e-9 });
           }
         },
