@@ -47,6 +47,16 @@ describe('parseDecimalSpan', () => {
     );
   });
 
+  it('equals Number(text) on any digit string it answers for (property)', () => {
+    fc.assert(
+      fc.property(fc.stringMatching(/^[+-]?\d{0,17}(\.\d{0,17})?([eE][+-]?\d{1,3})?$/), (text) => {
+        const got = read(text);
+        if (!Number.isNaN(got)) expect(Object.is(got, Number(text)), text).toBe(true);
+      }),
+      { numRuns: 3000 },
+    );
+  });
+
   it('reads a span inside a longer text', () => {
     expect(parseDecimalSpan('a,12.5,b', 2, 6, 46)).toBe(12.5);
   });
