@@ -105,7 +105,7 @@ export function exactCriticalValue(n: number, p: number, q: number, level: numbe
   const z = upperNormalQuantile(level);
   let m = Math.min(N, Math.max(16, Math.ceil(q * N - z * sd + 8 * sd + 16)));
   for (;;) {
-    const table = boundingLowerTailTable(weights, m, q, p);
+    const table = boundingLowerTailTable(weights, m, q, p, 1e-30 * Math.min(1, level));
     if (table[0] > level) return N + 1;
     if (table[m] > level || m === N) {
       let s = m;

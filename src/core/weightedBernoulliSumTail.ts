@@ -11,7 +11,9 @@
  * (1 − q), so the update is one multiply-add, g[s] += (q/(1 − q))·g[s − w]; the divided-out Π (1 − q) is
  * restored in log space at the end, and g is rescaled before it can overflow. Cost O(n·m) time, O(m) memory.
  * When the tail is not small (≥ 10⁻³) and the complementary region 0…t − 1 is smaller, 1 − P(Σ wB ≤ t − 1)
- * is used instead (subtraction loses at most three digits there).
+ * is used instead (subtraction loses at most three digits there). Partial sums whose probability is negligible
+ * for the requested accuracy are dropped from the bottom of the region as the expansion proceeds (their
+ * total is bounded, see `sortedLowerTail`), which about halves the work near the middle of the distribution.
  *
  * **References.** Rosenbaum PR (2002) Observational Studies, 2nd ed., Springer, §4.3.3 (the bounding
  * distribution Σ Rᵢ Bᵢ); Pagano M, Tritchler D (1983) JASA 78:435–440 (exact permutation distributions by
@@ -36,17 +38,29 @@ export function weightedBernoulliSumUpperTail(weights: ArrayLike<number>, t: num
   const direct = total - need;
   const complement = need - 1;
   if (complement < direct) {
-    const below = sortedLowerTail(sorted, complement, p, q);
+    const below = sortedLowerTail(sorted, complement, p, q, ABSOLUTE_NEGLIGIBLE);
     if (1 - below >= 1e-3) return 1 - below;
   }
-  return sortedLowerTail(sorted, direct, q, p);
+  // First with negligible sums dropped (error ≤ (m + 1)·1e-30); when the answer is small, again with a
+  // threshold scaled to it, so the relative error stays below about 1e-16 however far out the tail is.
+  const rough = sortedLowerTail(sorted, direct, q, p, ABSOLUTE_NEGLIGIBLE);
+  if (rough > (direct + 1) * ABSOLUTE_NEGLIGIBLE * 1e16) return rough;
+  return sortedLowerTail(sorted, direct, q, p, rough > 0 ? (rough * 1e-17) / (direct + 1) : 0);
 }
+
+/** Probability below which a partial sum is dropped in the first pass (see `sortedLowerTail`). */
+const ABSOLUTE_NEGLIGIBLE = 1e-30;
 
 /**
  * P(Σ wᵢ·Bᵢ ≤ m) with Bᵢ ~ Bernoulli(p), weights sorted ascending (non-negative integers).
  * `q` = 1 − p. See `weightedBernoulliSumUpperTail` for the method.
+ *
+ * With `negligible` > 0, sums at the bottom of the region whose probability has fallen below it are dropped
+ * as the expansion proceeds (probability only moves upwards, so they never matter again except through their
+ * own mass); the result is then low by at most (m + 1)·negligible. This skips the far lower tail of the
+ * partial sums, which holds most of the region when m is near the middle, and roughly halves the work.
  */
-export function sortedLowerTail(sorted: ArrayLike<number>, m: number, p: number, q: number): number {
+export function sortedLowerTail(sorted: ArrayLike<number>, m: number, p: number, q: number, negligible = 0): number {
   if (m < 0) return 0;
   const n = sorted.length;
   if (p === 0) return 1;
@@ -57,31 +71,42 @@ export function sortedLowerTail(sorted: ArrayLike<number>, m: number, p: number,
   }
   const odds = p / q;
   const growth = 1 + odds;
-  let logScale = n * Math.log(q);
+  const logQ = Math.log(q);
+  const logNegligible = negligible > 0 ? Math.log(negligible) : -Infinity;
+  let logScale = 0; // g[s]·exp(logScale) is the probability of partial sum s
   const g = new Float64Array(m + 1);
   g[0] = 1;
   let reach = 0;
+  let low = 0; // every sum below `low` has probability 0 (or was dropped as negligible)
   let bound = 1;
-  for (let i = 0; i < n; i++) {
+  let i = 0;
+  for (; i < n; i++) {
     const w = sorted[i];
     if (w > m) break; // sorted: every later weight also leaves the region when its B is 1
+    logScale += logQ;
     if (w === 0) {
       logScale += Math.log1p(odds); // both outcomes stay put: the factor is (q + p)/q
       continue;
     }
     const top = reach + w < m ? reach + w : m;
-    for (let s = top; s >= w; s--) g[s] += odds * g[s - w];
+    const stop = low + w;
+    for (let s = top; s >= stop; s--) g[s] += odds * g[s - w];
     reach = top;
     bound *= growth;
     if (bound > 1e250) {
       let max = 0;
-      for (let s = 0; s <= reach; s++) if (g[s] > max) max = g[s];
-      for (let s = 0; s <= reach; s++) g[s] /= max;
+      for (let s = low; s <= reach; s++) if (g[s] > max) max = g[s];
+      for (let s = low; s <= reach; s++) g[s] /= max;
       logScale += Math.log(max);
       bound = 1;
     }
+    if (negligible > 0) {
+      const threshold = Math.exp(logNegligible - logScale);
+      while (low < reach && g[low] < threshold) g[low++] = 0;
+    }
   }
+  logScale += (n - i) * logQ; // the weights beyond m, each with B = 0
   let sum = 0;
-  for (let s = 0; s <= reach; s++) sum += g[s];
+  for (let s = low; s <= reach; s++) sum += g[s];
   return Math.min(1, Math.exp(Math.log(sum) + logScale));
 }

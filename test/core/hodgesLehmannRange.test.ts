@@ -133,6 +133,12 @@ describe('Walsh averages', () => {
       { numRuns: 200 },
     );
   });
+  test('counting handles one big block of equal averages (all differences equal)', () => {
+    const walsh = walshAverages(new Float64Array(5000).fill(0.25), { store: false });
+    expect(walsh.smallest(1)).toBe(0.25);
+    expect(walsh.smallest(6_000_000)).toBe(0.25);
+    expect(walsh.smallest(walsh.count)).toBe(0.25);
+  });
   test('counting works for n = 3000 (selection without storing 4.5 million averages)', () => {
     const d = Float64Array.from({ length: 3000 }, (_, i) => Math.sin(i * 7.1) * 10 + 0.3);
     const walsh = walshAverages(d);
