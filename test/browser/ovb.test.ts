@@ -113,7 +113,34 @@ describe('<lurk-ovb>', () => {
     expect(report.violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target).join(' ')}`)).toEqual([]);
   });
 
-  it('cancels a long read and reports a constant treatment by name', async () => {
+  it('shows progress while reading a large file and can cancel it', async () => {
+    await page.getByLabelText('A CSV file of the data').click();
+    const [header, ...lines] = swissText.trim().split(/\r?\n/);
+    const body = lines.join('\n') + '\n';
+    // swiss repeated: about 50 MB, long enough to cancel midway
+    const big = new File([header + '\n', ...Array.from({ length: 40000 }, () => body)], 'swiss-big.csv', { type: 'text/csv' });
+    // Handed to the input in the page (sending 50 MB through the test driver would take most of a minute).
+    const input = shadow().querySelector('#file') as HTMLInputElement;
+    const transfer = new DataTransfer();
+    transfer.items.add(big);
+    input.files = transfer.files;
+    input.dispatchEvent(new Event('change', { bubbles: true }));
+    await until(() => shadow().querySelector('#column-outcome') !== null);
+    await userEvent.selectOptions(page.getByLabelText('Outcome', { exact: true }), 'Fertility');
+    await userEvent.selectOptions(page.getByLabelText('Treatment (exposure)'), 'Education');
+    await userEvent.click(page.getByRole('button', { name: 'Fit the regression' }));
+    // Press Cancel as soon as the progress bar shows (the keyboard-and-mouse path is tested by its role below).
+    await until(() => shadow().querySelector('progress') !== null, 30000);
+    const cancel = shadow().querySelector('#cancel') as HTMLButtonElement;
+    expect(cancel.textContent?.trim()).toBe('Cancel');
+    cancel.click();
+    await until(() => text('#file-error') !== '', 30000);
+    expect(text('#file-error')).toMatch(/cancelled/);
+    expect(shadow().querySelector('progress')).toBeNull();
+    expect(text('#rv')).toBe('');
+  }, 90_000);
+
+  it('reports a constant treatment by name', async () => {
     await page.getByLabelText('A CSV file of the data').click();
     const csv = 'y,d,x\n1,2,3\n2,2,1\n4,2,7\n3,2,2\n5,2,9\n';
     await userEvent.upload(page.getByLabelText('CSV file', { exact: true }), new File([csv], 'const.csv', { type: 'text/csv' }));
