@@ -2,7 +2,6 @@ import { type InputProblem, InputError, inputProblem, throwIfProblems } from '..
 import { INTERCEPT_NAME, type TriangularDesign } from '../core/linearModel';
 import { StreamingQr, triangularFactor } from '../core/streamingQr';
 import { CsvChunkReader, type CsvDialect, type CsvRecordSpans } from './csvChunkReader';
-import { parseDecimalSpan } from './decimalSpan';
 import { parseNumberText } from './parseNumberText';
 import { isMissingCell } from './missingCell';
 
@@ -230,18 +229,14 @@ export function createRegressionAccumulator(
       return;
     }
     addSpans(record, rowsRead);
-  }, options.dialect);
+  }, options.dialect, { readNumbers: true });
 
   /**
-   * The hot path: numbers are read straight from the text (no string per cell) by Clinger's fast path; any
-   * other cell text goes through the full cell reader and the missing-value rule.
+   * The hot path: numbers were read while the record was split (no string per cell, Clinger's fast path);
+   * any other cell text goes through the full cell reader and the missing-value rule.
    */
   function addSpans(record: CsvRecordSpans, rowNumber: number): void {
-    const text = record.text;
-    const starts = record.start;
-    const ends = record.end;
-    const unescaped = record.unescaped;
-    const decimalCode = decimalComma ? 44 : 46;
+    const numbers = record.numbers;
     let missing = false;
     for (let i = 0; i < variables.length; i++) {
       const v = variables[i];
@@ -254,7 +249,7 @@ export function createRegressionAccumulator(
         } else levelsOfRow[i] = cell.trim();
         continue;
       }
-      let x = unescaped[source] === null ? parseDecimalSpan(text, starts[source], ends[source], decimalCode) : NaN;
+      let x = numbers[source];
       if (x !== x) {
         const cell = record.field(source);
         x = parseNumericCell(cell, decimalComma);

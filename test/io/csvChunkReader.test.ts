@@ -2,6 +2,7 @@ import fc from 'fast-check';
 import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
 import { CsvChunkReader, detectCsvDialect, type CsvDialect } from '../../src/io/csvChunkReader';
+import { parseDecimalSpan } from '../../src/io/decimalSpan';
 
 function readAll(chunks: string[], dialect?: Partial<CsvDialect>): string[][] {
   const records: string[][] = [];
@@ -65,6 +66,45 @@ describe('CsvChunkReader', () => {
       ['1', '2'],
       ['3', '4'],
     ]);
+  });
+});
+
+describe('CsvChunkReader.withSpans with readNumbers', () => {
+  function numbersOf(line: string, dialect: Partial<CsvDialect> = { delimiter: ',' }): number[][] {
+    const out: number[][] = [];
+    const reader = CsvChunkReader.withSpans((record) => out.push(Array.from(record.numbers.subarray(0, record.count))), dialect, { readNumbers: true });
+    reader.push(line);
+    reader.end();
+    return out;
+  }
+
+  it('reads plain decimals while splitting; anything else is NaN (left to the full parser)', () => {
+    const [row] = numbersOf('12,-0.5,"3",,1e3, 4,NA,0x1,5.e2,-,1.5e');
+    expect(row.slice(0, 2)).toEqual([12, -0.5]);
+    expect(row[2]).toBeNaN(); // quoted
+    expect(row[3]).toBeNaN(); // empty
+    expect(row[4]).toBe(1000);
+    for (const k of [5, 6, 7, 9, 10]) expect(row[k], String(k)).toBeNaN();
+    expect(row[8]).toBe(500);
+  });
+
+  it('decimal commas with `;`', () => {
+    expect(numbersOf('1,5;-2,25;3.5', { delimiter: ';', decimalComma: true })[0].slice(0, 2)).toEqual([1.5, -2.25]);
+  });
+
+  it('agrees with parseDecimalSpan, and with Number where it answers (property)', () => {
+    fc.assert(
+      fc.property(fc.array(fc.stringMatching(/^[+-]?\d{0,17}(\.\d{0,17})?([eE][+-]?\d{1,3})?$/), { minLength: 1, maxLength: 6 }), (cells) => {
+        // A leading constant field keeps the line from being blank.
+        const [row] = numbersOf(['0', ...cells].join(',') + '\n').map((r) => r.slice(1));
+        cells.forEach((cell, k) => {
+          const expected = parseDecimalSpan(cell, 0, cell.length, 46);
+          expect(Object.is(row[k], expected) || (Number.isNaN(row[k]) && Number.isNaN(expected)), cell).toBe(true);
+          if (!Number.isNaN(row[k])) expect(Object.is(row[k], Number(cell)), cell).toBe(true);
+        });
+      }),
+      { numRuns: 2000 },
+    );
   });
 });
 
