@@ -262,8 +262,8 @@ export function analyseOvb(input: OvbInput): OvbResult {
   };
   const benchmarks: OvbBenchmarkRow[] = [];
   for (const b of input.benchmarks ?? []) {
-    const r2yxj = b.r2yxj ?? partialR2FromT(b.outcomeT!, df);
-    const r2dxj = b.r2dxj ?? (b.treatmentT !== undefined ? partialR2FromT(b.treatmentT, df + 1) : NaN);
+    const r2yxj = b.r2yxj ?? partialR2OfT(b.outcomeT!, df);
+    const r2dxj = b.r2dxj ?? (b.treatmentT !== undefined ? partialR2OfT(b.treatmentT, df + 1) : NaN);
     if (Number.isNaN(r2dxj)) {
       warnings.push(
         `No bound for ${b.covariate}: it needs the covariate’s association with the treatment (its t in the regression of the treatment on the covariates), which papers rarely print.`,
@@ -298,7 +298,7 @@ export function analyseOvb(input: OvbInput): OvbResult {
     q,
     alpha,
     direction,
-    partialR2: partialR2FromT(t, df),
+    partialR2: partialR2OfT(t, df),
     rv,
     rvAlpha,
     criticalT,
@@ -309,6 +309,13 @@ export function analyseOvb(input: OvbInput): OvbResult {
     scenario: input.scenario ? adjust(input.scenario) : null,
     warnings,
   });
+}
+
+/** t²/(t² + df), written as 1/(1 + df/t²) for large |t| so that t² cannot overflow (Cinelli & Hazlett 2020, §4). */
+function partialR2OfT(t: number, df: number): number {
+  const t2 = t * t;
+  if (t2 === Infinity) return 1;
+  return t2 < df ? partialR2FromT(t, df) : 1 / (1 + df / t2);
 }
 
 function unavailableRow(covariate: string, k: number, r2dxj: number, r2yxj: number, reason: string): OvbBenchmarkRow {

@@ -75,16 +75,21 @@ export function ovbReading(result: OvbResult, study?: Partial<StudyLabels>): str
     const flips = bounds.find((b) => (result.direction === 'toward-zero' ? overturned(result, b) : false));
     if (flips) {
       sentences.push(
-        `A confounder ${plainNumber(flips.k)} times as strong as ${strongest.covariate} would be enough to ${ovbGoalText(result.q)} (adjusted estimate ${formatNumber(flips.correctedEstimate, { significant: 3 })}).`,
+        `A confounder ${timesAsStrong(flips.k)} ${strongest.covariate} would be enough to ${ovbGoalText(result.q)} (adjusted estimate ${formatNumber(flips.correctedEstimate, { significant: 3 })}).`,
       );
     } else if (bounds.length > 0) {
       const last = bounds[bounds.length - 1];
       sentences.push(
-        `Even a confounder ${plainNumber(last.k)} times as strong as ${strongest.covariate} would leave an adjusted estimate of ${formatNumber(last.correctedEstimate, { significant: 3 })} (t = ${formatNumber(last.correctedT, { digits: 2 })}).`,
+        `Even a confounder ${timesAsStrong(last.k)} ${strongest.covariate} would leave an adjusted estimate of ${formatNumber(last.correctedEstimate, { significant: 3 })} (t = ${formatNumber(last.correctedT, { digits: 2 })}).`,
       );
     }
   }
   return sentences;
+}
+
+/** "as strong as" for k = 1, "2 times as strong as" otherwise. */
+function timesAsStrong(k: number): string {
+  return k === 1 ? 'as strong as' : `${plainNumber(k)} times as strong as`;
 }
 
 /** Whether a bound's adjusted estimate has reached the threshold (1 − q)·estimate. */

@@ -159,6 +159,40 @@ describe('lurk ovb', () => {
     }
   });
 
+  it('reads awkward CSVs the same way: BOM, CRLF, semicolons with decimal commas, quoted headers, NA rows, huge magnitudes', async () => {
+    const text = (await import('node:fs')).readFileSync(swissPath, 'utf8').trim();
+    const [header, ...rows] = text.split(/\r?\n/);
+    const reference = JSON.parse((await lurk(['--file', 'plain.csv', '--outcome', 'Fertility', '--treatment', 'Education', '--json'], { 'plain.csv': text })).out);
+    const semicolons = [header.replace(/,/g, ';'), ...rows.map((r) => r.replace(/,/g, ';').replace(/\./g, ','))].join('\r\n');
+    const withNa = [header, ...rows, '"NA",1,2,3,4,5', '70,,10,5,50,20'].join('\n');
+    const huge = [header, ...rows.map((r) => r.split(',').map((v, i) => (i === 0 ? String(Number(v) * 1e150) : v)).join(','))].join('\n');
+    const cases: Record<string, string> = { 'bom.csv': '\uFEFF' + text.replace(/\n/g, '\r\n'), 'semi.csv': semicolons, 'na.csv': withNa, 'huge.csv': huge };
+    for (const name of ['bom.csv', 'semi.csv', 'na.csv', 'huge.csv']) {
+      const { code, out, err } = await lurk(['--file', name, '--outcome', 'Fertility', '--treatment', 'Education', '--json'], cases);
+      expect(err, name).toBe('');
+      expect(code, name).toBe(0);
+      const json = JSON.parse(out);
+      // the robustness values are scale-free: multiplying the outcome by 1e150 leaves them unchanged
+      expectClose(json.rv, reference.rv, { rel: 1e-9 }, name);
+      expectClose(json.rvAlpha, reference.rvAlpha, { rel: 1e-9 }, name);
+      if (name === 'na.csv') expect([json.rowsRead, json.rowsUsed, json.rowsDropped]).toEqual([49, 47, 2]);
+    }
+    const report = (await lurk(['--file', 'na.csv', '--outcome', 'Fertility', '--treatment', 'Education'], cases)).out;
+    expect(report).toMatch(/47 rows used of 49 \(2 dropped for a missing value\)/);
+  });
+
+  it('dummy-codes a text covariate and names its reference level; a bad cell is named by column and row', async () => {
+    const text = 'y,d,region\n1,2,north\n2,1,south\n4,3,east\n3,5,north\n5,2,south\n6,1,east\n2,4,north\n';
+    const { code, out } = await lurk(['--file', 'r.csv', '--outcome', 'y', '--treatment', 'd'], { 'r.csv': text });
+    expect(code).toBe(0);
+    expect(out).toMatch(/region is categorical: reference level "east"/);
+    expect(out).toMatch(/region  /); // the group of its dummies is one benchmark
+    const bad = await lurk(['--file', 'b.csv', '--outcome', 'y', '--treatment', 'd'], { 'b.csv': 'y,d,x\n1,2,3\n2,1,1\n4,3,seven\n3,5,2\n5,2,9\n6,1,1\n' });
+    expect(bad.code).toBe(2);
+    expect(bad.err).toMatch(/^lurk ovb: /);
+    expect(bad.err.split('\n').filter(Boolean)).toHaveLength(1);
+  });
+
   it('prints help', async () => {
     const { code, out } = await lurk(['--help']);
     expect(code).toBe(0);

@@ -83,6 +83,13 @@ describe('analyseOvb', () => {
     expect(analyseOvb({ estimate: 1, se: 1, df: 30, q: 0.5 }).warnings.join(' ')).toMatch(/0.5 times/);
   });
 
+  it('keeps a huge t finite: partial R² 1 and robustness values below 1', () => {
+    const r = analyseOvb({ estimate: 1e200, se: 1e-200, df: 10 });
+    expect(r.partialR2).toBe(1);
+    expect(r.rv).toBe(1);
+    expect(r.rvAlpha).toBe(1);
+  });
+
   it('handles an estimate of zero and the away-from-zero direction', () => {
     const zero = analyseOvb({ estimate: 0, se: 1, df: 30 });
     expect(zero.rv).toBe(0);

@@ -27,6 +27,7 @@ describe('omitted-variable-bias text', () => {
     const text = ovbReading(r, { exposure: 'Education', outcome: 'Fertility' }).join(' ');
     expect(text).toMatch(/The strongest measured covariate, Catholic, explains 21\.6% of the residual variance of Education and 17\.5% of that of Fertility\./);
     expect(text).toMatch(/A confounder 2 times as strong as Catholic would be enough to bring the estimate to zero/);
+    expect(ovbReading(analyseOvb({ ...input, k: [1] })).join(' ')).toMatch(/Even a confounder as strong as Catholic would leave/);
   });
 
   it('words q, the direction, and a non-significant estimate', () => {
