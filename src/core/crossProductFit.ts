@@ -107,8 +107,9 @@ export function validateCrossProducts(input: CrossProductInput): InputProblem[] 
  * raw matrix avoids one cancellation; note that raw sums of large numbers with small spread already lose
  * digits in the user's database — the covariance form avoids that.
  *
- * **References.** Golub & Van Loan, Matrix Computations, 4th ed., 2013, §4.2 (Cholesky factorisation),
- * §5.3.2 (normal equations; their accuracy compared with QR); R's `qr` tolerance convention for rank tests.
+ * **References.** G. H. Golub and C. F. Van Loan, Matrix Computations, 4th ed., Johns Hopkins University
+ * Press, 2013, §4.2 (Cholesky factorisation of positive (semi)definite matrices) and §5.3 (least squares by
+ * the normal equations, and why their accuracy is worse than QR's).
  *
  * **Special cases.** A zero-variance variable gives a zero row (reported as constant when used in a fit).
  *

@@ -64,8 +64,8 @@ const METHOD =
   're-triangularised by Householder QR, the coefficients solve the triangular system, and the residual sum of ' +
   'squares is the squared norm of what remains of the response column.';
 const REFERENCES = Object.freeze([
-  'G. H. Golub and C. F. Van Loan, Matrix Computations, 4th ed., Johns Hopkins University Press, 2013, §5.3 (the full-rank least-squares problem via QR) and §5.4.1 (rank deficiency, QR with column tests).',
-  'N. R. Draper and H. Smith, Applied Regression Analysis, 3rd ed., Wiley, 1998, ch. 5 (standard errors, t statistics, R²).',
+  'G. H. Golub and C. F. Van Loan, Matrix Computations, 4th ed., Johns Hopkins University Press, 2013, §5.3 (the full-rank least-squares problem via QR) and §5.5 (the rank-deficient least-squares problem).',
+  'N. R. Draper and H. Smith, Applied Regression Analysis, 3rd ed., Wiley, 1998 (standard errors, t statistics, R², extra sums of squares).',
 ]);
 
 /** Variation of the response below this fraction of its norm is rounding noise (constant response, exact fit). */
@@ -430,8 +430,9 @@ export function partialR2FromT(t: number, df: number): number {
  * intercept among the predictors, R² is centred (1 − RSS/Σ(y − ȳ)²); without it, uncentred (1 − RSS/Σy²),
  * both as R's `lm` reports.
  *
- * **References.** Golub & Van Loan, Matrix Computations, 4th ed., 2013, §5.3.3 (least squares via QR) and
- * §5.4.1 (rank tests); Draper & Smith, Applied Regression Analysis, 3rd ed., 1998, ch. 5.
+ * **References.** G. H. Golub and C. F. Van Loan, Matrix Computations, 4th ed., Johns Hopkins University
+ * Press, 2013, §5.3 (least squares via QR) and §5.5 (rank deficiency); N. R. Draper and H. Smith, Applied
+ * Regression Analysis, 3rd ed., Wiley, 1998 (t statistics, R²).
  *
  * **Special cases.** An exact fit (RSS = 0, or below 1e-11 of the response's variation) gives zero or
  * rounding-level standard errors and a warning. RSS and TSS are kept as norms internally, so data up to
@@ -480,8 +481,10 @@ function scaledHypot(values: ArrayLike<number>): number {
  * Partial R² of a group of predictors with the response, given the other predictors:
  * (RSS_without_group − RSS_full)/RSS_without_group. For a single predictor this equals t²/(t² + df).
  *
- * **References.** Draper & Smith, Applied Regression Analysis, 3rd ed., 1998, §6.3 (extra sum of squares);
- * Cinelli & Hazlett, JRSS-B 82(1):39–67, 2020, §4 (partial R² of a group of covariates).
+ * **References.** N. R. Draper and H. Smith, Applied Regression Analysis, 3rd ed., Wiley, 1998 (the extra
+ * sum of squares principle); C. Cinelli and C. Hazlett, "Making sense of sensitivity: extending omitted
+ * variable bias", J. R. Stat. Soc. B 82(1):39–67, 2020 (partial R² of a group of covariates, for grouped
+ * benchmarks).
  *
  * @throws InputError as {@link fitLeastSquares} for the full model, or when the group is empty or holds a
  *   column that is not a predictor (field `group`).

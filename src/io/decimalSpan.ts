@@ -11,7 +11,7 @@ const POWERS_OF_TEN = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
  * correctly rounded (Clinger's fast path). Longer mantissas or larger exponents return NaN (fall back).
  *
  * **References.** W. D. Clinger, "How to read floating point numbers accurately", Proc. ACM SIGPLAN '90
- * Conference on Programming Language Design and Implementation, 1990, pp. 92–101 (§ "the fast path").
+ * Conference on Programming Language Design and Implementation, 1990, pp. 92–101 (the fast path for short decimal inputs).
  *
  * **Special cases.** An empty span, spaces, thousands separators, "Infinity", hex and similar give NaN.
  * "-0" gives −0.
