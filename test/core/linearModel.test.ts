@@ -58,6 +58,31 @@ describe('fitLeastSquares: NIST StRD Longley', () => {
   });
 });
 
+describe('fitLeastSquares: NIST StRD Wampler1 and Wampler2 (exact polynomials)', () => {
+  // NIST StRD "Wampler1"/"Wampler2" (higher difficulty): x = 0…20, y an exact polynomial of degree 5, so the
+  // certified coefficients are its coefficients and the certified residual SD is 0. Data and certified values
+  // recalled from memory of the NIST pages (they follow from the data's definition).
+  const xs = Array.from({ length: 21 }, (_, x) => x);
+  const names = ['x', 'x2', 'x3', 'x4', 'x5', 'y'];
+  const powers = (x: number) => [x, x ** 2, x ** 3, x ** 4, x ** 5];
+  const predictors = [INTERCEPT_NAME, 'x', 'x2', 'x3', 'x4', 'x5'];
+
+  it('Wampler1: y = 1 + x + x² + x³ + x⁴ + x⁵ gives coefficients 1 (9 digits) and an exact-fit warning', () => {
+    const rows = xs.map((x) => [...powers(x), 1 + x + x ** 2 + x ** 3 + x ** 4 + x ** 5]);
+    const fit = fitLeastSquares(designFromRows(names, rows), { response: 'y', predictors });
+    fit.coefficients.forEach((b, i) => expectClose(b, 1, { rel: 1e-9 }, predictors[i]));
+    expect(fit.warnings.length).toBe(1);
+  });
+
+  it('Wampler2: y = 1 + 0.1x + 0.01x² + … + 0.00001x⁵ gives its coefficients (9 digits)', () => {
+    // y written with 5 decimals, as in the data file: exact integer arithmetic, then one rounding.
+    const rows = xs.map((x) => [...powers(x), (1e5 + 1e4 * x + 1e3 * x ** 2 + 100 * x ** 3 + 10 * x ** 4 + x ** 5) / 1e5]);
+    const fit = fitLeastSquares(designFromRows(names, rows), { response: 'y', predictors });
+    [1, 0.1, 0.01, 0.001, 1e-4, 1e-5].forEach((b, i) => expectClose(fit.coefficients[i], b, { rel: 1e-9 }, predictors[i]));
+    expectClose(fit.rSquared, 1, { rel: 1e-12 });
+  });
+});
+
 describe('fitLeastSquares: R lm on swiss', () => {
   // R 4.2.2 base lm: test/reference/ovb.json "swiss"
   const ref = readReferenceJson('ovb.json').swiss;
