@@ -100,7 +100,8 @@ export function ovbContourPlot(result: OvbResult, options: OvbContourOptions): P
       marks.push({ kind: 'text', x: frame.x(line.labelAt[0]), y: frame.y(line.labelAt[1]) - 3, text: formatContourLabel(line.level), anchor: 'middle', color: palette.contour, size: 10 });
     }
   }
-  if (levels.length > 0) legend.push({ label: kind === 'estimate' ? 'adjusted estimate' : 'adjusted t', color: palette.contour, swatch: 'line' });
+  const tLabel = result.q === 1 ? 'adjusted t' : `adjusted t for the null value ${formatNumber(result.threshold, { significant: 3 })}`;
+  if (levels.length > 0) legend.push({ label: kind === 'estimate' ? 'adjusted estimate' : tLabel, color: palette.contour, swatch: 'line' });
 
   // The exact flip boundary, on top of the level lines.
   for (const curve of boundary.curves) {

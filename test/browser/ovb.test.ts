@@ -51,6 +51,8 @@ describe('<lurk-ovb>', () => {
     expect(events.filter((e) => e.type === 'lurk-result').at(-1)?.detail.result.rv).toBeCloseTo(ovb.published_example.RV_1, 12);
     expect(events.filter((e) => e.type === 'lurk-inputs-change').at(-1)?.detail.inputs.df).toBe('783');
     expect(shadow().textContent).not.toMatch(/NaN|undefined|Infinity/);
+    const report = await axe.run(element);
+    expect(report.violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target).join(' ')}`)).toEqual([]);
   });
 
   it('keeps what was typed and names the field of a bad value', async () => {
@@ -172,5 +174,7 @@ describe('<lurk-ovb>', () => {
     shadow().querySelector('#summaryResult')!.dispatchEvent(new Event('input', { bubbles: true }));
     await settle();
     expect(text('#rv')).toBe('51.7%');
+    const report = await axe.run(element);
+    expect(report.violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target).join(' ')}`)).toEqual([]);
   });
 });

@@ -193,6 +193,16 @@ describe('lurk ovb', () => {
     expect(bad.err.split('\n').filter(Boolean)).toHaveLength(1);
   });
 
+  it('prints a plot as SVG', async () => {
+    for (const plot of ['estimate', 't', 'extreme']) {
+      const { code, out } = await lurk(['--file', swissPath, '--outcome', 'Fertility', '--treatment', 'Education', '--svg', plot]);
+      expect(code).toBe(0);
+      expect(out.startsWith('<svg')).toBe(true);
+      expect(out).not.toMatch(/NaN|undefined|Infinity/);
+    }
+    expect((await lurk(['--estimate', '1', '--se', '1', '--df', '9', '--svg', 'pie'])).err).toMatch(/--svg: must be one of estimate, t, extreme/);
+  });
+
   it('prints help', async () => {
     const { code, out } = await lurk(['--help']);
     expect(code).toBe(0);

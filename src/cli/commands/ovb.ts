@@ -9,6 +9,9 @@ import { ovbSpecFromRegressionData, parseBenchmarkList } from '../../io/ovbRegre
 import { crossProductsFromSqlRow, summaryStatisticsSql } from '../../io/summaryStatisticsSql';
 import { readCsvText } from '../../io/csv';
 import { ovbJson, ovbReport } from '../../io/ovbText';
+import { ovbContourPlot } from '../../plot/ovbContourPlot';
+import { ovbExtremeScenarioPlot } from '../../plot/ovbExtremeScenarioPlot';
+import { renderSvgString } from '../../plot/svgString';
 import type { CliIo } from '../cliIo';
 import type { LurkCommand } from '../main';
 import { choiceOption, numberListOption, numberOption, parseOptions, type OptionKinds } from '../parseOptions';
@@ -36,6 +39,7 @@ const OPTIONS: OptionKinds = {
   r2dz: { type: 'string' },
   r2yz: { type: 'string' },
   json: { type: 'boolean' },
+  svg: { type: 'string' },
 };
 
 const HELP = `lurk ovb — how strong would an omitted confounder have to be to overturn a regression estimate?
@@ -65,6 +69,8 @@ Options:
   --r2dz, --r2yz  a confounder strength to evaluate (partial R²s with treatment and outcome, in [0, 1))
   --json          one JSON object: estimate, se, t, df, partialR2, rv, rvAlpha, benchmarks [{covariate, k,
                   r2dz, r2yz, correctedEstimate, correctedSe, correctedT, ...}], extremeScenarios, ...
+  --svg PLOT      print a plot as SVG instead of the report: estimate (contours of the adjusted estimate),
+                  t (contours of the adjusted t) or extreme (extreme scenarios); e.g. --svg t > contours.svg
 
 A sensitivity analysis bounds how strong hidden confounding would have to be; it does not prove causation.
 Decisions about health or safety defer to domain experts, local guidance and licensed practice.
@@ -172,7 +178,14 @@ export const command: LurkCommand = {
           ...defined(settings),
         };
       }
+      const plot = choiceOption(values.svg, '--svg', ['estimate', 't', 'extreme'] as const);
+      if (plot && values.json) throw new UsageError('--svg', 'cannot be combined with --json');
       const result = await renameFields(() => analyseOvb(input));
+      if (plot) {
+        const spec = plot === 'extreme' ? ovbExtremeScenarioPlot(result, { study }) : ovbContourPlot(result, { kind: plot, study });
+        io.out(renderSvgString(spec, { includeTitle: true }) + '\n');
+        return 0;
+      }
       io.out(values.json ? ovbJson(result, extra) : ovbReport(result, { dataNote, study }));
       return 0;
     } catch (error) {
