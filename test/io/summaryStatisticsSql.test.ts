@@ -128,6 +128,26 @@ describe('the summary query run in DuckDB matches the CSV path', () => {
     expectClose(fromSql.standardErrors[5], ref.se, { rel: 1e-9 });
   });
 
+  it('on NIST Longley: the certified coefficients to 8 significant digits (integer data: exact sums)', async () => {
+    // NIST StRD "Longley" certified values (test/reference/longley.json). The cross-product path squares
+    // the condition number; the QR path on the same data reaches 10+ digits (linearModel.test.ts).
+    const path = referencePath('longley.csv').replace(/'/g, "''");
+    const connection = await instance.connect();
+    await connection.run(`CREATE TABLE longley AS SELECT * FROM read_csv('${path}', header = true)`);
+    connection.closeSync();
+    const variables: SummaryVariable[] = ['x1', 'x2', 'x3', 'x4', 'x5', 'x6', 'y'].map((column) => ({ column }));
+    const [row] = await query(summaryStatisticsSql({ table: 'longley', variables }));
+    const fit = fitLeastSquares(designFromCrossProducts(crossProductsFromSqlRow(row, variables)), {
+      response: 'y',
+      predictors: [INTERCEPT_NAME, 'x1', 'x2', 'x3', 'x4', 'x5', 'x6'],
+    });
+    const cert = readReferenceJson('longley.json').certified;
+    ['intercept', 'x1', 'x2', 'x3', 'x4', 'x5', 'x6'].forEach((key, i) => {
+      expectClose(fit.coefficients[i], cert.coefficients[key], { rel: 1e-8 }, key);
+      expectClose(fit.standardErrors[i], cert.standard_errors[key], { rel: 1e-8 }, `SE ${key}`);
+    });
+  });
+
   it('drops rows with a NULL exactly as the CSV path drops rows with NA, and codes categories alike', async () => {
     const raw = regressionDataFromText(modifiedSwissCsv(), {
       outcome: 'Fertility',
