@@ -55,6 +55,10 @@ describe('lurk ovb', () => {
     const catholic = json.benchmarks.find((r: any) => r.covariate === 'Catholic');
     expect(catholic.correctedEstimate).toBeNull();
     expect(catholic.unavailable).toMatch(/treatment/);
+    const chosen = await lurk(['--estimate', '-0.87', '--se', '0.183', '--df', '41', '--covariate-t', 'a=2:1,b=1', '--benchmark', 'a', '--k', '1', '--json']);
+    expect(JSON.parse(chosen.out).benchmarks.map((r: any) => r.covariate)).toEqual(['a']);
+    const unknown = await lurk(['--estimate', '-0.87', '--se', '0.183', '--df', '41', '--covariate-t', 'a=2:1', '--benchmark', 'c']);
+    expect(unknown.err).toMatch(/^lurk ovb: --benchmark: "c" is not among the --covariate-t entries \(a\)/);
   });
 
   it('analyses the swiss CSV like R lm, with benchmark bounds for k = 1, 2, 3', async () => {

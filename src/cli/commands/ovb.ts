@@ -60,6 +60,7 @@ Options:
   --covariates    covariate columns (default: every other column); text columns are dummy-coded
   --categorical   numeric columns to treat as categories (e.g. a region code)
   --benchmark     covariates to compare with (default: all), a group as a+b: --benchmark age,income+education
+                  (with reported numbers: a choice among the --covariate-t names)
   --covariate-t   with reported numbers: a covariate's t in the outcome regression and, if known, in the
                   regression of the treatment on the covariates (needed for its bounds), e.g. age=2.4:-2.6
   --k             multiples for the bounds (default ${DEFAULT_BENCHMARK_MULTIPLES.join(',')})
@@ -100,7 +101,7 @@ export const command: LurkCommand = {
         throw new UsageError(`--${reported[0]}`, `gives reported numbers; it cannot be combined with --${sources[0]}`);
       }
       if (sources.length === 0) {
-        for (const o of ['outcome', 'treatment', 'covariates', 'categorical', 'benchmark']) {
+        for (const o of ['outcome', 'treatment', 'covariates', 'categorical']) {
           if (values[o] !== undefined) throw new UsageError(`--${o}`, 'needs --file, --summary or --sql (data columns)');
         }
       }
@@ -173,7 +174,7 @@ export const command: LurkCommand = {
             df: numberOption(values.df, '--df'),
             n: numberOption(values.n, '--n'),
             parameters: numberOption(values.parameters, '--parameters'),
-            benchmarks: covariateTOption(text('covariate-t')),
+            benchmarks: chooseBenchmarks(covariateTOption(text('covariate-t')), list('benchmark')),
           }),
           ...defined(settings),
         };
@@ -239,6 +240,17 @@ function covariateTOption(value: string | undefined): OvbBenchmarkInput[] | unde
     const treatmentT = m[3] === undefined ? undefined : numberOption(m[3], '--covariate-t');
     return treatmentT === undefined ? { covariate: m[1], outcomeT } : { covariate: m[1], outcomeT, treatmentT };
   });
+}
+
+/** With reported numbers, --benchmark picks among the --covariate-t entries. */
+function chooseBenchmarks(all: OvbBenchmarkInput[] | undefined, names: string[] | undefined): OvbBenchmarkInput[] | undefined {
+  if (names === undefined) return all;
+  const known = (all ?? []).map((b) => b.covariate);
+  const unknown = names.find((n) => !known.includes(n));
+  if (unknown !== undefined) {
+    throw new UsageError('--benchmark', `"${unknown}" is not among the --covariate-t entries (${known.join(', ') || 'none given'})`);
+  }
+  return (all ?? []).filter((b) => names.includes(b.covariate));
 }
 
 function columnsFor(
