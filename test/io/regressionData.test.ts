@@ -309,6 +309,19 @@ describe('regressionDataFromText: categorical columns (dummy coding, R\'s treatm
     expectSameFit(outcomeFit(data), manualFit(['east', 'north', 'south', 'west'], 'east', many, regions), 1e-9);
   });
 
+  it('any order of appearance of the levels gives the same fit as hand-written indicators (property)', () => {
+    fc.assert(
+      fc.property(fc.array(fc.constantFrom('b', 'a', 'd', 'c'), { minLength: rows.length, maxLength: rows.length }), (regions) => {
+        const levels = [...new Set(regions)].sort();
+        if (levels.length < 2) return;
+        const data = regressionDataFromText(csv(rows, regions), spec);
+        expect(data.categorical[0].reference).toBe(levels[0]);
+        expectSameFit(outcomeFit(data), manualFit(levels, levels[0], rows, regions), 1e-9);
+      }),
+      { numRuns: 60 },
+    );
+  });
+
   it('a numeric-looking column listed as categorical is dummy-coded', () => {
     const regions = rows.map((r) => (r[4] > 50 ? '2' : '10'));
     const data = regressionDataFromText(csv(rows, regions), { ...spec, categorical: ['region'] });
