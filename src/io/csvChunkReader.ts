@@ -1,12 +1,4 @@
-/**
- * A streaming CSV record reader: text goes in chunk by chunk (any split, even inside a quoted field or
- * between \r and \n), complete records come out through a callback. Memory holds one unfinished record.
- *
- * Follows RFC 4180 (fields may be quoted with "; "" inside quotes is one "; quoted fields may hold the
- * delimiter and line breaks), and also accepts \n or \r line ends, a byte-order mark, `;` or tab as the
- * delimiter, and skips blank lines. The dialect (delimiter, decimal comma) is detected from the first
- * records unless given.
- */
+/** How a CSV file is written: its delimiter and its decimal mark. */
 export interface CsvDialect {
   readonly delimiter: ',' | ';' | '\t';
   /** Numbers are written with a decimal comma (1,5), as usual with `;`-separated files. */
@@ -83,6 +75,17 @@ class SpanRecord implements CsvRecordSpans {
   }
 }
 
+/**
+ * A streaming CSV record reader: text goes in chunk by chunk (any split, even inside a quoted field or
+ * between \r and \n), complete records come out through a callback — as strings, or (made with
+ * {@link CsvChunkReader.withSpans}) as positions in the text with plain decimals already read. Memory holds
+ * one unfinished record.
+ *
+ * Follows RFC 4180 (Y. Shafranovich, "Common Format and MIME Type for Comma-Separated Values (CSV) Files",
+ * IETF, 2005): fields may be quoted with "; "" inside quotes is one "; quoted fields may hold the delimiter
+ * and line breaks. Also accepts \n or \r line ends, a byte-order mark, `;` or tab as the delimiter, and skips
+ * blank lines. The dialect (delimiter, decimal comma) is detected from the first 64 KiB unless given.
+ */
 export class CsvChunkReader {
   private pending = '';
   private started = false;
