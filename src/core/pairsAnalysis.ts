@@ -317,7 +317,12 @@ export function analysePairs(input: PairsInput): PairsResult {
       ? signTestBound(favourable, nonZero, gamma, normal).pUpper
       : signedRankUpperP(ranks, gamma, normal);
   }
-  const tipping = tippingGamma(upperAt, alpha, { guess: normalGuess, tolerance: 1e-9 });
+  const tipping = tippingGamma(upperAt, alpha, {
+    guess: normalGuess,
+    // Finer than the 3 decimals shown; the exact search at many pairs stops a little earlier (each step costs).
+    tolerance: nonZero <= CURVE_EXACT_LIMIT || tailMethod === 'normal' ? 1e-10 : 1e-7,
+    model: tailMethod === 'exact' ? upperAtNormal : undefined,
+  });
   const signTipping =
     test === 'sign' ? tipping : tippingGamma((g) => signTestBound(favourable, nonZero, g, { method: 'exact' }).pUpper, alpha);
 

@@ -24,6 +24,12 @@ export interface TippingOptions {
   maxGamma?: number;
   /** Relative precision in Γ. Default 1e-10. */
   tolerance?: number;
+  /**
+   * A cheap approximation of the same bound (e.g. its normal approximation). When given, the first step from
+   * the guess goes to where the approximation, rescaled to agree with the bound at the guess, reaches α —
+   * usually within a hair of the answer, so an expensive exact bound is evaluated only a few times.
+   */
+  model?: (gamma: number) => number;
 }
 
 /**
@@ -70,6 +76,18 @@ export function tippingGamma(pUpper: (gamma: number) => number, alpha: number, o
   let x = Math.min(Math.log(guess), xMax);
   let step = Math.max(0.01 * x, 1e-3);
   const f0 = F(x);
+  if (options.model && Number.isFinite(f0)) {
+    // The model, scaled to match the bound at the guess, predicts the crossing; aim just past it.
+    const ratio = Math.exp(f0) * alpha / options.model(Math.exp(x));
+    const target = alpha / ratio;
+    if (ratio > 0 && Number.isFinite(ratio) && target > 0 && target < 1) {
+      const predicted = tippingGamma(options.model, target, { maxGamma, tolerance: 1e-12 }).gamma;
+      if (predicted !== null) {
+        const distance = Math.abs(Math.log(predicted) - x);
+        step = Math.max(distance * 1.05, tolerance * 4);
+      }
+    }
+  }
   if (f0 <= 0) {
     lo = x;
     flo = f0;

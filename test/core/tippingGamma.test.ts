@@ -72,3 +72,19 @@ describe('invariants', () => {
     );
   });
 });
+
+describe('search cost', () => {
+  test('a model of the bound (the normal approximation) cuts the exact evaluations and gives the same Γ', () => {
+    const ds = reference.datasets.n40;
+    const ranks = signedRanks(ds.differences);
+    const exact = (g: number) => signedRankUpperP(ranks, g, { method: 'exact' });
+    const normal = (g: number) => signedRankUpperP(ranks, g, { method: 'normal' });
+    const guess = tippingGamma(normal, 0.05, { tolerance: 1e-4 }).gamma!;
+    const plain = tippingGamma(exact, 0.05, { guess, tolerance: 1e-10 });
+    const modelled = tippingGamma(exact, 0.05, { guess, tolerance: 1e-10, model: normal });
+    // R 4.2.2 reference sensitivity value (exact signed-rank), rosenbaum.json
+    expectClose(modelled.gamma!, ds.sensitivity_value.wilcoxon_exact, { rel: 1e-9 });
+    expectClose(modelled.gamma!, plain.gamma!, { rel: 1e-9 });
+    expect(modelled.evaluations).toBeLessThanOrEqual(plain.evaluations);
+  });
+});
