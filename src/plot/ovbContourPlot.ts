@@ -123,9 +123,14 @@ export function ovbContourPlot(result: OvbResult, options: OvbContourOptions): P
   const inDomain = (b: number, a: number) => b >= 0 && b <= maxX && a >= 0 && a <= maxY;
   marks.push({ kind: 'point', x: frame.x(0), y: frame.y(0), shape: 'triangle', color: palette.ink, size: 6, label: `unadjusted ${formatLevel(unadjusted, kind)}`, labelSide: 'right' });
   legend.push({ label: 'unadjusted', color: palette.ink, swatch: 'triangle' });
+  // The robustness value's point: on the diagonal, except for RV_{q,α} when f_q·f* ≥ 1, where the cheapest
+  // confounder has R²dz = RV_{q,α} and R²yz = RV_{q,α}/(RV_{q,α} + f*²) (below the diagonal).
   const rvPoint = kind === 'estimate' ? result.rv : result.rvAlpha;
-  if (result.direction === 'toward-zero' && rvPoint > 0 && inDomain(rvPoint, rvPoint)) {
-    marks.push({ kind: 'point', x: frame.x(rvPoint), y: frame.y(rvPoint), shape: 'diamond', color: palette.interval, size: 6, label: `${kind === 'estimate' ? 'RV' : 'RV at α'} ${formatPercent(rvPoint)}`, labelSide: 'left' });
+  const fCritical = criticalF(result.df, result.alpha);
+  const offDiagonal = kind === 't' && fq(settingOf(result)) * fCritical >= 1;
+  const rvY = offDiagonal ? rvPoint / (rvPoint + fCritical * fCritical) : rvPoint;
+  if (result.direction === 'toward-zero' && rvPoint > 0 && inDomain(rvPoint, rvY)) {
+    marks.push({ kind: 'point', x: frame.x(rvPoint), y: frame.y(rvY), shape: 'diamond', color: palette.interval, size: 6, label: `${kind === 'estimate' ? 'RV' : 'RV at α'} ${formatPercent(rvPoint)}`, labelSide: 'left' });
   }
   let benchmarkShown = false;
   const unshown: string[] = [];

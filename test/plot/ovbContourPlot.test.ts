@@ -88,6 +88,19 @@ describe('omitted-variable-bias plots', () => {
     writeFileSync(artifacts + 'ovb-t-away.svg', renderSvgString(t));
   });
 
+  test('the RV at α point sits on the exact boundary, also off the diagonal', () => {
+    // t = 30, df = 100: f_q·f* ≥ 1, so RV_{1,0.05} = (f_q² − f*²)/(1 + f_q²) is reached below the diagonal
+    for (const t of [4.18, 30]) {
+      const r = analyseOvb({ estimate: t, se: 1, df: 100 });
+      const spec = ovbContourPlot(r, { kind: 't', maxR2dz: 0.95, maxR2yz: 0.95 });
+      const point = spec.marks.find((m) => m.kind === 'point' && (m as { label?: string }).label?.startsWith('RV at α')) as { x: number; y: number };
+      const [b, a] = toData(spec, point.x, point.y);
+      expectClose(b, r.rvAlpha, { rel: 1e-9 });
+      const adj = adjustForConfounder({ estimate: t, se: 1, df: 100 }, { r2dz: b, r2yz: a });
+      expectClose(adj.t, r.criticalT, { rel: 1e-6 });
+    }
+  });
+
   test('extreme scenarios: curves cross the threshold at the reported R²dz', () => {
     const spec = ovbExtremeScenarioPlot(result, { study });
     writeFileSync(artifacts + 'ovb-extreme.svg', renderSvgString(spec));
