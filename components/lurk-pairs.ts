@@ -362,7 +362,7 @@ export class LurkPairs extends LitElement {
       } catch (error) {
         if (this.computedFor !== form) return;
         if (error instanceof DOMException && error.name === 'AbortError') {
-          this.finish(null, null, [{ field: 'file', code: 'cancelled', message: 'the analysis was cancelled; change any input to run it again' }], userAction);
+          this.finish(null, null, [{ field: 'analysis', code: 'cancelled', message: 'the analysis was cancelled; change any input to run it again' }], userAction);
         } else if (error instanceof InputError) {
           this.finish(null, null, error.problems, userAction);
         } else {
@@ -416,6 +416,9 @@ export class LurkPairs extends LitElement {
       </div>`;
     }
     const result = this.result;
+    if (!result && this.problems.some((p) => p.code === 'cancelled')) {
+      return html`<p class="waiting" role="status">The analysis was cancelled; change any input to run it again.</p>`;
+    }
     if (!result) {
       const shown = this.problems.filter((p) => this.started || p.code !== 'required');
       return html`<p class="waiting" role="status">

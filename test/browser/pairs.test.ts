@@ -38,7 +38,7 @@ async function until(condition: () => boolean, ms = 20_000) {
   const start = performance.now();
   while (!condition()) {
     if (performance.now() - start > ms) throw new Error('timed out waiting for the page');
-    await new Promise((r) => setTimeout(r, 50));
+    await new Promise((r) => setTimeout(r, 10));
   }
   await settle();
 }
@@ -128,6 +128,41 @@ describe('<lurk-pairs>', () => {
     expect(Number(text('#tipping-gamma'))).toBeGreaterThan(1);
     expect(events.filter((e) => e.type === 'lurk-result').at(-1)?.detail.result.tailMethod).toBe('exact');
   }, 90_000);
+
+  it('a file over 1 MB is read in the Web Worker with a progress bar', async () => {
+    const rows = ['pair,treated,control'];
+    for (let i = 0; i < 60_000; i++) rows.push(`${i + 1},${(50 + ((i * 0.7548776662) % 1) * 10 + 0.4).toFixed(3)},${(50 + ((i * 0.5698402910) % 1) * 10).toFixed(3)}`);
+    const file = new File([rows.join('\n')], 'many-pairs.csv', { type: 'text/csv' });
+    expect(file.size).toBeGreaterThan(1 << 20);
+    await userEvent.upload(page.getByLabelText('CSV file', { exact: true }), file);
+    let sawProgress = false;
+    await until(() => {
+      if (shadow().querySelector('progress')) sawProgress = true;
+      return text('#pairs-counts') !== '' || /Fix|failed/.test(text('section'));
+    }, 60_000);
+    expect(sawProgress).toBe(true);
+    expect(text('section')).not.toMatch(/Fix|failed/);
+    expect(text('#pairs-counts')).toMatch(/60,000 pairs used/);
+    expect(text('#pairs-counts')).toMatch(/normal approximation/);
+    expect(events.filter((e) => e.type === 'lurk-inputs-change').at(-1)?.detail.inputs).toMatchObject({ treatedColumn: 'treated', controlColumn: 'control' });
+  }, 90_000);
+
+  it('the worker can be cancelled; the typed numbers stay', async () => {
+    const values = Array.from({ length: 900 }, (_, i) => ((i * 0.6180339887) % 1) - 0.4);
+    await userEvent.click(page.getByLabelText('Numbers pasted in'));
+    const box = shadow().querySelector('#pasted') as HTMLTextAreaElement;
+    const typed = values.map((v) => v.toFixed(5)).join('\n');
+    box.value = typed;
+    box.dispatchEvent(new Event('input', { bubbles: true, composed: true }));
+    await element.updateComplete;
+    await userEvent.click(page.getByRole('button', { name: 'Cancel' }));
+    await settle();
+    expect(shadow().querySelector('progress')).toBeNull();
+    expect(text('#pasted-error')).toBe('');
+    expect(text('.waiting')).toBe('The analysis was cancelled; change any input to run it again.');
+    expect(box.value).toBe(typed);
+    expect(events.filter((e) => e.type === 'lurk-result').at(-1)?.detail.problems[0].code).toBe('cancelled');
+  });
 
   it('restoring saved inputs fires no events and keeps the typed text', async () => {
     element.inputs = { source: 'pasted', pasted: '2\n3\n-1\n4\n5', alpha: '0,05' };
