@@ -140,14 +140,16 @@ export class LurkOvb extends LitElement {
           covariates. Bounds need both.
         </p>
         ${f.covariateTs.map(
-          (c, i) => html`<div class="triple">
+          (c, i) => html`<div class="covariate">
             ${this.textField(`covariateTs[${i}].name`, 'Covariate', c.name, (v) => this.covariateEdit(i, { name: v }))}
+            <div class="triple">
             ${this.textField(`covariateTs[${i}].outcomeT`, 't (outcome)', c.outcomeT, (v) => this.covariateEdit(i, { outcomeT: v }))}
             ${this.textField(`covariateTs[${i}].treatmentT`, 't (treatment)', c.treatmentT, (v) => this.covariateEdit(i, { treatmentT: v }))}
             <div class="field">
               <button type="button" class="secondary small" aria-label="Remove covariate ${i + 1}" @click=${() => this.edit({ covariateTs: f.covariateTs.filter((_, j) => j !== i) })}>
                 Remove
               </button>
+            </div>
             </div>
           </div>`,
         )}

@@ -26,8 +26,12 @@ export const ovbStyles = css`
   .triple {
     display: grid;
     gap: 0 0.5rem;
-    grid-template-columns: minmax(0, 1.4fr) minmax(0, 1fr) minmax(0, 1fr) auto;
+    grid-template-columns: minmax(0, 1fr) minmax(0, 1fr) auto;
     align-items: end;
+  }
+  .covariate {
+    border-bottom: 1px solid var(--_border);
+    margin-bottom: 0.5rem;
   }
   .columns {
     max-height: 12rem;
