@@ -2,7 +2,7 @@ import type { StudyLabels } from '../io/studyLabels';
 
 /**
  * The demo: an invented study, clearly marked fictional, with every calculator filled in so that a newcomer
- * sees everything working at once. No real study's data.
+ * sees everything working at once. No real study's data: every number below is made up for the demo.
  */
 export interface DemoAppraisal {
   readonly banner: string;
@@ -36,8 +36,50 @@ export function fictionalStudy(): DemoAppraisal {
           { name: 'smoking', rrExposure: '1.3', rrOutcome: '1.6' },
         ],
       },
-      pairs: {},
-      regression: {},
+      // Each cycling commuter matched to a car commuter of the same age band, sex and neighbourhood; the pasted
+      // numbers are the differences in systolic blood pressure (cyclist − driver, mmHg).
+      pairs: {
+        source: 'pasted',
+        pasted: fictionalPairDifferences().join('\n'),
+        test: 'signrank',
+        alternative: 'less',
+        alpha: '0.05',
+        gammas: '',
+        method: 'auto',
+      },
+      // The fictional paper's regression table: systolic blood pressure on cycling (yes/no) and covariates.
+      regression: {
+        source: 'reported',
+        estimate: '-4.1',
+        se: '1.2',
+        dfBy: 'df',
+        df: '1482',
+        covariateTs: [
+          { name: 'age', outcomeT: '9.5', treatmentT: '-3.1' },
+          { name: 'body-mass index', outcomeT: '7.2', treatmentT: '-2.0' },
+          { name: 'smoking', outcomeT: '2.8', treatmentT: '-1.5' },
+        ],
+        k: '1, 2, 3',
+        q: '1',
+        alpha: '0.05',
+        direction: 'toward-zero',
+      },
     },
   };
+}
+
+/**
+ * 90 invented pair differences, drawn once from a fixed-seed generator (a linear congruential generator and
+ * the Box–Muller transform) around −3.5 mmHg with spread 9 mmHg, rounded to 0.5 mmHg as a cuff reads.
+ */
+export function fictionalPairDifferences(): number[] {
+  let seed = 20261202;
+  const uniform = () => ((seed = (Math.imul(seed, 1664525) + 1013904223) >>> 0) + 0.5) / 2 ** 32;
+  const values: number[] = [];
+  while (values.length < 90) {
+    const radius = Math.sqrt(-2 * Math.log(uniform()));
+    const angle = 2 * Math.PI * uniform();
+    values.push(Math.round((-3.5 + 9 * radius * Math.cos(angle)) * 2) / 2);
+  }
+  return values;
 }
