@@ -108,7 +108,7 @@ export function pairsReading(result: PairsResult, study?: Partial<StudyLabels>):
   const last = result.estimates.length > 0 ? result.estimates[result.estimates.length - 1] : null;
   if (result.estimate !== null && last) {
     sentences.push(
-      `With no hidden bias the Hodges–Lehmann estimate of the effect is ${formatEffect(result.estimate, study)}; allowing bias up to Γ = ${formatGammaValue(last.gamma)}, the estimate could lie anywhere from ${formatEffect(last.estimateLow, study)} to ${formatEffect(last.estimateHigh, study)}, with a ${formatAsTyped(result.intervalLevel * 100)}% sensitivity interval from ${formatEffect(last.intervalLow, study)} to ${formatEffect(last.intervalHigh, study)}.`,
+      `With no hidden bias the Hodges–Lehmann estimate of the effect is ${formatEffect(result.estimate, study)}; allowing bias up to Γ = ${formatGammaValue(last.gamma)}, the estimate could lie anywhere from ${formatEffect(last.estimateLow, study)} to ${formatEffect(last.estimateHigh, study)}, with a ${formatAsTyped(result.intervalLevel * 100)}% sensitivity interval from ${formatEffect(last.intervalLow, study)} to ${formatEffect(last.intervalHigh, study)}. The interval is two-sided (${formatAsTyped((result.alpha * 100) / 2)}% in each tail), so it can reach no effect at a somewhat smaller Γ than the one-sided test.`,
     );
   }
   return sentences;
@@ -160,16 +160,17 @@ export function alignTable(header: string[], rows: string[][]): string {
   return [line(header), line(widths.map((w) => '-'.repeat(w))), ...rows.map(line)].join('\n');
 }
 
-/** The sensitivity table as header + formatted rows (shared by the command line and the page). */
+/** The sensitivity table as header + formatted rows (shared by the command line and the page); units go in the header. */
 export function pairsTable(result: PairsResult, study?: Partial<StudyLabels>): { header: string[]; rows: string[][] } {
   const withEstimates = result.estimates.length === result.rows.length && result.estimates.length > 0;
   const header = ['Γ', 'p upper bound', 'p lower bound'];
-  if (withEstimates) header.push('estimate low', 'estimate high', `${formatAsTyped(result.intervalLevel * 100)}% interval`);
+  const units = study?.units?.trim() ? ` (${study.units.trim()})` : '';
+  if (withEstimates) header.push(`estimate low${units}`, `estimate high${units}`, `${formatAsTyped(result.intervalLevel * 100)}% interval${units}`);
   const rows = result.rows.map((row, i) => {
     const cells = [formatGammaValue(row.gamma), formatPValue(row.pUpper), formatPValue(row.pLower)];
     if (withEstimates) {
       const e = result.estimates[i];
-      cells.push(formatEffect(e.estimateLow, study), formatEffect(e.estimateHigh, study), `${formatEffect(e.intervalLow, study)} to ${formatEffect(e.intervalHigh, study)}`);
+      cells.push(formatEffect(e.estimateLow), formatEffect(e.estimateHigh), `${formatEffect(e.intervalLow)} to ${formatEffect(e.intervalHigh)}`);
     }
     return cells;
   });

@@ -29,7 +29,7 @@ export function amplificationPlot(result: PairsResult, options: PairsPlotOptions
     width,
     height,
     x: { domain: [1, top], label: 'Λ: how much the hidden covariate multiplies the odds of treatment', scale: 'log' },
-    y: { domain: [1, top], label: 'Δ: how much it multiplies the odds of a higher outcome', scale: 'log' },
+    y: { domain: [1, top], label: `Δ: how much it multiplies the odds of a ${result.alternative === 'less' ? 'lower' : 'higher'} outcome`, scale: 'log' },
   });
   // Trace Λ from where Δ = top down to Λ = top, evenly in log(Λ − Γ) so the steep end is smooth.
   const start = amplificationDelta(gamma, top);
@@ -76,7 +76,7 @@ export function amplificationPlot(result: PairsResult, options: PairsPlotOptions
   return Object.freeze({
     id: 'pairs-amplification',
     title: `Ways a hidden covariate could produce bias Γ = ${formatGamma(gamma)}`,
-    description: `Each point on the curve is a covariate strong enough to tip the finding: it multiplies the odds of treatment by Λ and the odds of a higher outcome by Δ. Where both are equal, Λ = Δ = ${formatNumber(symmetric, { significant: 3 })}.`,
+    description: `Each point on the curve is a covariate strong enough to tip the finding: it multiplies the odds of treatment by Λ and the odds of a ${result.alternative === 'less' ? 'lower' : 'higher'} outcome by Δ. Where both are equal, Λ = Δ = ${formatNumber(symmetric, { significant: 3 })}.`,
     width,
     height,
     xAxis: frame.xAxis,
