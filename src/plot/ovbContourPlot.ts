@@ -32,12 +32,15 @@ export interface OvbContourOptions {
 
 /** Points along R²dz at which the exact flip boundary is evaluated (plus its exact ends and tip). */
 const BOUNDARY_SAMPLES = 240;
+/** The same for each level line of the adjusted estimate. */
+const LEVEL_SAMPLES = 80;
 
 /**
  * Contours of the adjusted estimate (or of the adjusted t-statistic) over the strength of a hidden confounder:
  * its partial R² with the treatment, R²(D~Z|X) (x), and with the outcome, R²(Y~Z|D,X) (y), both from 0.
  *
- * **Method.** Level lines by marching squares (d3-contour) on a grid of adjusted values; the line where the
+ * **Method.** Level lines of the adjusted estimate in closed form (R²yz = g²(1 − R²dz)/R²dz for each level);
+ * level lines of the adjusted t by marching squares (d3-contour) on a grid of adjusted values. The line where the
  * conclusion flips — the adjusted estimate reaching (1 − q)·estimate, or the adjusted t for that null value
  * reaching the critical value of t with df − 1 degrees of freedom — is not taken from the grid: it is
  * evaluated in closed form at each R²dz (see `estimateBoundaryR2yz` and `significanceInterval`), and the
@@ -92,7 +95,8 @@ export function ovbContourPlot(result: OvbResult, options: OvbContourOptions): P
   const levels = contourLevels(result, kind, value, maxX, maxY, flipLevel);
   const gridValues = (bs: Float64Array, as: Float64Array) =>
     adjustedGrid(reported, result.direction, bs, as, kind, result.threshold);
-  for (const line of levelLines(gridValues, levels, maxX, maxY, options.gridSize ?? 41)) {
+  const lines = kind === 'estimate' ? estimateLevelLines(result, levels, maxX, maxY) : levelLines(gridValues, levels, maxX, maxY, options.gridSize ?? 41);
+  for (const line of lines) {
     for (const ring of line.rings) {
       marks.push({ kind: 'path', d: polylinePath(ring.map(([b, a]) => [frame.x(b), frame.y(a)] as const)), stroke: palette.contour, strokeWidth: 1, label: `${kindLabel(kind)} ${formatLevel(line.level, kind)}` });
     }
@@ -305,15 +309,17 @@ function significanceBoundary(result: OvbResult, maxX: number, maxY: number): Bo
   };
 }
 
-/** Evenly spaced values from `from` to `to`, denser near `from` (where boundaries bend), plus extra points. */
-function sweep(from: number, to: number, extra: readonly number[]): number[] {
-  const values = new Set<number>([from, to, ...extra.filter((v) => v > from && v < to)]);
-  for (let i = 1; i < BOUNDARY_SAMPLES; i++) {
-    const u = i / BOUNDARY_SAMPLES;
-    values.add(from + (to - from) * u * u); // quadratic spacing: more points where the curve is steep
-    values.add(from + (to - from) * u);
+/**
+ * Values from `from` to `to` for tracing a curve: evenly spaced and quadratically spaced (denser near `from`,
+ * where the curves bend), merged in order, plus extra points.
+ */
+function sweep(from: number, to: number, extra: readonly number[], samples = BOUNDARY_SAMPLES): number[] {
+  const values: number[] = [from, to, ...extra.filter((v) => v > from && v < to)];
+  for (let i = 1; i < samples; i++) {
+    const u = i / samples;
+    values.push(from + (to - from) * u * u, from + (to - from) * u);
   }
-  return [...values].sort((x, y) => x - y);
+  return Float64Array.from(values).sort() as unknown as number[];
 }
 
 interface LevelLine {
@@ -375,6 +381,37 @@ function levelLines(
       }
     }
     if (rings.length > 0) lines.push({ level: polygon.value, rings, labelAt });
+  }
+  return lines;
+}
+
+/**
+ * Level lines of the adjusted estimate in closed form (no grid): the estimate equals L where the bias is
+ * B = |β̂| − sign(β̂)·L (toward zero) or sign(β̂)·L − |β̂| (away), i.e. R²yz = g²(1 − R²dz)/R²dz with
+ * g = B/(se·√df) — the same curve as the flip boundary with g in place of f_q.
+ */
+function estimateLevelLines(result: OvbResult, levels: readonly number[], maxX: number, maxY: number): LevelLine[] {
+  const sign = result.estimate < 0 ? -1 : 1;
+  const scale = result.se * Math.sqrt(result.df);
+  const lines: LevelLine[] = [];
+  for (const level of levels) {
+    const bias = result.direction === 'toward-zero' ? Math.abs(result.estimate) - sign * level : sign * level - Math.abs(result.estimate);
+    if (!(bias > 0) || !(scale > 0)) continue;
+    const g2 = (bias / scale) ** 2;
+    const start = g2 / (maxY + g2);
+    if (!(start < maxX)) continue;
+    const ring: [number, number][] = [];
+    for (const b of sweep(start, maxX, [], LEVEL_SAMPLES)) ring.push([b, Math.min(maxY, (g2 * (1 - b)) / b)]);
+    let labelAt: [number, number] | null = null;
+    let best = -Infinity;
+    for (const p of ring) {
+      const score = p[0] / maxX + p[1] / maxY;
+      if (p[0] < 0.93 * maxX && p[1] < 0.95 * maxY && p[0] > 0.05 * maxX && score > best) {
+        best = score;
+        labelAt = p;
+      }
+    }
+    lines.push({ level, rings: [ring], labelAt });
   }
   return lines;
 }

@@ -58,6 +58,13 @@ describe('omitted-variable-bias plots', () => {
     expect(labels.some((l) => l.startsWith('unadjusted -0.871'))).toBe(true);
     expect(labels.some((l) => l.startsWith('RV 51.7%'))).toBe(true);
     expect(spec.table.rows.some((r) => r[0] === '2 × Examination' && r[1] === 'not available')).toBe(true);
+    // the estimate's level lines are exact too: every vertex of the −0.4 line has an adjusted estimate of −0.4
+    const level = spec.marks.find((m) => m.kind === 'path' && (m as { label?: string }).label === 'Adjusted estimate -0.400') as { d: string };
+    const vertices = [...level.d.matchAll(/([\d.]+),([\d.]+)/g)].map((m) => toData(spec, Number(m[1]), Number(m[2])));
+    for (const [b, a] of vertices) {
+      if (a >= spec.yAxis.domain[1] - 1e-3) continue;
+      expect(Math.abs(adjustForConfounder(swissInput as any, { r2dz: b, r2yz: a }).estimate + 0.4)).toBeLessThan(0.01);
+    }
     expect(JSON.stringify(spec)).not.toMatch(/NaN|Infinity|undefined/);
   });
 
