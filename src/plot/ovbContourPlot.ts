@@ -24,7 +24,7 @@ export interface OvbContourOptions {
   readonly maxR2dz?: number;
   /** Upper end of the R²(Y~Z|D,X) axis, in (0, 1]; default as for `maxR2dz`. */
   readonly maxR2yz?: number;
-  /** Grid points per axis for the contour lines (default 41). The flip boundary does not use the grid. */
+  /** Draw the t level lines by marching squares on a grid of this many points per axis instead of in closed form. */
   readonly gridSize?: number;
   /** A confounder strength to mark (e.g. the one the user chose). */
   readonly scenario?: ConfounderStrength | null;
@@ -39,8 +39,9 @@ const LEVEL_SAMPLES = 80;
  * Contours of the adjusted estimate (or of the adjusted t-statistic) over the strength of a hidden confounder:
  * its partial R² with the treatment, R²(D~Z|X) (x), and with the outcome, R²(Y~Z|D,X) (y), both from 0.
  *
- * **Method.** Level lines of the adjusted estimate in closed form (R²yz = g²(1 − R²dz)/R²dz for each level);
- * level lines of the adjusted t by marching squares (d3-contour) on a grid of adjusted values. The line where the
+ * **Method.** Level lines in closed form along R²dz: for the adjusted estimate R²yz = g²(1 − R²dz)/R²dz, for
+ * the adjusted t the roots of √b·sin θ ± ℓ·cos θ = c (see `tLevelLines`); with `gridSize` set, the t lines come
+ * from marching squares (d3-contour) on a grid instead. The line where the
  * conclusion flips — the adjusted estimate reaching (1 − q)·estimate, or the adjusted t for that null value
  * reaching the critical value of t with df − 1 degrees of freedom — is not taken from the grid: it is
  * evaluated in closed form at each R²dz (see `estimateBoundaryR2yz` and `significanceInterval`), and the
@@ -95,7 +96,12 @@ export function ovbContourPlot(result: OvbResult, options: OvbContourOptions): P
   const levels = contourLevels(result, kind, value, maxX, maxY, flipLevel);
   const gridValues = (bs: Float64Array, as: Float64Array) =>
     adjustedGrid(reported, result.direction, bs, as, kind, result.threshold);
-  const lines = kind === 'estimate' ? estimateLevelLines(result, levels, maxX, maxY) : levelLines(gridValues, levels, maxX, maxY, options.gridSize ?? 41);
+  const lines =
+    kind === 'estimate'
+      ? estimateLevelLines(result, levels, maxX, maxY)
+      : options.gridSize !== undefined
+        ? levelLines(gridValues, levels, maxX, maxY, options.gridSize)
+        : tLevelLines(result, levels, maxX, maxY);
   for (const line of lines) {
     for (const ring of line.rings) {
       marks.push({ kind: 'path', d: polylinePath(ring.map(([b, a]) => [frame.x(b), frame.y(a)] as const)), stroke: palette.contour, strokeWidth: 1, label: `${kindLabel(kind)} ${formatLevel(line.level, kind)}` });
@@ -405,6 +411,61 @@ function estimateLevelLines(result: OvbResult, levels: readonly number[], maxX: 
     let labelAt: [number, number] | null = null;
     let best = -Infinity;
     for (const p of ring) {
+      const score = p[0] / maxX + p[1] / maxY;
+      if (p[0] < 0.93 * maxX && p[1] < 0.95 * maxY && p[0] > 0.05 * maxX && score > best) {
+        best = score;
+        labelAt = p;
+      }
+    }
+    lines.push({ level, rings: [ring], labelAt });
+  }
+  return lines;
+}
+
+/**
+ * Level lines of the adjusted t (for the null value (1 − q)·β̂) in closed form along R²dz. With b = R²dz,
+ * R²yz = sin²θ, ℓ = sign(β̂)·τ/√(df − 1) and c = f_q·√(1 − b), the adjusted t equals τ where
+ * √b·sin θ + ℓ·cos θ = c (toward zero; two roots, joined at the tip R²dz = (f_q² − ℓ²)/(1 + f_q²)) or
+ * ℓ·cos θ − √b·sin θ = c (away from zero; one root).
+ */
+function tLevelLines(result: OvbResult, levels: readonly number[], maxX: number, maxY: number): LevelLine[] {
+  const sign = result.estimate < 0 ? -1 : 1;
+  const fqValue = fq(settingOf(result));
+  const lines: LevelLine[] = [];
+  const half = Math.PI / 2;
+  const toR2 = (theta: number) => (theta >= 0 && theta <= half ? Math.sin(theta) ** 2 : NaN);
+  for (const level of levels) {
+    const ell = (sign * level) / Math.sqrt(result.df - 1);
+    const tip = ((fqValue - ell) * (fqValue + ell)) / (1 + fqValue * fqValue);
+    const low: [number, number][] = [];
+    const high: [number, number][] = [];
+    for (const b of sweep(0, maxX, [tip], LEVEL_SAMPLES)) {
+      if (!(b < 1)) continue;
+      const c = fqValue * Math.sqrt(1 - b);
+      const radius = Math.hypot(Math.sqrt(b), ell);
+      let first = NaN;
+      let second = NaN;
+      if (result.direction === 'toward-zero') {
+        if (c <= radius * (1 + 1e-12)) {
+          const phi = Math.atan2(ell, Math.sqrt(b));
+          const s = Math.asin(Math.min(1, c / radius));
+          first = toR2(s - phi);
+          second = toR2(Math.PI - s - phi);
+        }
+      } else if (ell > 0 && c <= radius) {
+        first = toR2(Math.acos(Math.min(1, c / radius)) - Math.atan2(Math.sqrt(b), ell));
+      }
+      low.push([b, first <= maxY ? first : NaN]);
+      high.push([b, second <= maxY ? second : NaN]);
+    }
+    // One polyline: the upper root from right to left, then the lower root from left to right (they meet at
+    // the tip); NaN points break it where a root leaves the plot.
+    const ring: [number, number][] = [...high.slice().reverse(), ...low];
+    if (!ring.some(([, a]) => Number.isFinite(a))) continue;
+    let labelAt: [number, number] | null = null;
+    let best = -Infinity;
+    for (const p of ring) {
+      if (!Number.isFinite(p[1])) continue;
       const score = p[0] / maxX + p[1] / maxY;
       if (p[0] < 0.93 * maxX && p[1] < 0.95 * maxY && p[0] > 0.05 * maxX && score > best) {
         best = score;

@@ -79,6 +79,22 @@ describe('omitted-variable-bias plots', () => {
       expect(Math.abs(Math.abs(adj.t) - critical)).toBeLessThan(0.02 * critical);
     }
     expect(spec.description).toMatch(/robustness value at α = 0.05 is 34.3%/);
+    // the t level lines are exact as well, toward and away from zero, and agree with the grid version's levels
+    for (const direction of ['toward-zero', 'away-from-zero'] as const) {
+      const r = analyseOvb({ ...swissInput, direction });
+      const exact = ovbContourPlot(r, { kind: 't' });
+      const grid = ovbContourPlot(r, { kind: 't', gridSize: 41 });
+      const labels = (p: typeof exact) => p.marks.filter((m) => m.kind === 'path' && m.stroke === '#6b7785').map((m) => (m as { label?: string }).label).sort();
+      expect(new Set(labels(exact))).toEqual(new Set(labels(grid)));
+      const line = exact.marks.find((m) => m.kind === 'path' && (m as { label?: string }).label === 'Adjusted t -4.00') as { d: string };
+      const vertices = [...line.d.matchAll(/([\d.]+),([\d.]+)/g)].map((m) => toData(exact, Number(m[1]), Number(m[2])));
+      expect(vertices.length).toBeGreaterThan(20);
+      for (const [b, a] of vertices) {
+        if (a >= exact.yAxis.domain[1] - 1e-3 || a < 1e-3) continue;
+        const adj = adjustForConfounder(swissInput as any, { r2dz: b, r2yz: a }, direction);
+        expect(Math.abs(adj.t + 4)).toBeLessThan(0.05);
+      }
+    }
   });
 
   test('other settings: away from zero, q < 1, a non-significant estimate, chosen axes', () => {
@@ -125,13 +141,14 @@ describe('omitted-variable-bias plots', () => {
         fc.double({ min: 0.1, max: 2, noNaN: true }),
         fc.constantFrom('toward-zero' as const, 'away-from-zero' as const),
         fc.constantFrom('estimate' as const, 't' as const),
-        (t, df, q, direction, kind) => {
+        fc.boolean(),
+        (t, df, q, direction, kind, grid) => {
           const r = analyseOvb({ estimate: t, se: 1, df, q, direction });
-          const spec = ovbContourPlot(r, { kind, gridSize: 21 });
+          const spec = ovbContourPlot(r, grid ? { kind, gridSize: 21 } : { kind });
           expect(renderSvgString(spec)).not.toMatch(/NaN|Infinity|undefined/);
         },
       ),
-      { numRuns: 60 },
+      { numRuns: 120 },
     );
   });
 
