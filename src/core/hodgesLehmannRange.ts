@@ -1,7 +1,7 @@
 import type { TailMethod } from './signedRankBound';
 import { biasProbabilities, boundingLowerTailTable } from './signedRankBound';
 import { upperNormalQuantile } from './upperNormalTail';
-import type { WalshAverages } from './walshAverages';
+import { walshMean, type WalshAverages } from './walshAverages';
 
 /** The additive effect under hidden bias at most Γ: the range of point estimates and the sensitivity interval. */
 export interface EffectUnderBias {
@@ -72,7 +72,7 @@ export function effectUnderBias(
   const estimateAt = (mu: number) => {
     const a = kthLargest(Math.ceil(mu));
     const b = Math.floor(mu) + 1 > N ? -Infinity : kthLargest(Math.floor(mu) + 1);
-    return (a + b) / 2;
+    return walshMean(a, b);
   };
   const estimateLow = estimateAt(plus * N);
   const estimateHigh = estimateAt(minus * N);

@@ -127,7 +127,15 @@ export function validatePairsInput(input: PairsInput): InputProblem[] {
         ),
       );
     }
-    if (problems.length === before) checkNonZero(outcomeDifferences(data.treated, data.control), 'data', problems);
+    if (problems.length === before) {
+      const differences = outcomeDifferences(data.treated, data.control);
+      const overflow = differences.findIndex((d) => !Number.isFinite(d));
+      if (overflow >= 0) {
+        problems.push(
+          inputProblem(`data.treated[${overflow}]`, 'difference-overflow', `the difference in pair ${overflow + 1} is too large to represent; rescale the outcomes`),
+        );
+      } else checkNonZero(differences, 'data', problems);
+    }
   } else if (data.kind === 'discordant') {
     for (const key of ['treatedOnly', 'controlOnly'] as const) {
       const v = data[key];

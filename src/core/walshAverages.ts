@@ -41,7 +41,7 @@ export function walshAverages(values: ArrayLike<number>, options: { store?: bool
   if (options.store ?? count <= STORE_LIMIT) {
     const all = new Float64Array(count);
     let a = 0;
-    for (let i = 0; i < n; i++) for (let j = i; j < n; j++) all[a++] = (sorted[i] + sorted[j]) / 2;
+    for (let i = 0; i < n; i++) for (let j = i; j < n; j++) all[a++] = walshMean(sorted[i], sorted[j]);
     all.sort();
     return Object.freeze({
       count,
@@ -52,6 +52,12 @@ export function walshAverages(values: ArrayLike<number>, options: { store?: bool
   return Object.freeze({ count, smallest: (k: number) => selector.smallest(k) });
 }
 
+/** (a + b)/2 without overflow for magnitudes near the largest double; the same formula everywhere. */
+export function walshMean(a: number, b: number): number {
+  const sum = a + b;
+  return Number.isFinite(sum) ? sum / 2 : a / 2 + b / 2;
+}
+
 /** #{(i ≤ j): (dᵢ + dⱼ)/2 ≤ τ} over sorted d, in O(n). */
 export function countWalshAtMost(sorted: Float64Array, tau: number): number {
   const n = sorted.length;
@@ -59,7 +65,7 @@ export function countWalshAtMost(sorted: Float64Array, tau: number): number {
   // For row i, the partners j ≥ i with average ≤ τ are i…hi−1; hi does not increase as i grows.
   let hi = n;
   for (let i = 0; i < n; i++) {
-    while (hi > i && (sorted[i] + sorted[hi - 1]) / 2 > tau) hi--;
+    while (hi > i && walshMean(sorted[i], sorted[hi - 1]) > tau) hi--;
     if (hi <= i) break;
     count += hi - i;
   }
@@ -161,9 +167,9 @@ class WalshSelector {
     let top = n; // partners j < top have average ≤ hi
     let bottom = n; // partners j < bottom have average ≤ lo
     for (let i = 0; i < n; i++) {
-      while (top > i && (sorted[i] + sorted[top - 1]) / 2 > hi) top--;
-      while (bottom > i && (sorted[i] + sorted[bottom - 1]) / 2 > lo) bottom--;
-      for (let j = Math.max(i, bottom); j < top; j++) between[a++] = (sorted[i] + sorted[j]) / 2;
+      while (top > i && walshMean(sorted[i], sorted[top - 1]) > hi) top--;
+      while (bottom > i && walshMean(sorted[i], sorted[bottom - 1]) > lo) bottom--;
+      for (let j = Math.max(i, bottom); j < top; j++) between[a++] = walshMean(sorted[i], sorted[j]);
     }
     const window = between.subarray(0, a).sort();
     return window[k - countLo - 1];
@@ -192,7 +198,7 @@ class WalshSelector {
       let i = Math.floor(next() * n);
       let j = Math.floor(next() * n);
       if (i > j) [i, j] = [j, i];
-      sample[s] = (sorted[i] + sorted[j]) / 2;
+      sample[s] = walshMean(sorted[i], sorted[j]);
     }
     this.sample = sample.sort();
     return this.sample;

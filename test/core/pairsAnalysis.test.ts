@@ -206,6 +206,20 @@ describe('non-mutation', () => {
   });
 });
 
+describe('huge magnitudes', () => {
+  test('differences near the largest double give finite estimates; overflowing differences are refused', () => {
+    const result = analysePairs({ data: { kind: 'differences', differences: [1.5e308, 1.6e308, -1e308, 1.7e308, 1.2e308] }, gammas: [1, 2] });
+    for (const e of result.estimates) {
+      expect(Number.isFinite(e.estimateLow) && Number.isFinite(e.estimateHigh)).toBe(true);
+    }
+    // The 8th of the 15 Walsh averages (−1, 0.1, 0.25, 0.3, 0.35, 1.2, 1.35, 1.4, … ×1e308), computed as a/2 + b/2
+    expectClose(result.estimate!, 1.4e308, { rel: 1e-15 });
+    const problems = validatePairsInput({ data: { kind: 'outcomes', treated: [1e308, 2, 3], control: [-1e308, 1, 1] } });
+    expect(problems.map((p) => p.code)).toEqual(['difference-overflow']);
+    expect(problems[0].message).toMatch(/pair 1 is too large/);
+  });
+});
+
 describe('decimal differences', () => {
   test('1.3 − 1.2 and 2.3 − 2.2 tie, as they do on paper', () => {
     const result = analysePairs({ data: { kind: 'outcomes', treated: [1.3, 2.3, 5, 7, 9], control: [1.2, 2.2, 1, 1, 1] }, gammas: [1] });
