@@ -185,18 +185,22 @@ export function ovbContourPlot(result: OvbResult, options: OvbContourOptions): P
   });
 }
 
-type Side = 'right' | 'left' | 'above' | 'below';
+/** Where a label goes relative to its point: offset of the text anchor and the anchor itself. */
+interface LabelSpot {
+  readonly dx: number;
+  readonly dy: number;
+  readonly anchor: 'start' | 'middle' | 'end';
+}
 
 /**
- * Chooses each labelled point's label side so that labels overlap neither each other nor other points, in
- * the order the points were added (the unadjusted point and the robustness value first). Text is about
- * 6.2 px per character at 11 px, as the SVG renderer draws it.
+ * Writes each labelled point's label as a text mark at the spot (of eight around the point) that hides the
+ * least of the other labels and points and stays inside the plot, in left-to-right order; the point keeps its
+ * label as its tooltip only. Text is about 6.2 px per character at 11 px, as the SVG renderer draws it.
  */
 function placePointLabels(marks: PlotMark[], inner: { left: number; right: number; top: number; bottom: number }): void {
   type Box = [number, number, number, number];
   const boxes: Box[] = [];
   const pointBoxes: Box[] = [];
-  // Left to right: a label on the right of an earlier point is then known when later points choose.
   const points = marks
     .map((m, i) => ({ m, i }))
     .filter((e) => e.m.kind === 'point')
@@ -206,47 +210,58 @@ function placePointLabels(marks: PlotMark[], inner: { left: number; right: numbe
     const r = m.size ?? 5;
     pointBoxes.push([m.x - r, m.y - r, m.x + r, m.y + r]);
   }
-  const boxFor = (x: number, y: number, r: number, w: number, side: Side): Box => {
-    const gap = r + 4;
-    if (side === 'right') return [x + gap, y - 8, x + gap + w, y + 6];
-    if (side === 'left') return [x - gap - w, y - 8, x - gap, y + 6];
-    if (side === 'above') return [x - w / 2, y - gap - 12, x + w / 2, y - gap + 2];
-    return [x - w / 2, y + gap - 2, x + w / 2, y + gap + 12];
-  };
+  const area = (a: Box, b: Box) => Math.max(0, Math.min(a[2], b[2]) - Math.max(a[0], b[0])) * Math.max(0, Math.min(a[3], b[3]) - Math.max(a[1], b[1]));
+  const labels: PlotMark[] = [];
   for (const { m, i } of points) {
     if (m.kind !== 'point' || !m.label) continue;
     const r = m.size ?? 5;
+    const gap = r + 4;
     const w = m.label.length * 6.2;
-    const preferred: Side = m.labelSide ?? 'right';
-    const sides: Side[] = [preferred, ...(['right', 'left', 'above', 'below'] as Side[]).filter((x) => x !== preferred)];
+    const spots: Record<string, LabelSpot> = {
+      right: { dx: gap, dy: 4, anchor: 'start' },
+      left: { dx: -gap, dy: 4, anchor: 'end' },
+      above: { dx: 0, dy: -gap, anchor: 'middle' },
+      below: { dx: 0, dy: gap + 9, anchor: 'middle' },
+      aboveRight: { dx: -r, dy: -gap, anchor: 'start' },
+      belowRight: { dx: -r, dy: gap + 9, anchor: 'start' },
+      aboveLeft: { dx: r, dy: -gap, anchor: 'end' },
+      belowLeft: { dx: r, dy: gap + 9, anchor: 'end' },
+    };
+    const boxOf = (spot: LabelSpot): Box => {
+      const x = m.x + spot.dx;
+      const y = m.y + spot.dy;
+      const x0 = spot.anchor === 'start' ? x : spot.anchor === 'end' ? x - w : x - w / 2;
+      return [x0, y - 11, x0 + w, y + 3];
+    };
     const own: Box = [m.x - r, m.y - r, m.x + r, m.y + r];
-    const area = (a: Box, b: Box) => Math.max(0, Math.min(a[2], b[2]) - Math.max(a[0], b[0])) * Math.max(0, Math.min(a[3], b[3]) - Math.max(a[1], b[1]));
-    // Cost: area hidden under other labels and points, plus area outside the plotting area (weighted more).
+    // Cost: area hidden under other labels; far more for hiding a point; most for leaving the plot.
     const cost = (box: Box) => {
       let c = 0;
       for (const b of boxes) c += area(b, box);
-      // a label must not hide another point: weigh that far more than overlapping text
       for (const b of pointBoxes) if (!(b[0] === own[0] && b[1] === own[1] && b[2] === own[2])) c += 60 * area(b, box);
       const full = (box[2] - box[0]) * (box[3] - box[1]);
-      const within = area(box, [inner.left, inner.top - 4, inner.right + 20, inner.bottom + 4]);
-      return c + 3 * (full - within);
+      const within = area(box, [inner.left, inner.top - 2, inner.right + 16, inner.bottom + 2]);
+      return c + 100 * (full - within);
     };
-    let chosen: Side = preferred;
-    let chosenBox = boxFor(m.x, m.y, r, w, preferred);
-    let best = cost(chosenBox);
-    for (const side of sides) {
+    const preferred = m.labelSide ?? 'right';
+    const order = [preferred, ...Object.keys(spots).filter((k) => k !== preferred)];
+    let chosen = spots[preferred];
+    let best = cost(boxOf(chosen));
+    for (const key of order) {
       if (best === 0) break;
-      const box = boxFor(m.x, m.y, r, w, side);
-      const c = cost(box);
+      const c = cost(boxOf(spots[key]));
       if (c < best) {
-        chosen = side;
-        chosenBox = box;
+        chosen = spots[key];
         best = c;
       }
     }
-    boxes.push(chosenBox);
-    marks[i] = { ...m, labelSide: chosen };
+    boxes.push(boxOf(chosen));
+    labels.push({ kind: 'text', x: m.x + chosen.dx, y: m.y + chosen.dy, text: m.label, anchor: chosen.anchor, color: palette.ink, size: 11 });
+    // The text mark draws the label; the point itself goes unlabelled.
+    const { label: _drawnAsText, ...point } = m;
+    marks[i] = point;
   }
+  marks.push(...labels);
 }
 
 /** The data coordinates under a pixel position of a contour plot (for read-outs), or null outside the plot. */

@@ -53,7 +53,7 @@ describe('omitted-variable-bias plots', () => {
       const adj = adjustForConfounder(swissInput as any, { r2dz: b, r2yz: a });
       expect(Math.abs(adj.estimate)).toBeLessThan(0.02 * Math.abs(swiss.estimate));
     }
-    const labels = spec.marks.filter((m) => m.kind === 'point').map((m) => (m as { label?: string }).label ?? '');
+    const labels = spec.marks.filter((m) => m.kind === 'text').map((m) => (m as { text: string }).text);
     expect(labels.some((l) => l.startsWith('1× Agriculture'))).toBe(true);
     expect(labels.some((l) => l.startsWith('unadjusted -0.871'))).toBe(true);
     expect(labels.some((l) => l.startsWith('RV 51.7%'))).toBe(true);
@@ -116,7 +116,8 @@ describe('omitted-variable-bias plots', () => {
     for (const t of [4.18, 30]) {
       const r = analyseOvb({ estimate: t, se: 1, df: 100 });
       const spec = ovbContourPlot(r, { kind: 't', maxR2dz: 0.95, maxR2yz: 0.95 });
-      const point = spec.marks.find((m) => m.kind === 'point' && (m as { label?: string }).label?.startsWith('RV at α')) as { x: number; y: number };
+      expect(spec.marks.some((m) => m.kind === 'text' && m.text.startsWith('RV at α'))).toBe(true);
+      const point = spec.marks.find((m) => m.kind === 'point' && m.shape === 'diamond') as { x: number; y: number };
       const [b, a] = toData(spec, point.x, point.y);
       expectClose(b, r.rvAlpha, { rel: 1e-9 });
       const adj = adjustForConfounder({ estimate: t, se: 1, df: 100 }, { r2dz: b, r2yz: a });
