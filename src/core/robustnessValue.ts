@@ -32,8 +32,8 @@ export function robustnessValue(t: number, df: number, q = 1): number {
  * **Method.** With f_q = q|t|/√df and f* = t* / √(df − 1), where t* is the 1 − α/2 quantile of Student's t with
  * df − 1 degrees of freedom (the confounder adds one regressor):
  *  - RV_{q,α} = 0 when f_q ≤ f* (already not significant);
- *  - RV_{q,α} = (f_q² − f*²)/(1 + f_q²) when f_q ≥ 1/f*, where a confounder that explains nearly all the
- *    outcome's residual variance is the cheapest one (the bound is reached off the diagonal);
+ *  - RV_{q,α} = (f_q² − f*²)/(1 + f_q²) when f_q ≥ 1/f*: then the cheapest such confounder lies off the
+ *    diagonal, with R²dz = RV_{q,α} and R²yz = RV_{q,α}/(RV_{q,α} + f*²) < RV_{q,α};
  *  - otherwise RV_{q,α} = ½(√(f_a⁴ + 4f_a²) − f_a²) with f_a = f_q − f* (the diagonal point, evaluated as
  *    2/(1 + √(1 + 4/f_a²))).
  * The two non-zero branches agree at f_q = 1/f*.
