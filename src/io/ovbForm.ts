@@ -1,5 +1,5 @@
 import { analyseOvb, validateOvbInput, type OvbBenchmarkInput, type OvbInput, type OvbResult } from '../core/ovbAnalysis';
-import { ovbRegressionSummary, type OvbRegressionSummary } from '../core/ovbRegression';
+import { ovbRegressionSummary, type OvbRegressionSpec, type OvbRegressionSummary } from '../core/ovbRegression';
 import { designFromCrossProducts } from '../core/crossProductFit';
 import { INTERCEPT_NAME, type TriangularDesign } from '../core/linearModel';
 import type { BiasDirection } from '../core/confounderAdjustment';
@@ -137,8 +137,8 @@ export interface OvbFormOutcome {
 }
 
 /**
- * Turns the form into the analysis. `design` is the regression data read from the chosen file (null until it
- * has been read; a file's column choices then need a new read). Problems name form fields: estimate, se, df,
+ * Turns the form into the analysis. `fileData` is the regression data read from the chosen file (null until
+ * it has been read; changing the file's column choices needs a new read). Problems name form fields: estimate, se, df,
  * n, parameters, covariateTs[i].outcomeT, k, q, alpha, r2dz, r2yz, plotMax, outcome, treatment, covariates,
  * benchmarks, summaryTable, summaryColumns, summaryResult.
  */
@@ -194,7 +194,7 @@ export function evaluateOvbForm(form: OvbFormInputs, fileData: FileRegression | 
 /** The regression data read from a file, and how its columns enter the analysis. */
 export interface FileRegression {
   readonly design: TriangularDesign;
-  readonly spec: import('../core/ovbRegression').OvbRegressionSpec;
+  readonly spec: OvbRegressionSpec;
 }
 
 /** The SQL to run for summary statistics, or a problem naming the missing field. */
@@ -233,7 +233,7 @@ function summaryRegression(form: OvbFormInputs, problems: InputProblem[]): OvbRe
   }
   const row = collect(problems, () => parseSummaryRow(form.summaryResult));
   if (!row) return null;
-  const design = collect(problems, () => designFromCrossProducts(crossProductsFromSqlRow(row, variables.map((column) => ({ column }))))) ;
+  const design = collect(problems, () => designFromCrossProducts(crossProductsFromSqlRow(row, variables.map((column) => ({ column })))));
   if (!design) return null;
   const covariates = variables.slice(0, -2);
   return collect(
