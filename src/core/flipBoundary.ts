@@ -39,7 +39,7 @@ const EMPTY: R2Interval = Object.freeze({ lower: NaN, upper: NaN, empty: true })
  */
 export function estimateBoundaryR2yz(setting: FlipSetting, r2dz: number): number {
   if (!validSetting(setting) || !(r2dz >= 0 && r2dz <= 1) || setting.direction !== 'toward-zero') return NaN;
-  const fq2 = fq(setting) ** 2;
+  const fq2 = scaledPartialF(setting) ** 2;
   if (r2dz === 0) return fq2 === 0 ? 0 : Infinity;
   return (fq2 * (1 - r2dz)) / r2dz;
 }
@@ -57,7 +57,7 @@ export function estimateBoundaryR2yz(setting: FlipSetting, r2dz: number): number
  */
 export function estimateBoundaryR2dz(setting: FlipSetting, r2yz: number): number {
   if (!validSetting(setting) || !(r2yz >= 0 && r2yz <= 1) || setting.direction !== 'toward-zero') return NaN;
-  const fq2 = fq(setting) ** 2;
+  const fq2 = scaledPartialF(setting) ** 2;
   if (fq2 === 0) return 0;
   return fq2 / (r2yz + fq2);
 }
@@ -85,7 +85,7 @@ export function estimateBoundaryR2dz(setting: FlipSetting, r2yz: number): number
 export function significanceBoundaryR2yz(setting: FlipSetting, r2dz: number): R2Interval {
   if (!validSetting(setting) || !(r2dz >= 0 && r2dz < 1)) return EMPTY;
   const fCritical = criticalF(setting.df, setting.alpha);
-  return significanceInterval(fq(setting), fCritical, r2dz, setting.direction);
+  return significanceInterval(scaledPartialF(setting), fCritical, r2dz, setting.direction);
 }
 
 /** {@link significanceBoundaryR2yz} with f_q and f* already computed (for plots that sweep R²dz). */
@@ -131,12 +131,15 @@ export function overturnsEstimate(setting: FlipSetting, strength: ConfounderStre
   if (!validSetting(setting) || setting.direction !== 'toward-zero') return false;
   const { r2dz, r2yz } = strength;
   if (!(r2dz >= 0 && r2dz <= 1 && r2yz >= 0 && r2yz <= 1)) return false;
-  if (r2dz === 1) return r2yz > 0 || fq(setting) === 0;
-  return (r2yz * r2dz) / (1 - r2dz) >= fq(setting) ** 2;
+  if (r2dz === 1) return r2yz > 0 || scaledPartialF(setting) === 0;
+  return (r2yz * r2dz) / (1 - r2dz) >= scaledPartialF(setting) ** 2;
 }
 
-/** f_q = q|t|/√df. */
-export function fq(setting: Pick<FlipSetting, 't' | 'df' | 'q'>): number {
+/**
+ * f_q = q·|t|/√df: q times the partial Cohen's f of the treatment with the outcome (Cinelli & Hazlett 2020, §4),
+ * the scale on which the robustness values and flip boundaries are written.
+ */
+export function scaledPartialF(setting: Pick<FlipSetting, 't' | 'df' | 'q'>): number {
   return (setting.q * Math.abs(setting.t)) / Math.sqrt(setting.df);
 }
 

@@ -2,7 +2,7 @@ import { contours } from 'd3-contour';
 import { scaleLinear } from 'd3-scale';
 import type { OvbResult } from '../core/ovbAnalysis';
 import { adjustForConfounder, adjustedGrid, type ConfounderStrength } from '../core/confounderAdjustment';
-import { estimateBoundaryR2yz, fq, significanceInterval, significanceRegionStart } from '../core/flipBoundary';
+import { estimateBoundaryR2yz, scaledPartialF, significanceInterval, significanceRegionStart } from '../core/flipBoundary';
 import { criticalF } from '../core/robustnessValue';
 import { formatNumber, formatPercent } from '../io/formatNumber';
 import { exposureLabel, outcomeLabel, type StudyLabels } from '../io/studyLabels';
@@ -137,7 +137,7 @@ export function ovbContourPlot(result: OvbResult, options: OvbContourOptions): P
   // confounder has R²dz = RV_{q,α} and R²yz = RV_{q,α}/(RV_{q,α} + f*²) (below the diagonal).
   const rvPoint = kind === 'estimate' ? result.rv : result.rvAlpha;
   const fCritical = criticalF(result.df, result.alpha);
-  const offDiagonal = kind === 't' && fq(settingOf(result)) * fCritical >= 1;
+  const offDiagonal = kind === 't' && scaledPartialF(settingOf(result)) * fCritical >= 1;
   const rvY = offDiagonal ? rvPoint / (rvPoint + fCritical * fCritical) : rvPoint;
   if (result.direction === 'toward-zero' && rvPoint > 0 && inDomain(rvPoint, rvY)) {
     marks.push({ kind: 'point', x: frame.x(rvPoint), y: frame.y(rvY), shape: 'diamond', color: palette.interval, size: 6, label: `${kind === 'estimate' ? 'RV' : 'RV at α'} ${formatPercent(rvPoint)}`, labelSide: 'left' });
@@ -288,7 +288,7 @@ function estimateBoundary(result: OvbResult, maxX: number, maxY: number): Bounda
   if (result.direction !== 'toward-zero') {
     return { curves: [], regions: [], label, legend: '', note: 'Confounding away from zero cannot bring the estimate to the threshold' };
   }
-  const f2 = fq(setting) ** 2;
+  const f2 = scaledPartialF(setting) ** 2;
   // The curve enters the plot where R²yz = maxY: R²dz = f²/(maxY + f²).
   const start = f2 / (maxY + f2);
   if (!(start < maxX)) return { curves: [], regions: [], label, legend: '', note: 'No confounder this weak can overturn the estimate' };
@@ -300,7 +300,7 @@ function estimateBoundary(result: OvbResult, maxX: number, maxY: number): Bounda
 
 /** The exact curve(s) where the adjusted t reaches the critical value, and the region between them. */
 function significanceBoundary(result: OvbResult, maxX: number, maxY: number): Boundary {
-  const fqValue = fq(settingOf(result));
+  const fqValue = scaledPartialF(settingOf(result));
   const fCritical = criticalF(result.df, result.alpha);
   const label = `Where the adjusted t reaches the critical value ${formatNumber(result.criticalT, { digits: 2 })}`;
   const startAt = significanceRegionStart(fqValue, fCritical, result.direction);
@@ -445,7 +445,7 @@ function estimateLevelLines(result: OvbResult, levels: readonly number[], maxX: 
  */
 function tLevelLines(result: OvbResult, levels: readonly number[], maxX: number, maxY: number): LevelLine[] {
   const sign = result.estimate < 0 ? -1 : 1;
-  const fqValue = fq(settingOf(result));
+  const fqValue = scaledPartialF(settingOf(result));
   const lines: LevelLine[] = [];
   const half = Math.PI / 2;
   const toR2 = (theta: number) => (theta >= 0 && theta <= half ? Math.sin(theta) ** 2 : NaN);
