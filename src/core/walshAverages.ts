@@ -37,11 +37,16 @@ const STORE_LIMIT = 2_100_000;
 export function walshAverages(values: ArrayLike<number>, options: { store?: boolean } = {}): WalshAverages {
   const sorted = Float64Array.from(values).sort();
   const n = sorted.length;
+  if (n > 0 && Math.max(Math.abs(sorted[0]), Math.abs(sorted[n - 1])) > 8e307) {
+    // a + b could overflow: work with halved values (exact scaling by a power of two) and double the result.
+    const halved = walshAverages(sorted.map((v) => v / 2), options);
+    return Object.freeze({ count: halved.count, smallest: (k: number) => 2 * halved.smallest(k) });
+  }
   const count = (n * (n + 1)) / 2;
   if (options.store ?? count <= STORE_LIMIT) {
     const all = new Float64Array(count);
     let a = 0;
-    for (let i = 0; i < n; i++) for (let j = i; j < n; j++) all[a++] = walshMean(sorted[i], sorted[j]);
+    for (let i = 0; i < n; i++) for (let j = i; j < n; j++) all[a++] = (sorted[i] + sorted[j]) / 2;
     all.sort();
     return Object.freeze({
       count,
@@ -52,7 +57,7 @@ export function walshAverages(values: ArrayLike<number>, options: { store?: bool
   return Object.freeze({ count, smallest: (k: number) => selector.smallest(k) });
 }
 
-/** (a + b)/2 without overflow for magnitudes near the largest double; the same formula everywhere. */
+/** (a + b)/2 without overflow for magnitudes near the largest double. */
 export function walshMean(a: number, b: number): number {
   const sum = a + b;
   return Number.isFinite(sum) ? sum / 2 : a / 2 + b / 2;
@@ -65,7 +70,7 @@ export function countWalshAtMost(sorted: Float64Array, tau: number): number {
   // For row i, the partners j ≥ i with average ≤ τ are i…hi−1; hi does not increase as i grows.
   let hi = n;
   for (let i = 0; i < n; i++) {
-    while (hi > i && walshMean(sorted[i], sorted[hi - 1]) > tau) hi--;
+    while (hi > i && (sorted[i] + sorted[hi - 1]) / 2 > tau) hi--;
     if (hi <= i) break;
     count += hi - i;
   }
@@ -167,9 +172,9 @@ class WalshSelector {
     let top = n; // partners j < top have average ≤ hi
     let bottom = n; // partners j < bottom have average ≤ lo
     for (let i = 0; i < n; i++) {
-      while (top > i && walshMean(sorted[i], sorted[top - 1]) > hi) top--;
-      while (bottom > i && walshMean(sorted[i], sorted[bottom - 1]) > lo) bottom--;
-      for (let j = Math.max(i, bottom); j < top; j++) between[a++] = walshMean(sorted[i], sorted[j]);
+      while (top > i && (sorted[i] + sorted[top - 1]) / 2 > hi) top--;
+      while (bottom > i && (sorted[i] + sorted[bottom - 1]) / 2 > lo) bottom--;
+      for (let j = Math.max(i, bottom); j < top; j++) between[a++] = (sorted[i] + sorted[j]) / 2;
     }
     const window = between.subarray(0, a).sort();
     return window[k - countLo - 1];
@@ -198,7 +203,7 @@ class WalshSelector {
       let i = Math.floor(next() * n);
       let j = Math.floor(next() * n);
       if (i > j) [i, j] = [j, i];
-      sample[s] = walshMean(sorted[i], sorted[j]);
+      sample[s] = (sorted[i] + sorted[j]) / 2;
     }
     this.sample = sample.sort();
     return this.sample;

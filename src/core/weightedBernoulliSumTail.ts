@@ -1,3 +1,5 @@
+import { upperNormalTail } from './upperNormalTail';
+
 /**
  * The exact upper tail P(Σ wᵢ·Bᵢ ≥ t) of a weighted sum of independent Bernoulli(p) variables with
  * non-negative integer weights — the bounding null distribution of a signed-rank statistic under bias Γ
@@ -41,11 +43,27 @@ export function weightedBernoulliSumUpperTail(weights: ArrayLike<number>, t: num
     const below = sortedLowerTail(sorted, complement, p, q, ABSOLUTE_NEGLIGIBLE);
     if (1 - below >= 1e-3) return 1 - below;
   }
-  // First with negligible sums dropped (error ≤ (m + 1)·1e-30); when the answer is small, again with a
-  // threshold scaled to it, so the relative error stays below about 1e-16 however far out the tail is.
-  const rough = sortedLowerTail(sorted, direct, q, p, ABSOLUTE_NEGLIGIBLE);
-  if (rough > (direct + 1) * ABSOLUTE_NEGLIGIBLE * 1e16) return rough;
-  return sortedLowerTail(sorted, direct, q, p, rough > 0 ? (rough * 1e-17) / (direct + 1) : 0);
+  return prunedLowerTail(sorted, direct, q, p);
+}
+
+/**
+ * P(Σ wᵢBᵢ ≤ m) with partial sums of negligible probability dropped, to about 1e-16 relative accuracy.
+ * The threshold is set from the normal approximation of the answer with six orders of magnitude to spare
+ * (the dropped total is at most (m + 1)·threshold); if the answer turns out smaller than that allows, the
+ * tail is computed again with a threshold scaled to it (or none).
+ */
+function prunedLowerTail(sorted: Float64Array, m: number, p: number, q: number): number {
+  let mean = 0;
+  let variance = 0;
+  for (let i = 0; i < sorted.length; i++) {
+    mean += p * sorted[i];
+    variance += p * q * sorted[i] * sorted[i];
+  }
+  const approximate = variance > 0 ? upperNormalTail((mean - m - 0.5) / Math.sqrt(variance)) : 1;
+  const negligible = Math.min(ABSOLUTE_NEGLIGIBLE, (approximate * 1e-23) / (m + 1));
+  const rough = sortedLowerTail(sorted, m, p, q, negligible);
+  if (negligible > 0 && rough * 1e-16 >= (m + 1) * negligible) return rough;
+  return sortedLowerTail(sorted, m, p, q, rough > 0 ? (rough * 1e-17) / (m + 1) : 0);
 }
 
 /** Probability below which a partial sum is dropped in the first pass (see `sortedLowerTail`). */

@@ -133,6 +133,15 @@ describe('Walsh averages', () => {
       { numRuns: 200 },
     );
   });
+  test('values near the largest double: no overflow, stored and counted agree', () => {
+    const d = [1.5e308, 1.6e308, -1e308, 1.7e308, 1.2e308, -1.79e308];
+    const stored = walshAverages(d, { store: true });
+    const counted = walshAverages(d, { store: false });
+    for (let k = 1; k <= stored.count; k++) {
+      expect(Number.isFinite(stored.smallest(k))).toBe(true);
+      expect(counted.smallest(k)).toBe(stored.smallest(k));
+    }
+  });
   test('counting handles one big block of equal averages (all differences equal)', () => {
     const walsh = walshAverages(new Float64Array(5000).fill(0.25), { store: false });
     expect(walsh.smallest(1)).toBe(0.25);
