@@ -7,7 +7,7 @@ import { criticalF } from '../core/robustnessValue';
 import { formatNumber, formatPercent } from '../io/formatNumber';
 import { exposureLabel, outcomeLabel, type StudyLabels } from '../io/studyLabels';
 import { plainNumber } from '../io/ovbText';
-import { createFrame, type Frame } from './frame';
+import { createFrame } from './frame';
 import { palette } from './palette';
 import { polygonPath, polylinePath } from './pathData';
 import type { DataTable, LegendItem, PlotMark, PlotSpec } from './plotSpec';
@@ -262,13 +262,6 @@ function placePointLabels(marks: PlotMark[], inner: { left: number; right: numbe
     marks[i] = point;
   }
   marks.push(...labels);
-}
-
-/** The data coordinates under a pixel position of a contour plot (for read-outs), or null outside the plot. */
-export function ovbPlotPoint(frame: Frame, px: number, py: number): ConfounderStrength | null {
-  const b = frame.invertX(px);
-  const a = frame.invertY(py);
-  return b >= 0 && a >= 0 && b < 1 && a < 1 ? { r2dz: b, r2yz: a } : null;
 }
 
 interface Boundary {
