@@ -215,6 +215,7 @@ export class LurkOvb extends LitElement {
                   <progress id="progress" max="1" .value=${this.progress.fraction}></progress>`
               : nothing}
             ${this.dataNote ? html`<p class="hint" id="data-note">${this.dataNote}</p>` : nothing}
+            ${this.textField('categorical', 'Numeric columns that are categories', f.categorical, (v) => this.refitNeeded({ categorical: v }), 'e.g. a region code; separated by commas')}
             ${this.textField('benchmarks', 'Covariates to compare with', f.benchmarks, (v) => ({ benchmarks: v }), 'Default: each covariate. Names separated by commas; a group as a+b.')}`
         : nothing}
     `;
@@ -286,7 +287,7 @@ export class LurkOvb extends LitElement {
   private textField(field: string, label: string, value: string, change: (text: string) => Partial<OvbFormInputs>, hint = ''): TemplateResult {
     const id = fieldId(field);
     const problem = this.problemFor(field);
-    const numeric = !/name|benchmarks|summary|outcome$|treatment$/.test(field) || /T$/.test(field);
+    const numeric = !/name|benchmarks|categorical|summary|outcome$|treatment$/.test(field) || /T$/.test(field);
     return html`<div class="field">
       <label for=${id}>${label}</label>
       <input
@@ -462,6 +463,13 @@ export class LurkOvb extends LitElement {
     this.edit({ [key]: column, covariates: this.form.covariates.filter((c) => c !== column) });
   }
 
+  /** An edit that changes how the file is read: the fitted data no longer applies. */
+  private refitNeeded(change: Partial<OvbFormInputs>): Partial<OvbFormInputs> {
+    this.fileData = null;
+    this.dataNote = '';
+    return change;
+  }
+
   private toggleCovariate(column: string, checked: boolean): void {
     this.fileData = null;
     this.dataNote = '';
@@ -510,7 +518,12 @@ export class LurkOvb extends LitElement {
     try {
       const data = await runRegressionInWorker(
         this.file,
-        { outcome: f.outcome, treatment: f.treatment, covariates: f.covariates.filter((c) => c !== f.outcome && c !== f.treatment) },
+        {
+          outcome: f.outcome,
+          treatment: f.treatment,
+          covariates: f.covariates.filter((c) => c !== f.outcome && c !== f.treatment),
+          categorical: f.categorical.split(',').map((c) => c.trim()).filter((c) => c !== ''),
+        },
         {
           signal: abort.signal,
           onProgress: (p) => (this.progress = { fraction: p.totalBytes ? Math.min(1, p.bytesRead / p.totalBytes) : 0, rows: p.rowsRead }),

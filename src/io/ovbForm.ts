@@ -40,6 +40,8 @@ export interface OvbFormInputs {
   readonly treatment: string;
   /** Chosen covariate columns (file and summary statistics). */
   readonly covariates: readonly string[];
+  /** Numeric columns to dummy-code as categories (e.g. a region code), separated by commas. */
+  readonly categorical: string;
   /** Benchmarks as text: names separated by commas, a group joined by "+"; empty for every covariate. */
   readonly benchmarks: string;
   /** Summary statistics: the table the query reads, and its pasted result (JSON object, or CSV header + row). */
@@ -71,6 +73,7 @@ export function emptyOvbForm(): OvbFormInputs {
     outcome: '',
     treatment: '',
     covariates: Object.freeze([]),
+    categorical: '',
     benchmarks: '',
     summaryTable: '',
     summaryColumns: '',
@@ -110,6 +113,7 @@ export function normaliseOvbForm(saved: unknown): OvbFormInputs {
     outcome: text('outcome'),
     treatment: text('treatment'),
     covariates: Object.freeze(strings(s.covariates)),
+    categorical: text('categorical'),
     benchmarks: text('benchmarks'),
     summaryTable: text('summaryTable'),
     summaryColumns: text('summaryColumns'),

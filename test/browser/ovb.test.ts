@@ -142,6 +142,20 @@ describe('<lurk-ovb>', () => {
     expect(text('#rv')).toBe('');
   }, 90_000);
 
+  it('dummy-codes a numeric column named as a category and shows its reference level', async () => {
+    await page.getByLabelText('A CSV file of the data').click();
+    const csv = 'y,d,region\n1,2,1\n2,1,2\n4,3,3\n3,5,1\n5,2,2\n6,1,3\n2,4,1\n7,3,2\n';
+    await userEvent.upload(page.getByLabelText('CSV file', { exact: true }), new File([csv], 'regions.csv', { type: 'text/csv' }));
+    await until(() => shadow().querySelector('#column-outcome') !== null);
+    await userEvent.selectOptions(page.getByLabelText('Outcome', { exact: true }), 'y');
+    await userEvent.selectOptions(page.getByLabelText('Treatment (exposure)'), 'd');
+    await userEvent.fill(page.getByLabelText('Numeric columns that are categories'), 'region');
+    await userEvent.click(page.getByRole('button', { name: 'Fit the regression' }));
+    await until(() => text('#rv') !== '');
+    expect(text('#data-note')).toMatch(/region is dummy-coded with reference level “1”/);
+    expect(events.filter((e) => e.type === 'lurk-inputs-change').at(-1)?.detail.inputs.categorical).toBe('region');
+  });
+
   it('reports a constant treatment by name', async () => {
     await page.getByLabelText('A CSV file of the data').click();
     const csv = 'y,d,x\n1,2,3\n2,2,1\n4,2,7\n3,2,2\n5,2,9\n';
