@@ -182,7 +182,17 @@ export function evaluateOvbForm(form: OvbFormInputs, fileData: FileRegression | 
     started = form.summaryResult.trim() !== '';
     regression = summaryRegression(form, problems);
   }
-  if (regression) base = { estimate: regression.estimate, se: regression.se, df: regression.df, benchmarks: regression.benchmarks };
+  if (regression && !(regression.df > 1)) {
+    problems.push(
+      inputProblem(
+        form.source === 'file' ? 'file' : 'summaryResult',
+        'too-few-rows',
+        `has too few complete rows for this model: ${regression.n} rows and ${regression.n - regression.df} coefficients leave ${regression.df} residual degrees of freedom; at least 2 are needed.`,
+      ),
+    );
+  } else if (regression) {
+    base = { estimate: regression.estimate, se: regression.se, df: regression.df, benchmarks: regression.benchmarks };
+  }
   let result: OvbResult | null = null;
   if (base && problems.length === 0) {
     const input: OvbInput = { ...base, ...settings };

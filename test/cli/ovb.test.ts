@@ -151,9 +151,18 @@ describe('lurk ovb', () => {
       [['--file', 'missing.csv', '--outcome', 'a', '--treatment', 'b'], /^lurk ovb: --file: cannot read "missing.csv"/],
       [['--file', 'const.csv', '--outcome', 'y', '--treatment', 'd'], /^lurk ovb: --treatment: "d" is constant/],
       [['--file', 'text.csv', '--outcome', 'y', '--treatment', 'd'], /^lurk ovb: /],
+      [['--file', 'collinear.csv', '--outcome', 'y', '--treatment', 'd'], /^lurk ovb: --covariates: "z" is a linear combination of "x"/],
+      [['--file', 'short.csv', '--outcome', 'y', '--treatment', 'd'], /^lurk ovb: --file: needs more rows than coefficients/],
+      [['--file', 'df1.csv', '--outcome', 'y', '--treatment', 'd'], /^lurk ovb: --file: has too few complete rows for this model: 4 rows and 3 coefficients leave 1/],
       [['--wrong'], /^lurk ovb: --wrong: is not an option/],
     ];
-    const files = { 'const.csv': 'y,d,x\n1,2,3\n2,2,1\n4,2,7\n3,2,2\n5,2,9\n', 'text.csv': 'y,d\n1,2\n2,x\n3,4\n5,1\n' };
+    const files = {
+      'const.csv': 'y,d,x\n1,2,3\n2,2,1\n4,2,7\n3,2,2\n5,2,9\n',
+      'text.csv': 'y,d\n1,2\n2,x\n3,4\n5,1\n',
+      'collinear.csv': 'y,d,x,z\n1,2,3,6\n2,1,1,2\n4,3,7,14\n3,5,2,4\n5,2,9,18\n6,1,1,2\n',
+      'short.csv': 'y,d,x\n1,2,3\n2,1,1\n4,3,7\n',
+      'df1.csv': 'y,d,x\n1,2,3\n2,1,1\n4,3,7\n3,5,2\n',
+    };
     for (const [args, message] of cases) {
       const { code, err, out } = await lurk(args, files);
       expect(code, args.join(' ')).toBe(2);

@@ -88,6 +88,9 @@ describe('the regression form', () => {
     const bad = evaluateOvbForm(form({ source: 'file', fileName: 'swiss.csv', benchmarks: 'Age' }), fileData);
     expect(bad.problems.map((p) => `${p.field}:${p.code}`)).toEqual(['benchmarks:not-a-covariate']);
     expect(evaluateOvbForm(form({ source: 'file', fileName: 'swiss.csv' }), null).problems[0].field).toBe('file');
+    const tiny = regressionDataFromText('y,d,x\n1,2,3\n2,1,1\n4,3,7\n3,5,2\n', { outcome: 'y', treatment: 'd' });
+    const few = evaluateOvbForm(form({ source: 'file', fileName: 'tiny.csv' }), { design: tiny.design, spec: ovbSpecFromRegressionData(tiny) });
+    expect(few.problems.map((p) => `${p.field}:${p.code}`)).toEqual(['file:too-few-rows']);
   });
 
   it('writes the SQL and reads the pasted result as JSON or CSV', () => {

@@ -165,6 +165,13 @@ export const command: LurkCommand = {
           extra = { rowsUsed: summary.n, outcome, treatment, covariates };
           study = { exposure: treatment, outcome };
         }
+        if (!(summary.df > 1)) {
+          const source = values.file !== undefined ? '--file' : '--summary';
+          throw new UsageError(
+            source,
+            `has too few complete rows for this model: ${summary.n} rows and ${summary.n - summary.df} coefficients leave ${summary.df} residual degrees of freedom; the sensitivity analysis needs at least 2`,
+          );
+        }
         input = { estimate: summary.estimate, se: summary.se, df: summary.df, benchmarks: summary.benchmarks, ...defined(settings) };
       } else {
         input = {
@@ -312,6 +319,7 @@ const FIELD_OPTIONS: [RegExp, string][] = [
   [/^scenario\.r2dz$/, '--r2dz'],
   [/^scenario\.r2yz$/, '--r2yz'],
   [/^file$/, '--file'],
+  [/^rowCount$/, '--file'],
 ];
 
 async function renameFields<T>(run: () => T | Promise<T>, onOther?: (error: unknown) => never): Promise<T> {
