@@ -57,6 +57,10 @@ describe('lurk ovb', () => {
     expect(catholic.unavailable).toMatch(/treatment/);
     const chosen = await lurk(['--estimate', '-0.87', '--se', '0.183', '--df', '41', '--covariate-t', 'a=2:1,b=1', '--benchmark', 'a', '--k', '1', '--json']);
     expect(JSON.parse(chosen.out).benchmarks.map((r: any) => r.covariate)).toEqual(['a']);
+    // partial R²s given directly (R 4.2.2, ovb.json swiss: R²dxj and R²yxj of Agriculture)
+    const byR2 = await lurk(['--estimate', String(swiss.estimate), '--se', String(swiss.se), '--df', '41', '--covariate-r2', `Agriculture=${b.R2yxj}:${100 * b.R2dxj}%`, '--json']);
+    expectClose(JSON.parse(byR2.out).benchmarks[0].r2yz, b.bounds[0].r2yz, { rel: 1e-12 });
+    expect((await lurk(['--estimate', '1', '--se', '1', '--df', '41', '--covariate-r2', 'a=1.5'])).err).toMatch(/^lurk ovb: --covariate-r2: must be a partial R² in \[0, 1\)/);
     const unknown = await lurk(['--estimate', '-0.87', '--se', '0.183', '--df', '41', '--covariate-t', 'a=2:1', '--benchmark', 'c']);
     expect(unknown.err).toMatch(/^lurk ovb: --benchmark: "c" is not among the --covariate-t entries \(a\)/);
   });

@@ -24,6 +24,7 @@ const OPTIONS: OptionKinds = {
   n: { type: 'string' },
   parameters: { type: 'string' },
   'covariate-t': { type: 'string' },
+  'covariate-r2': { type: 'string' },
   file: { type: 'string' },
   summary: { type: 'string' },
   sql: { type: 'string' },
@@ -63,6 +64,8 @@ Options:
                   (with reported numbers: a choice among the --covariate-t names)
   --covariate-t   with reported numbers: a covariate's t in the outcome regression and, if known, in the
                   regression of the treatment on the covariates (needed for its bounds), e.g. age=2.4:-2.6
+  --covariate-r2  with reported numbers: a covariate's partial R² with the outcome and, if known, with the
+                  treatment (fractions or percentages), e.g. age=0.04:1.2%
   --k             multiples for the bounds (default ${DEFAULT_BENCHMARK_MULTIPLES.join(',')})
   --q             fraction of the estimate to explain away (default 1: all of it)
   --alpha         significance level (default 0.05)
@@ -94,7 +97,7 @@ export const command: LurkCommand = {
         return v.trim();
       };
       const list = (name: string): string[] | undefined => text(name)?.split(',').map((s) => s.trim()).filter((s) => s !== '');
-      const reported = ['estimate', 'se', 'df', 'n', 'parameters', 'covariate-t'].filter((o) => values[o] !== undefined);
+      const reported = ['estimate', 'se', 'df', 'n', 'parameters', 'covariate-t', 'covariate-r2'].filter((o) => values[o] !== undefined);
       const sources = ['file', 'summary', 'sql'].filter((o) => values[o] !== undefined);
       if (sources.length > 1) throw new UsageError(`--${sources[1]}`, `cannot be combined with --${sources[0]}`);
       if (sources.length === 1 && reported.length > 0) {
@@ -181,7 +184,7 @@ export const command: LurkCommand = {
             df: numberOption(values.df, '--df'),
             n: numberOption(values.n, '--n'),
             parameters: numberOption(values.parameters, '--parameters'),
-            benchmarks: chooseBenchmarks(covariateTOption(text('covariate-t')), list('benchmark')),
+            benchmarks: chooseBenchmarks(joinLists(covariateTOption(text('covariate-t')), covariateR2Option(text('covariate-r2'))), list('benchmark')),
           }),
           ...defined(settings),
         };
@@ -249,7 +252,27 @@ function covariateTOption(value: string | undefined): OvbBenchmarkInput[] | unde
   });
 }
 
-/** With reported numbers, --benchmark picks among the --covariate-t entries. */
+/** NAME=R2_OUTCOME[:R2_TREATMENT],... (partial R²s as fractions or percentages) → benchmark inputs. */
+function covariateR2Option(value: string | undefined): OvbBenchmarkInput[] | undefined {
+  if (value === undefined) return undefined;
+  const fraction = (text: string): number => {
+    const trimmed = text.trim();
+    const n = numberOption(trimmed.replace(/%$/, ''), '--covariate-r2')!;
+    return trimmed.endsWith('%') ? n / 100 : n;
+  };
+  return value.split(',').map((part, i) => {
+    const m = /^\s*([^=]+?)\s*=\s*([^:]+?)\s*(?::\s*(.+?)\s*)?$/.exec(part);
+    if (!m) throw new UsageError('--covariate-r2', `item ${i + 1} must look like NAME=R2_OUTCOME or NAME=R2_OUTCOME:R2_TREATMENT, got "${part}"`);
+    const r2yxj = fraction(m[2]);
+    return m[3] === undefined ? { covariate: m[1], r2yxj } : { covariate: m[1], r2yxj, r2dxj: fraction(m[3]) };
+  });
+}
+
+function joinLists<T>(a: T[] | undefined, b: T[] | undefined): T[] | undefined {
+  return a === undefined && b === undefined ? undefined : [...(a ?? []), ...(b ?? [])];
+}
+
+/** With reported numbers, --benchmark picks among the --covariate-t and --covariate-r2 entries. */
 function chooseBenchmarks(all: OvbBenchmarkInput[] | undefined, names: string[] | undefined): OvbBenchmarkInput[] | undefined {
   if (names === undefined) return all;
   const known = (all ?? []).map((b) => b.covariate);
@@ -313,7 +336,8 @@ function readFailure(path: string) {
 const FIELD_OPTIONS: [RegExp, string][] = [
   [/^covariates\[\d+\]$/, '--covariates'],
   [/^categorical\[\d+\]$/, '--categorical'],
-  [/^benchmarks\[\d+\]\.(outcomeT|treatmentT|r2yxj|r2dxj|covariate)$/, '--covariate-t'],
+  [/^benchmarks\[\d+\]\.(outcomeT|treatmentT|covariate)$/, '--covariate-t'],
+  [/^benchmarks\[\d+\]\.(r2yxj|r2dxj)$/, '--covariate-r2'],
   [/^benchmarks\[\d+\]$/, '--benchmark'],
   [/^k\[\d+\]$/, '--k'],
   [/^scenario\.r2dz$/, '--r2dz'],
