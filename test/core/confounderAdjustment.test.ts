@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { adjustForConfounder, omittedVariableBias } from '../../src/core/confounderAdjustment';
+import { adjustForConfounder, adjustedGrid, omittedVariableBias } from '../../src/core/confounderAdjustment';
 import { expectClose } from '../support/expectClose';
 import { fromFixtureNumber, readReferenceJson } from '../support/reference';
 
@@ -77,6 +77,32 @@ describe('adjustForConfounder', () => {
           const y1 = adjustForConfounder({ estimate, se, df }, { r2dz: a, r2yz: lo }, direction).estimate;
           const y2 = adjustForConfounder({ estimate, se, df }, { r2dz: a, r2yz: hi }, direction).estimate;
           expect(sign * (y2 - y1)).toBeGreaterThanOrEqual(-1e-12 * Math.abs(estimate));
+        },
+      ),
+    );
+  });
+
+  it('the grid form agrees with the one-point form everywhere, including 0 and 1 (fast-check)', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: -100, max: 100, noNaN: true }),
+        fc.double({ min: 1e-3, max: 10, noNaN: true }),
+        fc.integer({ min: 2, max: 10000 }),
+        fc.array(fc.oneof(fc.constantFrom(0, 1), fc.double({ min: 0, max: 1, noNaN: true })), { minLength: 1, maxLength: 5 }),
+        fc.array(fc.oneof(fc.constantFrom(0, 1), fc.double({ min: 0, max: 1, noNaN: true })), { minLength: 1, maxLength: 5 }),
+        fc.constantFrom('toward-zero' as const, 'away-from-zero' as const),
+        fc.double({ min: -5, max: 5, noNaN: true }),
+        (estimate, se, df, bs, as, direction, nullValue) => {
+          const est = adjustedGrid({ estimate, se, df }, direction, bs, as, 'estimate');
+          const t = adjustedGrid({ estimate, se, df }, direction, bs, as, 't', nullValue);
+          as.forEach((a, j) =>
+            bs.forEach((b, i) => {
+              const one = adjustForConfounder({ estimate, se, df }, { r2dz: b, r2yz: a }, direction);
+              const same = (x: number, y: number) => (Number.isNaN(y) ? Number.isNaN(x) : !Number.isFinite(y) ? x === y : Math.abs(x - y) <= 1e-12 * Math.max(1, Math.abs(y)));
+              expect(same(est[j * bs.length + i], one.estimate)).toBe(true);
+              expect(same(t[j * bs.length + i], (one.estimate - nullValue) / one.se)).toBe(true);
+            }),
+          );
         },
       ),
     );
