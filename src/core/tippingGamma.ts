@@ -122,20 +122,47 @@ export function tippingGamma(pUpper: (gamma: number) => number, alpha: number, o
     }
   }
 
-  // Illinois iterations on [lo, hi] with F(lo) ≤ 0 < F(hi).
+  // Illinois iterations on [lo, hi] with F(lo) ≤ 0 < F(hi). With a model, a step instead goes to where the
+  // model crosses α after correcting it by the log-ratio bound/model interpolated linearly between the two
+  // ends (the bound's own values at both ends are matched exactly, so the root stays bracketed); near the
+  // root that correction is almost exact. Once a prediction lies within the tolerance of an end, the step
+  // goes just past it so that the bracket closes.
+  const logModel = (x: number) => Math.log(options.model!(Math.exp(x)));
+  const predict = (): number => {
+    if (!options.model || !Number.isFinite(trueLo) || !Number.isFinite(trueHi)) return NaN;
+    const rLo = trueLo - logModel(lo);
+    const rHi = trueHi - logModel(hi);
+    if (!Number.isFinite(rLo) || !Number.isFinite(rHi)) return NaN;
+    const G = (x: number) => logModel(x) + rLo + ((rHi - rLo) * (x - lo)) / (hi - lo);
+    let a = lo;
+    let b = hi;
+    for (let k = 0; k < 80 && b - a > tolerance / 64; k++) {
+      const mid = (a + b) / 2;
+      if (G(mid) <= 0) a = mid;
+      else b = mid;
+    }
+    return (a + b) / 2;
+  };
+  let trueLo = flo;
+  let trueHi = fhi;
   let side = 0;
   for (let i = 0; i < 200 && hi - lo > tolerance; i++) {
-    let next = Number.isFinite(flo) ? hi - (fhi * (hi - lo)) / (fhi - flo) : (lo + hi) / 2;
+    let next = i < 8 ? predict() : NaN;
+    if (Number.isFinite(next)) {
+      if (next - lo < tolerance / 2) next = lo + tolerance * 0.75;
+      else if (hi - next < tolerance / 2) next = hi - tolerance * 0.75;
+    }
+    if (!(next > lo && next < hi)) next = Number.isFinite(flo) ? hi - (fhi * (hi - lo)) / (fhi - flo) : (lo + hi) / 2;
     if (!(next > lo && next < hi)) next = (lo + hi) / 2;
     const f = F(next);
     if (f <= 0) {
       lo = next;
-      flo = f;
+      flo = trueLo = f;
       if (side === -1) fhi /= 2;
       side = -1;
     } else {
       hi = next;
-      fhi = f;
+      fhi = trueHi = f;
       if (side === 1 && Number.isFinite(flo)) flo /= 2;
       side = 1;
     }
