@@ -59,10 +59,12 @@ export function ovbContourPlot(result: OvbResult, options: OvbContourOptions): P
   const outcome = outcomeLabel(options.study);
   const scenario = options.scenario ?? result.scenario;
   const [maxX, maxY] = axisMaxima(result, options, scenario);
+  const boundary = kind === 'estimate' ? estimateBoundary(result, maxX, maxY) : significanceBoundary(result, maxX, maxY);
   const frame = createFrame({
     width,
     height,
-    margin: { left: 64, right: 24, top: 16, bottom: 56 },
+    // A note about the boundary goes above the plotting area, where it cannot cover lines or labels.
+    margin: { left: 64, right: 24, top: boundary.note ? 30 : 16, bottom: 56 },
     x: { domain: [0, maxX], label: `Partial R² of the confounder with ${exposure}, R²(D~Z|X)`, tickFormat: percentTick },
     y: { domain: [0, maxY], label: `Partial R² with ${outcome}, R²(Y~Z|D,X)`, tickFormat: percentTick },
   });
@@ -76,7 +78,6 @@ export function ovbContourPlot(result: OvbResult, options: OvbContourOptions): P
   const flipLevel = kind === 'estimate' ? result.threshold : Math.sign(result.estimate || 1) * result.criticalT;
   const marks: PlotMark[] = [];
   const legend: LegendItem[] = [];
-  const boundary = kind === 'estimate' ? estimateBoundary(result, maxX, maxY) : significanceBoundary(result, maxX, maxY);
 
   // Shaded region beyond the flip boundary (at the back).
   for (const polygon of boundary.regions) {
@@ -126,7 +127,7 @@ export function ovbContourPlot(result: OvbResult, options: OvbContourOptions): P
   }
   if (boundary.curves.length > 0) legend.push({ label: boundary.legend, color: palette.interval, swatch: 'line', dash: '7 3' });
   if (boundary.note) {
-    marks.push({ kind: 'text', x: inner.right - 8, y: inner.top + 16, text: boundary.note, anchor: 'end', color: palette.ink, size: 11 });
+    marks.push({ kind: 'text', x: inner.right, y: inner.top - 8, text: boundary.note, anchor: 'end', color: palette.ink, size: 11 });
   }
 
   // Points: the unadjusted estimate, the robustness value, benchmarks, the chosen strength.
