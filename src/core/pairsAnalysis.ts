@@ -336,6 +336,8 @@ export function analysePairs(input: PairsInput): PairsResult {
 
   const gammas = input.gammas ? [...input.gammas] : defaultGammaGrid(tipping);
   const rows: PairsRow[] = gammas.map((gamma) => {
+    // At Γ = 1 both bounds are the ordinary p-value, already computed by the search.
+    if (gamma === 1) return Object.freeze({ gamma, pUpper: tipping.pAtOne, pLower: tipping.pAtOne });
     const bound =
       test === 'sign' || !ranks ? signTestBound(favourable, nonZero, gamma, tailOptions) : signedRankBound(ranks, gamma, tailOptions);
     return Object.freeze({ gamma, pUpper: bound.pUpper, pLower: bound.pLower });
