@@ -65,6 +65,8 @@ export class LurkOvb extends LitElement {
   @state() private readouts: Record<string, string> = {};
 
   private abort: AbortController | null = null;
+  /** The confounder strength under the pointer on a contour plot, for a click. */
+  private lastPointer: { x: number; y: number } | null = null;
   private outcome: OvbFormOutcome = evaluateOvbForm(this.form, null);
   private specs: { estimate: PlotSpec; t: PlotSpec; extreme: PlotSpec } | null = null;
   private evaluatedFor: unknown = undefined;
@@ -340,13 +342,23 @@ export class LurkOvb extends LitElement {
       <p class="caution" role="note">${OVB_CAUTION}</p>
       ${result.scenario ? this.scenarioLine(result) : nothing} ${this.benchmarkTable(result)}
       <div class="plots">
+        <p class="hint" id="plot-hint">Point at a contour plot to read the adjusted values there; click to try that confounder.</p>
         <lurk-plot
           id="plot-estimate"
+          aria-describedby="plot-hint"
           .spec=${specs.estimate}
           .readout=${this.readouts.estimate ?? ''}
           @lurk-plot-pointer=${(e: CustomEvent<PlotPointerDetail>) => this.onPointer('estimate', e)}
+          @click=${this.onPlotClick}
         ></lurk-plot>
-        <lurk-plot id="plot-t" .spec=${specs.t} .readout=${this.readouts.t ?? ''} @lurk-plot-pointer=${(e: CustomEvent<PlotPointerDetail>) => this.onPointer('t', e)}></lurk-plot>
+        <lurk-plot
+          id="plot-t"
+          aria-describedby="plot-hint"
+          .spec=${specs.t}
+          .readout=${this.readouts.t ?? ''}
+          @lurk-plot-pointer=${(e: CustomEvent<PlotPointerDetail>) => this.onPointer('t', e)}
+          @click=${this.onPlotClick}
+        ></lurk-plot>
         <lurk-plot id="plot-extreme" .spec=${specs.extreme}></lurk-plot>
       </div>
     `;
@@ -556,9 +568,19 @@ export class LurkOvb extends LitElement {
     this.abort?.abort();
   }
 
+  /** A click on a contour plot (not on its buttons) takes the strength under the pointer as the one to try. */
+  private onPlotClick(event: MouseEvent): void {
+    const onFigure = event.composedPath().some((node) => node instanceof SVGSVGElement);
+    const at = this.lastPointer;
+    if (!onFigure || !at) return;
+    const percent = (v: number) => `${(Math.round(v * 1000) / 10).toString()}%`;
+    this.edit({ r2dz: percent(at.x), r2yz: percent(at.y) });
+  }
+
   private onPointer(kind: 'estimate' | 't', event: CustomEvent<PlotPointerDetail>): void {
     const result = this.outcome.result;
     const { x, y, inside } = event.detail;
+    this.lastPointer = inside && x >= 0 && x < 1 && y >= 0 && y < 1 ? { x, y } : null;
     if (!result || !inside || !(x >= 0 && x < 1 && y >= 0 && y <= 1)) {
       this.readouts = { ...this.readouts, [kind]: '' };
       return;

@@ -103,6 +103,11 @@ describe('<lurk-ovb>', () => {
     await userEvent.hover(page.elementLocator(svg), { position: { x: box.width * 0.4, y: box.height * 0.5 } });
     await settle();
     expect((plot as HTMLElement & { readout: string }).readout).toMatch(/adjusted estimate .*SE .*t /);
+    // Clicking there tries that confounder: its strength fills the fields and the adjusted values appear.
+    await userEvent.click(page.elementLocator(svg), { position: { x: box.width * 0.4, y: box.height * 0.5 } });
+    await settle();
+    expect((shadow().querySelector('#r2dz') as HTMLInputElement).value).toMatch(/^\d+(\.\d)?%$/);
+    expect(text('#scenario')).toMatch(/would give an adjusted estimate of/);
 
     // A viewport that fits the runner's window, so the screenshot is not scaled down.
     await page.viewport(1200, 700);
