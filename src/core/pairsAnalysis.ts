@@ -14,7 +14,13 @@ export type PairsData =
   /** The two outcomes of each pair (same length; difference = treated − control). */
   | { readonly kind: 'outcomes'; readonly treated: ArrayLike<number>; readonly control: ArrayLike<number> }
   /** A binary outcome: counts of discordant pairs. */
-  | { readonly kind: 'discordant'; readonly treatedOnly: number; readonly controlOnly: number };
+  | {
+      readonly kind: 'discordant';
+      readonly treatedOnly: number;
+      readonly controlOnly: number;
+      /** Pairs where both or neither had the event, when known (counted in n; they carry no information). */
+      readonly concordant?: number;
+    };
 
 export type PairsTest = 'signrank' | 'sign';
 export type PairsAlternative = 'greater' | 'less';
@@ -137,8 +143,9 @@ export function validatePairsInput(input: PairsInput): InputProblem[] {
       } else checkNonZero(differences, 'data', problems);
     }
   } else if (data.kind === 'discordant') {
-    for (const key of ['treatedOnly', 'controlOnly'] as const) {
+    for (const key of ['treatedOnly', 'controlOnly', 'concordant'] as const) {
       const v = data[key];
+      if (key === 'concordant' && v === undefined) continue;
       if (!(typeof v === 'number' && Number.isInteger(v) && v >= 0)) {
         problems.push(inputProblem(`data.${key}`, 'not-count', 'must be a whole number of pairs, 0 or more', v));
       }
@@ -286,10 +293,11 @@ export function analysePairs(input: PairsInput): PairsResult {
     const d = data as Extract<PairsData, { kind: 'discordant' }>;
     favourable = direction === 1 ? d.treatedOnly : d.controlOnly;
     nonZero = d.treatedOnly + d.controlOnly;
-    n = nonZero;
-    zeros = 0;
+    n = nonZero + (d.concordant ?? 0);
+    zeros = d.concordant ?? 0;
   }
-  if (zeros > 0) warnings.push(`${zeros} ${zeros === 1 ? 'pair has' : 'pairs have'} a difference of zero and ${zeros === 1 ? 'was' : 'were'} left out of the test.`);
+  if (zeros > 0 && !differences) warnings.push(`${zeros} concordant ${zeros === 1 ? 'pair' : 'pairs'} (both or neither had the event) carry no information and ${zeros === 1 ? 'was' : 'were'} left out of the test.`);
+  else if (zeros > 0) warnings.push(`${zeros} ${zeros === 1 ? 'pair has' : 'pairs have'} a difference of zero and ${zeros === 1 ? 'was' : 'were'} left out of the test.`);
   if (ranks?.tiedMagnitudes) warnings.push('Some differences have equal sizes; they share average ranks (handled exactly).');
 
   let tailMethod: TailMethod;

@@ -184,9 +184,9 @@ export function createPairsReader(spec: PairsColumns, options: { dialect?: Parti
           else if (a.values[i] === 0 && b.values[i] === 1) controlOnly++;
         }
         binary = true;
-        data = { kind: 'discordant', treatedOnly, controlOnly };
+        data = { kind: 'discordant', treatedOnly, controlOnly, concordant: a.length - treatedOnly - controlOnly };
         warnings.push(
-          `Both columns hold only 0 and 1, so the outcome is binary: ${treatedOnly} pairs where only the treated unit had the event, ${controlOnly} where only the control did (${a.length - treatedOnly - controlOnly} concordant pairs do not count).`,
+          `Both columns hold only 0 and 1, so the outcome is binary: ${treatedOnly} pairs where only the treated unit had the event, ${controlOnly} where only the control did.`,
         );
       } else {
         data = { kind: 'outcomes', treated: a.toArray(), control: b.toArray() };

@@ -66,6 +66,15 @@ describe('binary outcomes', () => {
     expect(result.test).toBe('sign');
     expect(result.warnings.join(' ')).toMatch(/sign test was used/);
   });
+  test('concordant pairs count in n but not in the test', () => {
+    const result = analysePairs({ data: { kind: 'discordant', treatedOnly: 30, controlOnly: 10, concordant: 60 }, gammas: [1] });
+    const without = analysePairs({ data: { kind: 'discordant', treatedOnly: 30, controlOnly: 10 }, gammas: [1] });
+    expect(result.n).toBe(100);
+    expect(result.nonZero).toBe(40);
+    expect(result.rows).toEqual(without.rows);
+    expect(result.warnings.join(' ')).toMatch(/60 concordant pairs/);
+    expect(validatePairsInput({ data: { kind: 'discordant', treatedOnly: 3, controlOnly: 1, concordant: -1 } })[0].field).toBe('data.concordant');
+  });
   test('alternative less swaps the counts', () => {
     const a = analysePairs({ data: { kind: 'discordant', treatedOnly: 30, controlOnly: 10 }, gammas: [1, 2] });
     const b = analysePairs({ data: { kind: 'discordant', treatedOnly: 10, controlOnly: 30 }, alternative: 'less', gammas: [1, 2] });

@@ -64,7 +64,7 @@ describe('adversarial CSV files', () => {
     const csv = 't,c\n1,0\n1,0\n0,1\n1,1\n0,0\n1,0\n';
     const read = pairsFromCsvText(csv, { treated: 't', control: 'c' });
     expect(read.binary).toBe(true);
-    expect(read.data).toEqual({ kind: 'discordant', treatedOnly: 3, controlOnly: 1 });
+    expect(read.data).toEqual({ kind: 'discordant', treatedOnly: 3, controlOnly: 1, concordant: 2 });
     expect(pairsFromCsvText(csv, { treated: 't', control: 'c', outcome: 'numeric' }).data.kind).toBe('outcomes');
     expect(problemOf(() => pairsFromCsvText('t,c\n1,2\n', { treated: 't', control: 'c', outcome: 'binary' })).code).toBe('not-binary');
   });
