@@ -81,8 +81,9 @@ export interface PairsResult {
   readonly signTestSensitivityValue: number | null;
   readonly rows: readonly PairsRow[];
   /**
-   * The same bounds on a finer Γ grid for drawing (41 points from 1 to the last tabulated Γ), computed the
-   * same way as the rows; just the rows when the exact tails are too slow to repeat (over 300 pairs).
+   * The same bounds on a finer Γ grid for drawing (41 points from 1 to the largest tabulated Γ, 21 for exact
+   * signed-rank tails over 100 pairs), computed the same way as the rows; just the rows when the exact tails
+   * are too slow to repeat (over 300 pairs).
    */
   readonly curve: readonly PairsRow[];
   /** Hodges–Lehmann estimate at Γ = 1 (signed-rank test with numeric outcomes only). */
@@ -355,8 +356,9 @@ export function analysePairs(input: PairsInput): PairsResult {
   const top = Math.max(...gammas);
   const curve: PairsRow[] = [];
   if (curveCheap && top > 1) {
-    for (let i = 0; i <= 40; i++) {
-      const gamma = 1 + ((top - 1) * i) / 40;
+    const steps = tailMethod === 'exact' && test === 'signrank' && nonZero > 100 ? 20 : 40;
+    for (let i = 0; i <= steps; i++) {
+      const gamma = 1 + ((top - 1) * i) / steps;
       const bound =
         test === 'sign' || !ranks ? signTestBound(favourable, nonZero, gamma, tailOptions) : signedRankBound(ranks, gamma, tailOptions);
       curve.push(Object.freeze({ gamma, pUpper: bound.pUpper, pLower: bound.pLower }));
