@@ -31,6 +31,12 @@ export function formatAsTyped(x: number | null | undefined): string {
   return String(Number(x.toPrecision(6)));
 }
 
+/** A count or rank sum with thousands separators ("1,000,000"; a half-integer keeps its ".5"). */
+export function formatCount(x: number): string {
+  if (!Number.isFinite(x)) return 'not available';
+  return x.toLocaleString('en-US', { maximumFractionDigits: 1 });
+}
+
 /** "p = 0.0123" or "p < 0.0001". */
 export function pPhrase(p: number): string {
   const text = formatPValue(p);
@@ -181,11 +187,11 @@ export function pairsTable(result: PairsResult, study?: Partial<StudyLabels>): {
 export function pairsReportText(result: PairsResult, study?: Partial<StudyLabels>): string {
   const lines: string[] = [];
   lines.push(`Matched pairs: ${result.method}`);
-  const used = `${result.n} pairs used` + (result.droppedRows > 0 ? ` (${result.droppedRows} rows with a missing value left out)` : '');
+  const used = `${formatCount(result.n)} pairs used` + (result.droppedRows > 0 ? ` (${formatCount(result.droppedRows)} rows with a missing value left out)` : '');
   const informative =
     result.test === 'signrank'
-      ? `${result.nonZero} non-zero differences, ${result.zeroDifferences} zero; T = ${formatAsTyped(result.statistic)}`
-      : `${result.nonZero} informative (discordant or non-tied) pairs, ${result.favourable} favouring the alternative`;
+      ? `${formatCount(result.nonZero)} non-zero differences, ${formatCount(result.zeroDifferences)} zero; T = ${formatCount(result.statistic)}`
+      : `${formatCount(result.nonZero)} informative (discordant or non-tied) pairs, ${formatCount(result.favourable)} favouring the alternative`;
   lines.push(`${used}; ${informative}.`);
   lines.push(
     `Alternative: treatment ${result.alternative === 'greater' ? 'raises' : 'lowers'} the outcome (one-sided), α = ${formatAsTyped(result.alpha)}. Tails: ${result.tailMethodReason}${result.tailMethod === 'normal' && result.continuityCorrection ? ', with a ½ continuity correction' : ''}.`,
