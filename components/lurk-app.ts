@@ -192,16 +192,21 @@ export class LurkApp extends LitElement {
   /** A message about loading, saving or sharing, shown in the toolbar. */
   @property() notice = '';
 
-  @state() private summaries: Partial<Record<CalculatorName, CalculatorSummary | null>> = {};
   @state() private batchText = '';
   @state() private batchAlpha = '0.05';
+
+  /**
+   * Summaries that came with a loaded appraisal. A calculator whose data are not in the file (a CSV file, or pasted
+   * rows left out of a share link) cannot recompute its result, so its saved summary stands until the user edits it.
+   */
+  private loadedSummaries: Partial<Record<CalculatorName, CalculatorSummary | null>> = {};
 
   /** The appraisal as it stands: study labels, inputs as typed, and the summaries of the results. */
   get appraisal(): Appraisal {
     const calculators: Partial<Record<CalculatorName, CalculatorEntry>> = {};
     for (const name of ['evalue', 'pairs', 'regression'] as const) {
       const inputs = this.inputs[name];
-      const summary = this.summaries[name] ?? null;
+      const summary = this.summaryOf(name);
       if (inputs || summary) calculators[name] = { inputs: (inputs ?? {}) as Record<string, unknown>, summary };
     }
     return createAppraisal(this.study, calculators);
@@ -211,27 +216,21 @@ export class LurkApp extends LitElement {
   load(appraisal: Appraisal): void {
     this.study = appraisal.study;
     const inputs: Partial<Record<WorkspaceView, Record<string, unknown>>> = {};
-    for (const [name, entry] of Object.entries(appraisal.calculators)) if (entry) inputs[name as WorkspaceView] = entry.inputs;
-    this.inputs = inputs;
-    this.summaries = {};
-    void this.collectSummaries();
-  }
-
-  protected override firstUpdated(): void {
-    void this.collectSummaries();
-  }
-
-  /** Reads each calculator's summary once it has rendered its inputs (set by the page, not typed). */
-  private async collectSummaries(): Promise<void> {
-    await this.updateComplete;
-    const next: Partial<Record<CalculatorName, CalculatorSummary | null>> = {};
-    for (const [view, name] of Object.entries(CALCULATOR_OF) as [WorkspaceView, CalculatorName][]) {
-      const element = this.renderRoot.querySelector<CalculatorElement>(`#panel-${view} [data-calculator]`);
-      if (!element) continue;
-      await element.updateComplete;
-      next[name] = element.summary ?? null;
+    const summaries: Partial<Record<CalculatorName, CalculatorSummary | null>> = {};
+    for (const [name, entry] of Object.entries(appraisal.calculators) as [CalculatorName, CalculatorEntry | undefined][]) {
+      if (!entry) continue;
+      inputs[name] = entry.inputs;
+      summaries[name] = entry.summary;
     }
-    this.summaries = next;
+    this.inputs = inputs;
+    this.loadedSummaries = summaries;
+  }
+
+  /** A calculator's current summary: from its element when it has a result, else the one loaded with the file. */
+  private summaryOf(name: CalculatorName): CalculatorSummary | null {
+    const view = (Object.entries(CALCULATOR_OF) as [WorkspaceView, CalculatorName][]).find(([, n]) => n === name)?.[0];
+    const element = this.renderRoot?.querySelector<CalculatorElement>(`#panel-${view} [data-calculator]`);
+    return element?.summary ?? this.loadedSummaries[name] ?? null;
   }
 
   override render() {
@@ -307,8 +306,7 @@ export class LurkApp extends LitElement {
     if (event.type === 'lurk-inputs-change' && event.detail.inputs) {
       this.inputs = { ...this.inputs, [view]: event.detail.inputs };
     }
-    const element = event.currentTarget as CalculatorElement;
-    this.summaries = { ...this.summaries, [name]: element.summary ?? null };
+    if (event.type === 'lurk-inputs-change') delete this.loadedSummaries[name];
     this.changed();
   }
 

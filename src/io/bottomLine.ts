@@ -2,6 +2,7 @@ import type { Appraisal } from './appraisal';
 import type { EValueSummary, OvbSummary, PairsSummary } from './calculatorSummaries';
 import { formatNumber, formatPercent } from './formatNumber';
 import { exposureLabel, outcomeLabel } from './studyLabels';
+import { formatGamma } from './pairsText';
 
 /**
  * The bottom line for decision-makers: in plain words, how strong a hidden confounder would have to be,
@@ -59,7 +60,7 @@ export function buildBottomLine(appraisal: Appraisal): BottomLine {
   const p = appraisal.calculators.pairs?.summary as PairsSummary | null | undefined;
   if (p?.kind === 'pairs' && p.pValue !== null) {
     if (p.sensitivityValue !== null) {
-      const g = two(p.sensitivityValue);
+      const g = formatGamma(p.sensitivityValue);
       howStrong.push(
         `In the matched comparison, the finding holds unless a hidden factor made otherwise similar people differ in their chances of ${exposure} by more than ${g} to 1 (Γ = ${g}).`,
       );

@@ -2,6 +2,7 @@ import type { Appraisal } from './appraisal';
 import type { EValueSummary, OvbSummary, PairsSummary } from './calculatorSummaries';
 import { formatNumber, formatPercent, formatPValue } from './formatNumber';
 import { exposureLabel, outcomeLabel } from './studyLabels';
+import { formatGamma } from './pairsText';
 
 /**
  * The robustness statement: a paragraph per calculator used, ready to paste into the sensitivity-analysis
@@ -126,7 +127,7 @@ function pairsParagraph(p: PairsSummary, exposure: string, outcome: string, unit
     const amp = p.amplification?.find((a) => a.lambda !== null && a.delta !== null);
     if (amp) {
       parts.push(
-        `By amplification ${cite(REFERENCES.amplification)}, Γ = ${gamma(p.sensitivityValue)} is equivalent, for example, to an unobserved covariate that multiplies the odds of ${exposure} by ${gamma(amp.lambda)} and the odds of a higher ${outcome} by ${gamma(amp.delta)}.`,
+        `By amplification ${cite(REFERENCES.amplification)}, Γ = ${gamma(p.sensitivityValue)} is equivalent, for example, to an unobserved covariate that multiplies the odds of ${exposure} by ${num(amp.lambda)} and the odds of a ${p.alternative === 'less' ? 'lower' : 'higher'} ${outcome} by ${num(amp.delta)}.`,
       );
     }
   } else if (p.sensitivityStatus === 'beyond-range') {
@@ -138,7 +139,7 @@ function pairsParagraph(p: PairsSummary, exposure: string, outcome: string, unit
   if (p.estimate !== null) {
     let sentence = `The Hodges–Lehmann estimate of the effect is ${num(p.estimate)}${unit}`;
     if (p.rangeAt && p.rangeAt.gamma !== null && p.rangeAt.gamma > 1) {
-      sentence += `; under hidden bias up to Γ = ${gamma(p.rangeAt.gamma)} the possible estimates range from ${num(p.rangeAt.estimateLow)} to ${num(p.rangeAt.estimateHigh)}${unit}`;
+      sentence += `; under hidden bias up to Γ = ${num(p.rangeAt.gamma)} the possible estimates range from ${num(p.rangeAt.estimateLow)} to ${num(p.rangeAt.estimateHigh)}${unit}`;
       if (p.rangeAt.intervalLow !== null && p.rangeAt.intervalHigh !== null) {
         sentence += `, and the ${num((1 - (p.alpha ?? 0.05)) * 100)}% sensitivity interval is ${num(p.rangeAt.intervalLow)} to ${num(p.rangeAt.intervalHigh)}${unit}`;
       }
@@ -268,8 +269,9 @@ function ratio(value: number | null | undefined): string {
   return formatNumber(value, { digits: 2 });
 }
 
+/** A sensitivity value, floored to 3 decimals as everywhere (rounding up would overstate the robustness). */
 function gamma(value: number | null | undefined): string {
-  return formatNumber(value, { digits: 2 });
+  return formatGamma(value);
 }
 
 function int(value: number | null | undefined): string {

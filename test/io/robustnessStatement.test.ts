@@ -14,7 +14,7 @@ const study = { finding: 'A fictional finding', exposure: 'cycling to work', out
 function appraisal(): Appraisal {
   // VanderWeele & Ding 2017 worked example: RR 3.9 (95% CI 1.8–8.7) → E-values 7.26 and 3.00
   const e = analyseEValue({ measure: 'rr', estimate: 3.9, lower: 1.8, upper: 8.7 });
-  // R 4.2.2 (rosenbaum.json, small_n15): signed-rank sensitivity value 1.612 (exact)
+  // R 4.2.2 (rosenbaum.json, small_n15): signed-rank sensitivity value 1.6118… (exact), shown floored to 1.611
   const p = analysePairs({ data: { kind: 'differences', differences: rosenbaum.datasets.small_n15.differences }, method: 'exact' });
   // Cinelli & Hazlett 2020 published example: t = 4.18, df = 783 → partial R² 2.2%, RV 13.9%, RV(α = 0.05) 7.6%
   const r = analyseOvb({ estimate: 4.18, se: 1, df: 783 });
@@ -32,7 +32,7 @@ describe('buildRobustnessStatement', () => {
   it('states the E-values, the tipping Γ and the robustness values computed from the inputs', () => {
     expect(text).toContain('E-value for the point estimate is 7.26');
     expect(text).toContain('the E-value is 3.00');
-    expect(text).toContain('up to Γ = 1.61');
+    expect(text).toContain('up to Γ = 1.611');
     expect(text).toContain('The robustness value is 13.9%');
     expect(text).toContain('at least 7.6% of both');
     expect(text).toContain('explains 2.2% of the residual variance');
@@ -74,7 +74,7 @@ describe('renderRobustnessStatement', () => {
     const tex = renderRobustnessStatement(statement, 'tex');
     expect(tex).toContain('\\subsection*{');
     expect(tex).toContain('13.9\\%');
-    expect(tex).toContain('$\\Gamma$ = 1.61');
+    expect(tex).toContain('$\\Gamma$ = 1.611');
     expect(tex).toContain('\\begin{enumerate}');
     expect(latex('a_b & 50% {x} R² ≥ 1')).toBe('a\\_b \\& 50\\% \\{x\\} R$^2$ $\\geq$ 1');
   });
@@ -93,7 +93,7 @@ describe('buildBottomLine', () => {
     const line = buildBottomLine(appraisal());
     expect(line.empty).toBe(false);
     expect(line.howStrong[0]).toContain('at least 7.26 times as likely');
-    expect(line.howStrong[1]).toContain('by more than 1.61 to 1');
+    expect(line.howStrong[1]).toContain('by more than 1.611 to 1');
     expect(line.howStrong[2]).toContain('at least 13.9%');
     expect(line.caution).toMatch(/does not prove/);
     expect(line.caution).toMatch(/domain experts, local guidance and licensed practice/);
