@@ -169,7 +169,7 @@ export class LurkBatch extends LitElement {
       <div class="row-tools">
         <button type="button" @click=${() => this.download(result)}>Download results as CSV</button>
       </div>
-      <div class="table-scroll">
+      <div class="table-scroll" tabindex="0" role="region" aria-label="Results table (scrolls sideways)">
         <table>
           <caption class="visually-hidden">E-values and robustness values of each finding; choose a column heading to sort</caption>
           <thead>

@@ -376,7 +376,7 @@ export class LurkOvb extends LitElement {
   private benchmarkTable(result: OvbResult): TemplateResult | typeof nothing {
     if (result.benchmarks.length === 0) return nothing;
     return html`<h3>Confounders as strong as measured covariates</h3>
-      <div class="table-scroll">
+      <div class="table-scroll" tabindex="0" role="region" aria-label="Benchmark table (scrolls sideways)">
         <table id="benchmarks">
           <caption class="visually-hidden">Bounds on a confounder k times as strong as each covariate, and the estimate adjusted for it</caption>
           <thead>

@@ -470,7 +470,7 @@ export class LurkPairs extends LitElement {
       </p>
       <div class="reading">${pairsReading(result, this.study).map((s) => html`<p>${s}</p>`)}</div>
       ${notes.length > 0 ? html`<div class="warning" role="note">${notes.map((n) => html`<div>${n}</div>`)}</div>` : nothing}
-      <div class="table-scroll">
+      <div class="table-scroll" tabindex="0" role="region" aria-label="Sensitivity table (scrolls sideways)">
         <table id="bounds-table">
           <caption>
             Bounds on the one-sided p-value${result.estimates.length > 0 ? ', estimate range and sensitivity interval' : ''} by Γ

@@ -101,7 +101,7 @@ export class LurkPlot extends LitElement {
         </div>
         <details>
           <summary>Data table for this figure</summary>
-          <div class="table-scroll">
+          <div class="table-scroll" tabindex="0" role="region" aria-label="Figure data (scrolls sideways)">
             <table part="table">
               <caption class="visually-hidden">${spec.table.caption}</caption>
               <thead>

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
+import { fileURLToPath } from 'node:url';
 import type { Page } from 'playwright-core';
 import { artifactPath, openSession, type BrowserSession } from '../support/browserSession';
 
@@ -32,18 +33,30 @@ describe('the appraisal workspace in Chromium', () => {
     await session?.close();
   });
 
-  it('opens the fictional demo with the E-value calculator showing numbers', async () => {
+  it('opens the fictional demo with all three calculators showing numbers', async () => {
     const { page } = session;
+    // E-values of RR 0.72 (0.61–0.85): 1/0.72 = 1.389 → 1.389 + √(1.389·0.389) = 2.12; 1/0.85 → 1.63 (hand computation)
     await expect.poll(() => page.locator('#evalue-estimate').textContent()).toBe('2.12');
     await expect.poll(() => page.locator('#evalue-interval').textContent()).toBe('1.63');
     await page.screenshot({ path: artifactPath('workspace-1280.png'), fullPage: true });
+    await openTab(page, 'Matched pairs');
+    await expect.poll(() => page.locator('lurk-pairs #tipping-gamma').textContent()).toMatch(/^\d+\.\d{3}$/);
+    await page.screenshot({ path: artifactPath('workspace-pairs-1280.png'), fullPage: true });
+    await openTab(page, 'Regression');
+    // Reported t = −4.1/1.2 with df 1482: RV = ½(√(f⁴ + 4f²) − f²), f = |t|/√df (Cinelli & Hazlett 2020) = 8.5%
+    await expect.poll(() => page.locator('lurk-ovb #rv').textContent()).toBe('8.5%');
+    await page.screenshot({ path: artifactPath('workspace-regression-1280.png'), fullPage: true });
+    expect(await page.locator('lurk-app').textContent()).not.toMatch(/NaN|undefined|Infinity/);
   });
 
-  it('writes a robustness statement with the E-value computed from the inputs, in three formats', async () => {
+  it('writes a robustness statement with the E-value, tipping Γ and RV computed from the inputs, in three formats', async () => {
     const { page } = session;
+    const tipping = await page.locator('lurk-pairs #tipping-gamma').textContent();
     await openTab(page, 'Robustness statement');
     const article = page.getByRole('article', { name: 'Robustness statement' });
     await expect.poll(() => article.textContent()).toContain('E-value for the point estimate is 2.12');
+    expect(await article.textContent()).toContain(`up to Γ = ${tipping}`);
+    expect(await article.textContent()).toContain('The robustness value is 8.5%');
     await page.getByRole('radio', { name: 'LaTeX' }).check();
     expect(await page.locator('#statement-text').inputValue()).toContain('\\subsection*{');
     await page.screenshot({ path: artifactPath('statement-1280.png'), fullPage: true });
@@ -91,7 +104,11 @@ describe('the appraisal workspace in Chromium', () => {
     const other = await browser.newPage();
     await other.goto(link);
     await other.locator('lurk-evalue').waitFor();
-    await expect.poll(() => currentAppraisal(other)).toEqual(before);
+    // A share link never carries raw data rows: the pasted pair differences stay behind, their summary travels.
+    const { pasted: _rows, ...pairsInputs } = (before.calculators as Record<string, { inputs: Record<string, unknown> }>).pairs.inputs;
+    const expected = structuredClone(before) as typeof before & { calculators: Record<string, { inputs: unknown }> };
+    expected.calculators.pairs.inputs = pairsInputs;
+    await expect.poll(() => currentAppraisal(other)).toEqual(expected);
     await other.close();
   });
 
@@ -106,6 +123,24 @@ describe('the appraisal workspace in Chromium', () => {
     await other.locator('lurk-app').waitFor();
     await expect.poll(() => other.getByRole('status').filter({ hasText: 'was changed after it was made' }).count()).toBeGreaterThan(0);
     await other.close();
+  });
+
+  it('loads a CSV of pairs through the file input and exports a figure', async () => {
+    const { page } = session;
+    await openTab(page, 'Matched pairs');
+    await page.locator('lurk-pairs').getByLabel('A CSV file of pairs').check();
+    await page.locator('lurk-pairs').getByLabel('The finding').selectOption('greater');
+    await page.locator('lurk-pairs').getByLabel('CSV file', { exact: true }).setInputFiles(fileURLToPath(new URL('../reference/rosenbaum_small_n15.csv', import.meta.url)));
+    // R 4.2.2 (rosenbaum.json, small_n15): exact signed-rank sensitivity value 1.6118…, floored to 1.611
+    await expect.poll(() => page.locator('lurk-pairs #tipping-gamma').textContent()).toBe('1.611');
+    const [svg] = await Promise.all([page.waitForEvent('download'), page.locator('lurk-pairs lurk-plot').first().getByRole('button', { name: /as SVG/ }).click()]);
+    expect(svg.suggestedFilename()).toMatch(/\.svg$/);
+    const [png] = await Promise.all([page.waitForEvent('download'), page.locator('lurk-pairs lurk-plot').first().getByRole('button', { name: /as PNG/ }).click()]);
+    const pngPath = artifactPath('exported-figure.png');
+    await png.saveAs(pngPath);
+    const bytes = new Uint8Array(readFileSync(pngPath));
+    // PNG width from the IHDR chunk: 3.5 inches at 300 dpi
+    expect(new DataView(bytes.buffer).getUint32(16)).toBe(1050);
   });
 
   it('made no request beyond its own origin during the whole session', () => {
