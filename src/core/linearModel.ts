@@ -417,7 +417,10 @@ function upperTriangularInverse(r: Float64Array, k: number): Float64Array {
  */
 export function partialR2FromT(t: number, df: number): number {
   if (!Number.isFinite(t)) return Number.isNaN(t) ? NaN : 1;
-  return (t * t) / (t * t + df);
+  if (t === 0) return 0;
+  // 1/(1 + df/t²), with df/t² formed as (df/|t|)/|t| so that |t| above 1e154 does not overflow t².
+  const a = Math.abs(t);
+  return 1 / (1 + df / a / a);
 }
 
 /**

@@ -1,10 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { execFileSync, spawnSync } from 'node:child_process';
+import { spawnSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { runLurk } from '../../src/cli/main';
 import { memoryIo } from '../../src/cli/cliIo';
 import { expectClose } from '../support/expectClose';
 import { readReferenceJson, referencePath } from '../support/reference';
+import { buildCliForTest } from '../support/builtCli';
 
 const ovb = readReferenceJson('ovb.json');
 const swiss = ovb.swiss;
@@ -226,10 +227,10 @@ describe('lurk ovb', () => {
     expect(out).toMatch(/--covariate-t/);
   });
 
-  it('runs as the built command', () => {
-    const built = 'dist/cli/lurk.js';
-    // build from the current sources (a stale dist/ would test old code)
-    execFileSync('npm', ['run', 'build:cli'], { stdio: 'ignore' });
+  it('runs as the built command', async () => {
+    // Built from the current sources into a folder of its own (a stale or shared dist/ would test other code).
+    const cli = await buildCliForTest();
+    const built = cli.lurk;
     expect(existsSync(built)).toBe(true);
     const result = spawnSync('node', [built, 'ovb', '--estimate', '-4.18', '--se', '1', '--df', '783', '--json'], { encoding: 'utf8' });
     expect(result.status).toBe(0);
@@ -237,5 +238,6 @@ describe('lurk ovb', () => {
     const bad = spawnSync('node', [built, 'ovb', '--estimate', '1', '--se', '1', '--df', '0'], { encoding: 'utf8' });
     expect(bad.status).toBe(2);
     expect(bad.stderr).toMatch(/--df/);
+    cli.remove();
   }, 120_000);
 });
