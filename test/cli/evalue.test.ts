@@ -1,13 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { execFile } from 'node:child_process';
-import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
-import { join } from 'node:path';
+import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { promisify } from 'node:util';
-import { build } from 'vite';
 import { memoryIo } from '../../src/cli/cliIo';
 import { runLurk } from '../../src/cli/main';
 import { expectClose } from '../support/expectClose';
+import { buildCliForTest } from '../support/builtCli';
 
 async function lurk(args: string[], files: Record<string, string> = {}) {
   const io = memoryIo(files);
@@ -197,14 +196,13 @@ describe('lurk evalue --help', () => {
 });
 
 describe('the built command', () => {
-  // Inside the project (dist/ is not tracked) so that the bundle finds its packages in node_modules.
-  const dist = fileURLToPath(new URL('../../dist/', import.meta.url));
-  mkdirSync(dist, { recursive: true });
-  const outDir = mkdtempSync(join(dist, 'test-cli-evalue-'));
+  let cli: Awaited<ReturnType<typeof buildCliForTest>>;
+  let outDir = '';
   beforeAll(async () => {
-    await build({ logLevel: 'silent', build: { ssr: 'src/cli/lurk.ts', outDir, emptyOutDir: true } });
+    cli = await buildCliForTest();
+    outDir = dirname(cli.lurk);
   }, 120_000);
-  afterAll(() => rmSync(outDir, { recursive: true, force: true }));
+  afterAll(() => cli?.remove());
 
   it('node lurk.js evalue prints JSON and exits 0; bad input exits 2', async () => {
     const run = promisify(execFile);
