@@ -103,7 +103,8 @@ export function exactCriticalValue(n: number, p: number, q: number, level: numbe
   const weights = Float64Array.from({ length: n }, (_, i) => i + 1);
   const sd = Math.sqrt(p * q * ((n * (n + 1) * (2 * n + 1)) / 6));
   const z = upperNormalQuantile(level);
-  let m = Math.min(N, Math.max(16, Math.ceil(q * N - z * sd + 8 * sd + 16)));
+  // Start a little past the normal approximation's answer; widen only if the exact answer lies beyond.
+  let m = Math.min(N, Math.max(16, Math.ceil(q * N - z * sd + 2 * sd + 16)));
   for (;;) {
     const table = boundingLowerTailTable(weights, m, q, p, 1e-30 * Math.min(1, level));
     if (table[0] > level) return N + 1;
@@ -112,7 +113,7 @@ export function exactCriticalValue(n: number, p: number, q: number, level: numbe
       while (s > 0 && table[s] > level) s--;
       return N - s;
     }
-    m = Math.min(N, 2 * m);
+    m = Math.min(N, m + Math.max(64, Math.ceil(4 * sd)));
   }
 }
 
