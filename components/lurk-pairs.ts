@@ -77,6 +77,7 @@ export class LurkPairs extends LitElement {
   private fileText: string | null = null;
   private abort: AbortController | null = null;
   private computedFor: unknown = undefined;
+  private plottedFor: PairsResult | null | undefined = undefined;
   private specs: { pValue: PlotSpec | null; estimate: PlotSpec | null; amplification: PlotSpec | null } = { pValue: null, estimate: null, amplification: null };
 
   /** Headline numbers of the current result, for the workspace (null while there is none). */
@@ -89,7 +90,7 @@ export class LurkPairs extends LitElement {
       this.form = normalisePairsForm(this.inputs);
     }
     if (this.computedFor !== this.form) void this.compute(false);
-    if (changed.has('result') || changed.has('study')) this.makePlots();
+    if (this.plottedFor !== this.result || changed.has('study')) this.makePlots();
   }
 
   override disconnectedCallback(): void {
@@ -398,6 +399,7 @@ export class LurkPairs extends LitElement {
 
   private makePlots(): void {
     const r = this.result;
+    this.plottedFor = r;
     this.specs = r
       ? { pValue: pValueByGammaPlot(r, { study: this.study }), estimate: estimateRangePlot(r, { study: this.study }), amplification: amplificationPlot(r, { study: this.study }) }
       : { pValue: null, estimate: null, amplification: null };

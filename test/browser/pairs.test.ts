@@ -165,11 +165,12 @@ describe('<lurk-pairs>', () => {
   });
 
   it('restoring saved inputs fires no events and keeps the typed text', async () => {
-    element.inputs = { source: 'pasted', pasted: '2\n3\n-1\n4\n5', alpha: '0,05' };
+    element.inputs = { source: 'pasted', pasted: '2\n3\n-1\n4\n5\n6\n7\n8', alpha: '0,05' };
     await settle();
-    expect((shadow().querySelector('#pasted') as HTMLTextAreaElement).value).toBe('2\n3\n-1\n4\n5');
+    expect((shadow().querySelector('#pasted') as HTMLTextAreaElement).value).toBe('2\n3\n-1\n4\n5\n6\n7\n8');
     expect((shadow().querySelector('#alpha') as HTMLInputElement).value).toBe('0,05');
     expect(events).toEqual([]);
     expect(text('#tipping-gamma')).not.toBe('');
+    expect(shadow().querySelectorAll('lurk-plot')).toHaveLength(3);
   });
 });
