@@ -9,10 +9,10 @@ export interface LurkCommand {
 // Each command lives in its own module under ./commands and is loaded only when used.
 const commands: Record<string, () => Promise<LurkCommand>> = {
   evalue: () => import('./commands/evalue').then((m) => m.command),
-  batch: () => import('./commands/batch').then((m) => m.command),
-  report: () => import('./commands/report').then((m) => m.command),
   pairs: () => import('./commands/pairs').then((m) => m.command),
   ovb: () => import('./commands/ovb').then((m) => m.command),
+  batch: () => import('./commands/batch').then((m) => m.command),
+  report: () => import('./commands/report').then((m) => m.command),
 };
 
 const CAUTION =
