@@ -86,6 +86,21 @@ describe('<lurk-pairs>', () => {
     expect(text('#p-value')).toBe('0.00391');
   });
 
+  it('two 0/1 columns are a binary outcome: discordant pairs and the sign test', async () => {
+    // 12 pairs where only the treated unit had the event, 3 where only the control did, 5 concordant
+    const rows = ['treated,control'];
+    for (let i = 0; i < 12; i++) rows.push('1,0');
+    for (let i = 0; i < 3; i++) rows.push('0,1');
+    for (let i = 0; i < 5; i++) rows.push(i % 2 ? '1,1' : '0,0');
+    await userEvent.upload(page.getByLabelText('CSV file', { exact: true }), new File([rows.join('\n')], 'binary.csv', { type: 'text/csv' }));
+    await until(() => text('#tipping-gamma') !== '');
+    // R 4.2.2 reference: sign-test sensitivity value for S = 12 of D = 15 is 1.2738… (rosenbaum.json)
+    expect(text('#tipping-gamma')).toBe('1.273');
+    expect(text('#pairs-counts')).toMatch(/20 pairs used; 15 informative/);
+    expect(text('.warning')).toMatch(/binary/);
+    expect(text('.warning')).toMatch(/5 concordant pairs/);
+  });
+
   it('bad pasted input names the line and keeps what was typed', async () => {
     await userEvent.click(page.getByLabelText('Numbers pasted in'));
     await userEvent.fill(page.getByLabelText('Pairs', { exact: true }), '1.2\nabc\n0.4');
