@@ -152,6 +152,43 @@ describe('invariants', () => {
     );
   });
 
+  test('the pruned, rescaled DP equals a plain full-distribution DP for up to 150 weights (ties, any threshold)', () => {
+    // The plain DP keeps every probability (no pruning, no rescaling): an independent check of the fast kernel.
+    const plainTail = (weights: number[], t: number, p: number) => {
+      const total = weights.reduce((a, b) => a + b, 0);
+      let f = new Float64Array(total + 1);
+      f[0] = 1;
+      for (const w of weights) {
+        const next = new Float64Array(total + 1);
+        for (let s = 0; s <= total; s++) {
+          if (f[s] === 0) continue;
+          next[s] += (1 - p) * f[s];
+          next[s + w] += p * f[s];
+        }
+        f = next;
+      }
+      let tail = 0;
+      for (let s = Math.max(0, Math.ceil(t)); s <= total; s++) tail += f[s];
+      return tail;
+    };
+    fc.assert(
+      fc.property(
+        fc.array(fc.integer({ min: 1, max: 60 }), { minLength: 20, maxLength: 150 }),
+        fc.double({ min: 0, max: 1, noNaN: true }),
+        fc.double({ min: 0.02, max: 0.98, noNaN: true }),
+        (weights, where, p) => {
+          const total = weights.reduce((a, b) => a + b, 0);
+          const t = Math.round(where * total);
+          const expected = plainTail(weights, t, p);
+          const actual = weightedBernoulliSumUpperTail(weights, t, p, 1 - p);
+          if (expected > 1e-200) expectClose(actual, expected, { rel: 1e-9 });
+          else expect(actual).toBeLessThan(1e-190);
+        },
+      ),
+      { numRuns: 150 },
+    );
+  });
+
   test('pUpper rises and pLower falls with Γ; pLower ≤ p(Γ = 1) ≤ pUpper', () => {
     fc.assert(
       fc.property(
