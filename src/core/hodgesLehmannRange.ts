@@ -53,7 +53,12 @@ export function effectUnderBias(
   pairs: number,
   gamma: number,
   alpha: number,
-  options: { method: TailMethod; continuityCorrection?: boolean },
+  options: {
+    method: TailMethod;
+    continuityCorrection?: boolean;
+    /** The critical value when already known (from `exactCriticalValueAndTail` for this Γ, n and α/2). */
+    criticalValue?: number;
+  },
 ): EffectUnderBias {
   const N = walsh.count;
   const { plus, minus } = biasProbabilities(gamma);
@@ -78,9 +83,10 @@ export function effectUnderBias(
   const estimateHigh = estimateAt(minus * N);
 
   const c =
-    options.method === 'exact'
+    options.criticalValue ??
+    (options.method === 'exact'
       ? exactCriticalValue(pairs, plus, minus, alpha / 2)
-      : normalCriticalValue(pairs, plus, minus, alpha / 2, options.continuityCorrection ?? false);
+      : normalCriticalValue(pairs, plus, minus, alpha / 2, options.continuityCorrection ?? false));
   const bounded = c <= N;
   return Object.freeze({
     gamma,
@@ -99,19 +105,37 @@ export function effectUnderBias(
  * (probability q) is ≤ level; one table of the lower tail suffices.
  */
 export function exactCriticalValue(n: number, p: number, q: number, level: number): number {
+  return exactCriticalValueAndTail(n, p, q, level).critical;
+}
+
+/**
+ * `exactCriticalValue`, and from the same table the upper tail P(Σᵢ i·Bᵢ ≥ t) at one more point t — the
+ * upper p-value bound of a signed-rank statistic t when the ranks are exactly 1…n (no ties, no zeros), which
+ * saves a second dynamic program. `tail` is null when t lies outside the table or the tail is too small for
+ * the table's absolute accuracy (below 1e-12); compute it directly then.
+ */
+export function exactCriticalValueAndTail(n: number, p: number, q: number, level: number, t?: number): { critical: number; tail: number | null } {
   const N = (n * (n + 1)) / 2;
   const weights = Float64Array.from({ length: n }, (_, i) => i + 1);
   const sd = Math.sqrt(p * q * ((n * (n + 1) * (2 * n + 1)) / 6));
   const z = upperNormalQuantile(level);
+  const negligible = 1e-30 * Math.min(1, level);
+  const tailFrom = (table: Float64Array, m: number): number | null => {
+    if (t === undefined) return null;
+    const s = N - Math.ceil(t);
+    if (s < 0) return 0;
+    if (s > m) return null;
+    return table[s] >= 1e-12 ? table[s] : null;
+  };
   // Start a little past the normal approximation's answer; widen only if the exact answer lies beyond.
   let m = Math.min(N, Math.max(16, Math.ceil(q * N - z * sd + 2 * sd + 16)));
   for (;;) {
-    const table = boundingLowerTailTable(weights, m, q, p, 1e-30 * Math.min(1, level));
-    if (table[0] > level) return N + 1;
+    const table = boundingLowerTailTable(weights, m, q, p, negligible);
+    if (table[0] > level) return { critical: N + 1, tail: tailFrom(table, m) };
     if (table[m] > level || m === N) {
       let s = m;
       while (s > 0 && table[s] > level) s--;
-      return N - s;
+      return { critical: N - s, tail: tailFrom(table, m) };
     }
     m = Math.min(N, m + Math.max(64, Math.ceil(4 * sd)));
   }

@@ -1,10 +1,10 @@
 import { inputProblem, throwIfProblems, type InputProblem } from './inputProblem';
 import { signedRanks, type SignedRanks } from './signedRanks';
-import { signedRankBound, signedRankUpperP, type TailMethod } from './signedRankBound';
+import { biasProbabilities, signedRankBound, signedRankUpperP, type TailMethod } from './signedRankBound';
 import { signTestBound } from './signTestBound';
 import { tippingGamma, type TippingGamma } from './tippingGamma';
 import { walshAverages } from './walshAverages';
-import { effectUnderBias, type EffectUnderBias } from './hodgesLehmannRange';
+import { effectUnderBias, exactCriticalValueAndTail, type EffectUnderBias } from './hodgesLehmannRange';
 import { readableAmplifications, type AmplifiedPair } from './amplification';
 
 /** The data of a matched-pairs study, in one of three forms. */
@@ -344,9 +344,24 @@ export function analysePairs(input: PairsInput): PairsResult {
     test === 'sign' ? tipping : tippingGamma((g) => signTestBound(favourable, nonZero, g, { method: 'exact' }).pUpper, alpha);
 
   const gammas = input.gammas ? [...input.gammas] : defaultGammaGrid(tipping);
+  const withEstimates = test === 'signrank' && differences !== null;
+  const estimateMethod: TailMethod = requested === 'auto' ? (n <= EXACT_PAIRS_LIMIT ? 'exact' : 'normal') : tailMethod;
+  // With exact tails, untied ranks and no zeros, the ranks are 1…n for both the test and the estimates, so one
+  // table per Γ gives the interval's critical value and the upper p-value bound together.
+  const shareTables =
+    withEstimates && ranks !== null && tailMethod === 'exact' && estimateMethod === 'exact' && !ranks.tiedMagnitudes && ranks.zeros === 0;
+  const critical = new Map<number, number>();
   const rows: PairsRow[] = gammas.map((gamma) => {
     // At Γ = 1 both bounds are the ordinary p-value, already computed by the search.
     if (gamma === 1) return Object.freeze({ gamma, pUpper: tipping.pAtOne, pLower: tipping.pAtOne });
+    if (shareTables && ranks) {
+      const { plus, minus } = biasProbabilities(gamma);
+      const shared = exactCriticalValueAndTail(n, plus, minus, alpha / 2, ranks.statistic);
+      critical.set(gamma, shared.critical);
+      const pUpper = shared.tail ?? signedRankUpperP(ranks, gamma, tailOptions);
+      const pLower = signedRankUpperP(ranks, gamma, tailOptions, 'lower');
+      return Object.freeze({ gamma, pUpper, pLower });
+    }
     const bound =
       test === 'sign' || !ranks ? signTestBound(favourable, nonZero, gamma, tailOptions) : signedRankBound(ranks, gamma, tailOptions);
     return Object.freeze({ gamma, pUpper: bound.pUpper, pLower: bound.pLower });
@@ -367,10 +382,11 @@ export function analysePairs(input: PairsInput): PairsResult {
 
   let estimate: number | null = null;
   const estimates: EffectUnderBias[] = [];
-  if (test === 'signrank' && differences) {
+  if (withEstimates && differences) {
     const walsh = walshAverages(differences);
-    const estimateMethod: TailMethod = requested === 'auto' ? (n <= EXACT_PAIRS_LIMIT ? 'exact' : 'normal') : tailMethod;
-    for (const gamma of gammas) estimates.push(effectUnderBias(walsh, n, gamma, alpha, { method: estimateMethod, continuityCorrection }));
+    for (const gamma of gammas) {
+      estimates.push(effectUnderBias(walsh, n, gamma, alpha, { method: estimateMethod, continuityCorrection, criticalValue: critical.get(gamma) }));
+    }
     estimate = effectUnderBias(walsh, n, 1, alpha, { method: 'normal' }).estimateLow;
   }
 

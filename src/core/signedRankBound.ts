@@ -66,9 +66,11 @@ export function signedRankBound(ranks: SignedRanks, gamma: number, options: Tail
   return Object.freeze({ gamma, pUpper, pLower, meanUpper, varianceUpper, method: options.method });
 }
 
-/** Only the upper bound (what the tipping-point search needs). */
-export function signedRankUpperP(ranks: SignedRanks, gamma: number, options: TailOptions): number {
-  const { plus, minus } = biasProbabilities(gamma);
+/** Only one of the two bounds: the upper one (what the tipping-point search needs) unless `which` says lower. */
+export function signedRankUpperP(ranks: SignedRanks, gamma: number, options: TailOptions, which: 'upper' | 'lower' = 'upper'): number {
+  const probabilities = biasProbabilities(gamma);
+  const plus = which === 'upper' ? probabilities.plus : probabilities.minus;
+  const minus = which === 'upper' ? probabilities.minus : probabilities.plus;
   if (Number.isNaN(gamma)) return NaN;
   if (options.method === 'exact') {
     const { weights, statistic } = integerRanks(ranks);

@@ -2,6 +2,10 @@ import { describe, expect, test } from 'vitest';
 import fc from 'fast-check';
 import { analysePairs, validatePairsInput, defaultGammaGrid, type PairsInput } from '../../src/core/pairsAnalysis';
 import { InputError } from '../../src/core/inputProblem';
+import { signedRanks } from '../../src/core/signedRanks';
+import { signedRankBound } from '../../src/core/signedRankBound';
+import { walshAverages } from '../../src/core/walshAverages';
+import { effectUnderBias } from '../../src/core/hodgesLehmannRange';
 import { expectClose } from '../support/expectClose';
 import { readReferenceJson } from '../support/reference';
 
@@ -40,6 +44,21 @@ describe('reference values through the whole analysis', () => {
     expect(result.rows.at(-1)!.gamma).toBeGreaterThan(result.sensitivityValue!);
     expect(result.rows.at(-2)!.gamma).toBeLessThanOrEqual(result.sensitivityValue!);
     expect(Object.isFrozen(result)).toBe(true);
+  });
+
+  test('the shared table (untied ranks) gives the same bounds and intervals as separate computations', () => {
+    const d = Array.from({ length: 200 }, (_, i) => Math.sin(i * 1.37) * 3 + 0.4 + i * 1e-9);
+    const result = analysePairs({ data: { kind: 'differences', differences: d }, gammas: [1, 1.2, 1.5, 2, 4] });
+    const ranks = signedRanks(d);
+    const walsh = walshAverages(d);
+    result.rows.forEach((row, i) => {
+      const separate = signedRankBound(ranks, row.gamma, { method: 'exact' });
+      expectClose(row.pUpper, separate.pUpper, { rel: 1e-12 }, `upper Γ=${row.gamma}`);
+      expectClose(row.pLower, separate.pLower, { rel: 1e-12 }, `lower Γ=${row.gamma}`);
+      const effect = effectUnderBias(walsh, 200, row.gamma, 0.05, { method: 'exact' });
+      expect(result.estimates[i].intervalLow).toBe(effect.intervalLow);
+      expect(result.estimates[i].intervalHigh).toBe(effect.intervalHigh);
+    });
   });
 
   test('more than 1,000 non-zero pairs use the normal approximation under auto', () => {
