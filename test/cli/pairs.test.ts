@@ -1,11 +1,10 @@
 import { describe, expect, test } from 'vitest';
-import { execFileSync, spawnSync } from 'node:child_process';
-import { existsSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
+import { spawnSync } from 'node:child_process';
 import { runLurk } from '../../src/cli/main';
 import { memoryIo } from '../../src/cli/cliIo';
 import { expectClose } from '../support/expectClose';
 import { readReferenceJson, readReferenceText, referencePath } from '../support/reference';
+import { buildCliForTest } from '../support/builtCli';
 
 const reference = readReferenceJson('rosenbaum.json');
 
@@ -116,9 +115,9 @@ describe('bad input exits 2 with one line naming the option', () => {
 });
 
 describe('the built command', () => {
-  const built = fileURLToPath(new URL('../../dist/cli/lurk.js', import.meta.url));
-  test('node dist/cli/lurk.js pairs prints JSON and exits 0; bad input exits 2', () => {
-    if (!existsSync(built)) execFileSync('npm', ['run', 'build:cli'], { cwd: fileURLToPath(new URL('../..', import.meta.url)), stdio: 'ignore' });
+  test('node lurk.js pairs prints JSON and exits 0; bad input exits 2', async () => {
+    const cli = await buildCliForTest();
+    const built = cli.lurk;
     const ok = spawnSync('node', [built, 'pairs', '--file', referencePath('rosenbaum_small_n15.csv'), '--diff', 'd', '--json'], { encoding: 'utf8' });
     expect(ok.status).toBe(0);
     // R 4.2.2 reference sensitivity value (exact signed-rank), rosenbaum.json
@@ -127,5 +126,6 @@ describe('the built command', () => {
     expect(bad.status).toBe(2);
     expect(bad.stderr).toMatch(/^lurk pairs: --discordant: /);
     expect(readReferenceText('rosenbaum_small_n15.csv').length).toBeGreaterThan(0);
-  }, 60_000);
+    cli.remove();
+  }, 120_000);
 });
