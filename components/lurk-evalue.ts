@@ -29,6 +29,7 @@ import { jointStrengthPlot } from '../src/plot/jointStrengthPlot';
 import type { PlotSpec } from '../src/plot/plotSpec';
 import type { PlotPointerDetail } from './lurk-plot';
 import { baseStyles } from './styles/base';
+import { calculatorLayoutStyles } from './styles/calculator';
 import { eValueStyles } from './styles/evalue';
 import './lurk-plot';
 
@@ -74,7 +75,7 @@ const CELLS = [
  */
 @customElement('lurk-evalue')
 export class LurkEValue extends LitElement {
-  static override styles = [baseStyles, eValueStyles];
+  static override styles = [baseStyles, calculatorLayoutStyles, eValueStyles];
 
   @property({ attribute: false }) inputs: EValueFormInputs | Record<string, unknown> | null = null;
   @property({ attribute: false }) study: StudyLabels = emptyStudy;

@@ -17,6 +17,7 @@ import { ovbExtremeScenarioPlot } from '../src/plot/ovbExtremeScenarioPlot';
 import type { PlotSpec } from '../src/plot/plotSpec';
 import type { PlotPointerDetail } from './lurk-plot';
 import { baseStyles } from './styles/base';
+import { calculatorLayoutStyles } from './styles/calculator';
 import { ovbStyles } from './styles/ovb';
 import './lurk-plot';
 
@@ -50,7 +51,7 @@ const HEAD_BYTES = 256 * 1024;
  */
 @customElement('lurk-ovb')
 export class LurkOvb extends LitElement {
-  static override styles = [baseStyles, ovbStyles];
+  static override styles = [baseStyles, calculatorLayoutStyles, ovbStyles];
 
   @property({ attribute: false }) inputs: OvbFormInputs | Record<string, unknown> | null = null;
   @property({ attribute: false }) study: StudyLabels = emptyStudy;

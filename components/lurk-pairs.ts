@@ -25,6 +25,7 @@ import { estimateRangePlot } from '../src/plot/estimateRangePlot';
 import { pValueByGammaPlot } from '../src/plot/pValueByGammaPlot';
 import type { PlotSpec } from '../src/plot/plotSpec';
 import { baseStyles } from './styles/base';
+import { calculatorLayoutStyles } from './styles/calculator';
 import { pairsStyles } from './styles/pairs';
 import './lurk-plot';
 
@@ -59,7 +60,7 @@ const SOURCES: ReadonlyArray<{ id: PairsSource; label: string }> = [
  */
 @customElement('lurk-pairs')
 export class LurkPairs extends LitElement {
-  static override styles = [baseStyles, pairsStyles];
+  static override styles = [baseStyles, calculatorLayoutStyles, pairsStyles];
 
   @property({ attribute: false }) inputs: PairsFormInputs | Record<string, unknown> | null = null;
   @property({ attribute: false }) study: StudyLabels = emptyStudy;

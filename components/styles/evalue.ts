@@ -1,28 +1,7 @@
 import { css } from 'lit';
 
-/** Layout of the E-value calculator: inputs beside results on wide screens, stacked on narrow ones. */
+/** The E-value calculator's own styles; the shared layout is `calculatorLayoutStyles`. */
 export const eValueStyles = css`
-  .layout {
-    display: grid;
-    gap: 1rem 1.5rem;
-    grid-template-columns: minmax(0, 22rem) minmax(0, 1fr);
-    align-items: start;
-  }
-  @media (max-width: 760px) {
-    .layout {
-      grid-template-columns: minmax(0, 1fr);
-    }
-  }
-  .sources {
-    display: flex;
-    flex-wrap: wrap;
-    gap: 0.25rem 0;
-  }
-  .pair {
-    display: grid;
-    gap: 0 0.75rem;
-    grid-template-columns: repeat(2, minmax(0, 1fr));
-  }
   table.counts {
     width: auto;
     margin-bottom: 0.5rem;

@@ -1,28 +1,7 @@
 import { css } from 'lit';
 
-/** Layout of the regression (omitted-variable bias) calculator: inputs beside results, stacked when narrow. */
+/** The regression (omitted-variable bias) calculator's own styles; the shared layout is `calculatorLayoutStyles`. */
 export const ovbStyles = css`
-  .layout {
-    display: grid;
-    gap: 1rem 1.5rem;
-    grid-template-columns: minmax(0, 22rem) minmax(0, 1fr);
-    align-items: start;
-  }
-  @media (max-width: 760px) {
-    .layout {
-      grid-template-columns: minmax(0, 1fr);
-    }
-  }
-  .sources {
-    display: flex;
-    flex-wrap: wrap;
-    gap: 0.25rem 0;
-  }
-  .pair {
-    display: grid;
-    gap: 0 0.75rem;
-    grid-template-columns: repeat(2, minmax(0, 1fr));
-  }
   .triple {
     display: grid;
     gap: 0 0.5rem;
