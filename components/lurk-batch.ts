@@ -68,6 +68,9 @@ export class LurkBatch extends LitElement {
         padding: 0.1rem 0.2rem;
         min-height: 0;
       }
+      th.text {
+        text-align: left;
+      }
       td.problem {
         text-align: left;
         color: var(--_error);
@@ -175,7 +178,7 @@ export class LurkBatch extends LitElement {
           <thead>
             <tr>
               ${COLUMNS.map(
-                (c) => html`<th scope="col" aria-sort=${this.sortKey === c.key ? (this.descending ? 'descending' : 'ascending') : 'none'}>
+                (c) => html`<th scope="col" class=${c.numeric ? '' : 'text'} aria-sort=${this.sortKey === c.key ? (this.descending ? 'descending' : 'ascending') : 'none'}>
                   <button type="button" @click=${() => this.sortBy(c.key)}>${c.label}${this.sortKey === c.key ? (this.descending ? ' ▼' : ' ▲') : ''}</button>
                 </th>`,
               )}

@@ -33,7 +33,8 @@ export function eValueHistogram(values: readonly (number | null)[], options: EVa
     width,
     height,
     x: { domain: [1, top], label, scale: 'log' },
-    y: { domain: [0, Math.ceil(maxCount * 1.1)], label: 'Number of findings', tickFormat: (v) => (Number.isInteger(v) ? String(v) : '') },
+    // Counts are whole numbers: ask for no more ticks than there are counts, so d3 picks integers.
+    y: { domain: [0, Math.ceil(maxCount * 1.1)], label: 'Number of findings', tickCount: Math.min(maxCount, 6), tickFormat: (v) => (Number.isInteger(v) ? String(v) : '') },
   });
   const marks: PlotMark[] = bins
     .filter((b) => b.length > 0 && b.x0 !== undefined && b.x1 !== undefined)
