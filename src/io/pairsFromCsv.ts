@@ -1,6 +1,7 @@
 import { InputError, inputProblem, type InputProblem } from '../core/inputProblem';
 import type { PairsData } from '../core/pairsAnalysis';
 import { CsvChunkReader, type CsvDialect } from './csvChunkReader';
+import { byteSourceChunks, type ByteSource } from './byteSource';
 import { isMissingCell } from './missingCell';
 import { parseNumericCell } from './regressionData';
 
@@ -213,7 +214,7 @@ export function pairsFromCsvText(text: string, spec: PairsColumns): PairsRead {
 }
 
 /** Anything that yields the bytes of a CSV file: a Node stream, a web ReadableStream, or an async iterable of chunks. */
-export type PairsByteSource = AsyncIterable<Uint8Array | string> | ReadableStream<Uint8Array>;
+export type PairsByteSource = ByteSource;
 
 /**
  * Reads pairs from a UTF-8 byte stream chunk by chunk (memory holds only the two numbers per pair),
@@ -228,7 +229,7 @@ export async function pairsFromCsvStream(
   const decoder = new TextDecoder('utf-8');
   let bytesRead = 0;
   let sawText = false;
-  for await (const chunk of iterateSource(source)) {
+  for await (const chunk of byteSourceChunks(source)) {
     options.signal?.throwIfAborted();
     const text = typeof chunk === 'string' ? chunk : decoder.decode(chunk, { stream: true });
     bytesRead += typeof chunk === 'string' ? chunk.length : chunk.byteLength;
@@ -241,20 +242,4 @@ export async function pairsFromCsvStream(
   if (tail) reader.push(tail);
   if (!sawText) throw new InputError([inputProblem('file', 'empty-file', 'the file is empty')]);
   return reader.finish();
-}
-
-async function* iterateSource(source: PairsByteSource): AsyncGenerator<Uint8Array | string> {
-  if (typeof (source as ReadableStream<Uint8Array>).getReader === 'function') {
-    const reader = (source as ReadableStream<Uint8Array>).getReader();
-    try {
-      for (;;) {
-        const { done, value } = await reader.read();
-        if (done) return;
-        yield value;
-      }
-    } finally {
-      reader.releaseLock();
-    }
-  }
-  yield* source as AsyncIterable<Uint8Array | string>;
 }

@@ -3,6 +3,7 @@ import { INTERCEPT_NAME, type TriangularDesign } from '../core/linearModel';
 import { StreamingQr, triangularFactor } from '../core/streamingQr';
 import { CsvChunkReader, type CsvDialect, type CsvRecordSpans } from './csvChunkReader';
 import { parseNumberText } from './parseNumberText';
+import { byteSourceChunks, type ByteSource } from './byteSource';
 import { isMissingCell } from './missingCell';
 
 /** Which columns of a CSV enter the regression, and how. */
@@ -563,8 +564,7 @@ export function regressionDataFromText(
 
 const PIECE_BYTES = 64 * 1024;
 
-/** Anything that yields the bytes of a CSV file: a Node readable stream, a web ReadableStream, or an async iterable of chunks. */
-export type ByteSource = AsyncIterable<Uint8Array | string> | ReadableStream<Uint8Array>;
+export type { ByteSource } from './byteSource';
 
 /**
  * Reads a CSV byte stream (UTF-8) chunk by chunk into the regression accumulator, reporting progress.
@@ -585,7 +585,7 @@ export async function accumulateRegressionFromStream(
   const accumulator = createRegressionAccumulator(spec, { dialect: options.dialect });
   const decoder = new TextDecoder('utf-8');
   let bytesRead = 0;
-  for await (const chunk of iterate(source)) {
+  for await (const chunk of byteSourceChunks(source)) {
     options.signal?.throwIfAborted();
     if (typeof chunk === 'string') {
       bytesRead += chunk.length;
@@ -604,20 +604,4 @@ export async function accumulateRegressionFromStream(
   const tail = decoder.decode();
   if (tail) accumulator.push(tail);
   return accumulator.finish();
-}
-
-async function* iterate(source: ByteSource): AsyncGenerator<Uint8Array | string> {
-  if (typeof (source as ReadableStream<Uint8Array>).getReader === 'function') {
-    const reader = (source as ReadableStream<Uint8Array>).getReader();
-    try {
-      for (;;) {
-        const { done, value } = await reader.read();
-        if (done) return;
-        yield value;
-      }
-    } finally {
-      reader.releaseLock();
-    }
-  }
-  yield* source as AsyncIterable<Uint8Array | string>;
 }
