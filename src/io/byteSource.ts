@@ -20,3 +20,10 @@ export async function* byteSourceChunks(source: ByteSource): AsyncGenerator<Uint
   }
   yield* source as AsyncIterable<Uint8Array | string>;
 }
+
+/** The bytes of a Blob, `chunkBytes` at a time (each slice is read only when needed, so memory stays flat). */
+export async function* blobChunks(blob: Blob, chunkBytes: number): AsyncGenerator<Uint8Array> {
+  for (let offset = 0; offset < blob.size; offset += chunkBytes) {
+    yield new Uint8Array(await blob.slice(offset, offset + chunkBytes).arrayBuffer());
+  }
+}

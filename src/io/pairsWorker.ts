@@ -1,18 +1,13 @@
 /// <reference lib="webworker" />
 // The Web Worker that reads a large CSV of pairs in chunks and runs the matched-pairs analysis, so the page
 // stays responsive (exact tails for 1,000 pairs take seconds). Started by runPairsInWorker (pairsWorkerClient.ts).
-import { InputError } from '../core/inputProblem';
 import { analysePairs } from '../core/pairsAnalysis';
 import { pairsFromCsvStream, type PairsRead } from './pairsFromCsv';
+import { blobChunks } from './byteSource';
 import type { PairsWorkerReply, PairsWorkerRequest } from './pairsWorkerProtocol';
+import { endReplyFor } from './webWorkerTask';
 
 declare const self: DedicatedWorkerGlobalScope;
-
-async function* blobChunks(blob: Blob, chunkBytes: number): AsyncGenerator<Uint8Array> {
-  for (let offset = 0; offset < blob.size; offset += chunkBytes) {
-    yield new Uint8Array(await blob.slice(offset, offset + chunkBytes).arrayBuffer());
-  }
-}
 
 function post(reply: PairsWorkerReply): void {
   self.postMessage(reply);
@@ -44,7 +39,6 @@ self.onmessage = async (event: MessageEvent<PairsWorkerRequest>) => {
     }
     post({ type: 'done', result, read: summary });
   } catch (error) {
-    if (error instanceof InputError) post({ type: 'problems', problems: [...error.problems] });
-    else post({ type: 'failure', message: error instanceof Error ? error.message : String(error) });
+    post(endReplyFor(error));
   }
 };

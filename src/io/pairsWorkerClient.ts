@@ -1,6 +1,6 @@
-import { InputError } from '../core/inputProblem';
 import type { PairsResult } from '../core/pairsAnalysis';
 import type { PairsReadSummary, PairsWorkerReply, PairsWorkerRequest } from './pairsWorkerProtocol';
+import { deepFreeze, runWorkerTask } from './webWorkerTask';
 
 export interface PairsWorkerProgress {
   readonly phase: 'reading' | 'analysing';
@@ -24,46 +24,17 @@ export function runPairsInWorker(
   request: Omit<PairsWorkerRequest, 'chunkBytes'>,
   options: PairsWorkerOptions = {},
 ): Promise<{ result: PairsResult; read: PairsReadSummary | null }> {
-  const { signal, onProgress } = options;
-  if (signal?.aborted) return Promise.reject(abortError());
-  const worker = new Worker(new URL('./pairsWorker.ts', import.meta.url), { type: 'module' });
-  return new Promise((resolve, reject) => {
-    const stop = (): void => {
-      worker.terminate();
-      signal?.removeEventListener('abort', onAbort);
-    };
-    const onAbort = (): void => {
-      stop();
-      reject(abortError());
-    };
-    signal?.addEventListener('abort', onAbort, { once: true });
-    worker.onmessage = (event: MessageEvent<PairsWorkerReply>) => {
-      const reply = event.data;
-      if (reply.type === 'progress') {
-        onProgress?.(reply);
-        return;
-      }
-      stop();
-      if (reply.type === 'done') resolve({ result: deepFreeze(reply.result), read: reply.read ? deepFreeze(reply.read) : null });
-      else if (reply.type === 'problems') reject(new InputError(reply.problems));
-      else reject(new Error(`The matched-pairs worker failed: ${reply.message}`));
-    };
-    worker.onerror = (event: ErrorEvent) => {
-      stop();
-      reject(new Error(`The matched-pairs worker failed: ${event.message || 'could not start'}`));
-    };
-    worker.postMessage({ ...request, chunkBytes: options.chunkBytes ?? 1 << 20 } satisfies PairsWorkerRequest);
+  return runWorkerTask({
+    start: () => new Worker(new URL('./pairsWorker.ts', import.meta.url), { type: 'module' }),
+    request: () => ({ ...request, chunkBytes: options.chunkBytes ?? 1 << 20 }) satisfies PairsWorkerRequest,
+    signal: options.signal,
+    onProgress: options.onProgress,
+    progressOf: (reply: Extract<PairsWorkerReply, { type: 'progress' }>): PairsWorkerProgress => reply,
+    resultOf: (reply: Extract<PairsWorkerReply, { type: 'done' }>) => ({
+      result: deepFreeze(reply.result),
+      read: reply.read ? deepFreeze(reply.read) : null,
+    }),
+    name: 'matched-pairs',
+    cancelledMessage: 'The matched-pairs analysis was cancelled.',
   });
-}
-
-function abortError(): DOMException {
-  return new DOMException('The matched-pairs analysis was cancelled.', 'AbortError');
-}
-
-function deepFreeze<T>(value: T): T {
-  if (value && typeof value === 'object' && !ArrayBuffer.isView(value) && !Object.isFrozen(value)) {
-    for (const key of Object.keys(value)) deepFreeze((value as Record<string, unknown>)[key]);
-    Object.freeze(value);
-  }
-  return value;
 }

@@ -1,18 +1,12 @@
 /// <reference lib="webworker" />
 // The Web Worker that reads a CSV file in chunks and accumulates the regression's triangular factor, so
 // the page stays responsive on large files. Started by runRegressionInWorker (regressionWorkerClient.ts).
-import { InputError } from '../core/inputProblem';
 import { accumulateRegressionFromStream } from './regressionData';
+import { blobChunks } from './byteSource';
 import type { RegressionWorkerReply, RegressionWorkerRequest } from './regressionWorkerProtocol';
+import { endReplyFor } from './webWorkerTask';
 
 declare const self: DedicatedWorkerGlobalScope;
-
-/** The bytes of a Blob, `chunkBytes` at a time (each slice is read only when needed, so memory stays flat). */
-async function* blobChunks(blob: Blob, chunkBytes: number): AsyncGenerator<Uint8Array> {
-  for (let offset = 0; offset < blob.size; offset += chunkBytes) {
-    yield new Uint8Array(await blob.slice(offset, offset + chunkBytes).arrayBuffer());
-  }
-}
 
 function post(reply: RegressionWorkerReply, transfer: Transferable[] = []): void {
   self.postMessage(reply, transfer);
@@ -34,7 +28,6 @@ self.onmessage = async (event: MessageEvent<RegressionWorkerRequest>) => {
     });
     post({ type: 'done', data }, [data.design.r.buffer]);
   } catch (error) {
-    if (error instanceof InputError) post({ type: 'problems', problems: [...error.problems] });
-    else post({ type: 'failure', message: error instanceof Error ? error.message : String(error) });
+    post(endReplyFor(error));
   }
 };

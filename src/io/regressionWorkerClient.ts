@@ -1,6 +1,6 @@
-import { InputError } from '../core/inputProblem';
 import type { RegressionData, RegressionDataSpec, RegressionProgress } from './regressionData';
 import type { RegressionWorkerReply, RegressionWorkerRequest } from './regressionWorkerProtocol';
+import { deepFreeze, runWorkerTask } from './webWorkerTask';
 
 export type { RegressionData, RegressionDataSpec, RegressionProgress } from './regressionData';
 
@@ -26,52 +26,18 @@ export function runRegressionInWorker(
   spec: RegressionDataSpec,
   options: RegressionWorkerOptions = {},
 ): Promise<RegressionData> {
-  const { signal, onProgress } = options;
-  if (signal?.aborted) return Promise.reject(abortError());
-  const worker = new Worker(new URL('./regressionWorker.ts', import.meta.url), { type: 'module' });
-  return new Promise<RegressionData>((resolve, reject) => {
-    const stop = (): void => {
-      worker.terminate();
-      signal?.removeEventListener('abort', onAbort);
-    };
-    const onAbort = (): void => {
-      stop();
-      reject(abortError());
-    };
-    signal?.addEventListener('abort', onAbort, { once: true });
-    worker.onmessage = (event: MessageEvent<RegressionWorkerReply>) => {
-      const reply = event.data;
-      if (reply.type === 'progress') {
-        onProgress?.(reply.progress);
-        return;
-      }
-      stop();
-      if (reply.type === 'done') resolve(deepFreeze(reply.data));
-      else if (reply.type === 'problems') reject(new InputError(reply.problems));
-      else reject(new Error(`The regression worker failed: ${reply.message}`));
-    };
-    worker.onerror = (event: ErrorEvent) => {
-      stop();
-      reject(new Error(`The regression worker failed: ${event.message || 'could not start'}`));
-    };
-    const request: RegressionWorkerRequest = {
+  return runWorkerTask({
+    start: () => new Worker(new URL('./regressionWorker.ts', import.meta.url), { type: 'module' }),
+    request: (): RegressionWorkerRequest => ({
       file,
       spec: JSON.parse(JSON.stringify(spec)) as RegressionDataSpec,
       chunkBytes: options.chunkBytes ?? 1 << 18,
-    };
-    worker.postMessage(request);
+    }),
+    signal: options.signal,
+    onProgress: options.onProgress,
+    progressOf: (reply: Extract<RegressionWorkerReply, { type: 'progress' }>) => reply.progress,
+    resultOf: (reply: Extract<RegressionWorkerReply, { type: 'done' }>) => deepFreeze(reply.data),
+    name: 'regression',
+    cancelledMessage: 'The regression was cancelled.',
   });
-}
-
-function abortError(): DOMException {
-  return new DOMException('The regression was cancelled.', 'AbortError');
-}
-
-/** Results cross the worker boundary as copies; freeze them again (typed arrays cannot be frozen). */
-function deepFreeze<T>(value: T): T {
-  if (value && typeof value === 'object' && !ArrayBuffer.isView(value) && !Object.isFrozen(value)) {
-    for (const key of Object.keys(value)) deepFreeze((value as Record<string, unknown>)[key]);
-    Object.freeze(value);
-  }
-  return value;
 }
