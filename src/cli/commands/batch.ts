@@ -5,6 +5,7 @@ import type { CliIo } from '../cliIo';
 import type { LurkCommand } from '../main';
 import { numberOption, parseOptions, type OptionKinds } from '../parseOptions';
 import { UsageError, reportBadInput } from '../usageError';
+import { readFileArgument } from '../readFileArgument';
 
 const OPTIONS: OptionKinds = {
   json: { type: 'boolean' },
@@ -44,12 +45,7 @@ export const command: LurkCommand = {
       if (values.json && values.csv) throw new UsageError('--csv', 'choose --json or --csv, not both');
       const alpha = numberOption(values.alpha, '--alpha') ?? 0.05;
       if (!(alpha > 0 && alpha < 1)) throw new UsageError('--alpha', `must be between 0 and 1, got ${alpha}`);
-      let text: string;
-      try {
-        text = await io.readText(positionals[0]);
-      } catch {
-        throw new UsageError('FILE', `cannot read "${positionals[0]}"`);
-      }
+      const text = await readFileArgument(io, positionals[0], 'FILE');
       const result = appraiseBatchCsv(text, alpha);
       if (values.json) io.out(JSON.stringify(result, null, 2) + '\n');
       else if (values.csv) io.out(batchCsvText(result));

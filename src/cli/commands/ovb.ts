@@ -16,6 +16,7 @@ import type { CliIo } from '../cliIo';
 import type { LurkCommand } from '../main';
 import { choiceOption, numberListOption, numberOption, parseOptions, type OptionKinds } from '../parseOptions';
 import { UsageError, reportBadInput } from '../usageError';
+import { readFileArgument } from '../readFileArgument';
 
 const OPTIONS: OptionKinds = {
   estimate: { type: 'string' },
@@ -146,12 +147,7 @@ export const command: LurkCommand = {
         } else {
           const path = text('summary')!;
           const { outcome, treatment, covariates } = columnsFor('--summary', text, list);
-          let raw: string;
-          try {
-            raw = await io.readText(path);
-          } catch {
-            throw new UsageError('--summary', `cannot read "${path}"`);
-          }
+          const raw = await readFileArgument(io, path, '--summary');
           const row = summaryRow(raw);
           const variables = [...covariates, treatment, outcome].map((column) => ({ column }));
           const design = designFromCrossProducts(crossProductsFromSqlRow(row, variables));

@@ -6,6 +6,7 @@ import type { CliIo } from '../cliIo';
 import type { LurkCommand } from '../main';
 import { choiceOption, parseOptions, type OptionKinds } from '../parseOptions';
 import { UsageError, reportBadInput } from '../usageError';
+import { readFileArgument } from '../readFileArgument';
 
 const OPTIONS: OptionKinds = {
   format: { type: 'string' },
@@ -37,12 +38,7 @@ export const command: LurkCommand = {
       }
       if (positionals.length !== 1) throw new UsageError('APPRAISAL', 'give exactly one appraisal file (JSON)');
       const format: StatementFormat = choiceOption(values.format, '--format', ['md', 'tex', 'html'] as const) ?? 'md';
-      let text: string;
-      try {
-        text = await io.readText(positionals[0]);
-      } catch {
-        throw new UsageError('APPRAISAL', `cannot read "${positionals[0]}"`);
-      }
+      const text = await readFileArgument(io, positionals[0], 'APPRAISAL');
       let json: unknown;
       try {
         json = JSON.parse(text.replace(/^\uFEFF/, ''));
