@@ -1,5 +1,5 @@
 import type { SignedRanks } from './signedRanks';
-import { sortedLowerTail, weightedBernoulliSumUpperTail } from './weightedBernoulliSumTail';
+import { lowerRegionExpansion, sortedLowerTail, weightedBernoulliSumUpperTail } from './weightedBernoulliSumTail';
 import { upperNormalTail } from './upperNormalTail';
 
 /** How a tail probability was computed. */
@@ -118,50 +118,18 @@ const integerCache = new WeakMap<SignedRanks, { weights: Float64Array; statistic
 
 /**
  * The whole lower-tail table of the bounding statistic Σ Rᵢ Bᵢ, Bᵢ ~ Bernoulli(p), up to m:
- * F(s) = P(Σ Rᵢ Bᵢ ≤ s) for s = 0…m (exact DP, the expansion of `sortedLowerTail` accumulated once).
+ * F(s) = P(Σ Rᵢ Bᵢ ≤ s) for s = 0…m (exact DP: the expansion `lowerRegionExpansion` behind `sortedLowerTail`, accumulated once).
  * Used to find critical values once per Γ. With `negligible` > 0 partial sums below that probability are
  * dropped from the bottom (each F(s) is then low by at most (m + 1)·negligible).
  */
 export function boundingLowerTailTable(sortedWeights: Float64Array, m: number, p: number, q: number, negligible = 0): Float64Array {
   const table = new Float64Array(m + 1);
   if (m < 0) return table;
-  const n = sortedWeights.length;
   if (q === 0 || p === 0) {
     for (let s = 0; s <= m; s++) table[s] = sortedLowerTail(sortedWeights, s, p, q);
     return table;
   }
-  const odds = p / q;
-  const logQ = Math.log(q);
-  const logNegligible = negligible > 0 ? Math.log(negligible) : -Infinity;
-  let logScale = 0;
-  const g = new Float64Array(m + 1);
-  g[0] = 1;
-  let reach = 0;
-  let low = 0;
-  let bound = 1;
-  let i = 0;
-  for (; i < n; i++) {
-    const w = sortedWeights[i];
-    if (w > m) break;
-    logScale += logQ;
-    const top = reach + w < m ? reach + w : m;
-    const stop = low + w;
-    for (let s = top; s >= stop; s--) g[s] += odds * g[s - w];
-    reach = top;
-    bound *= 1 + odds;
-    if (bound > 1e250) {
-      let max = 0;
-      for (let s = low; s <= reach; s++) if (g[s] > max) max = g[s];
-      for (let s = low; s <= reach; s++) g[s] /= max;
-      logScale += Math.log(max);
-      bound = 1;
-    }
-    if (negligible > 0) {
-      const threshold = Math.exp(logNegligible - logScale);
-      while (low < reach && g[low] < threshold) g[low++] = 0;
-    }
-  }
-  logScale += (n - i) * logQ;
+  const { g, logScale } = lowerRegionExpansion(sortedWeights, m, p, q, negligible);
   let cumulative = 0;
   for (let s = 0; s <= m; s++) {
     cumulative += g[s];

@@ -87,6 +87,29 @@ export function sortedLowerTail(sorted: ArrayLike<number>, m: number, p: number,
     for (let i = 0; i < n; i++) total += sorted[i];
     return total <= m ? 1 : 0;
   }
+  const { g, low, reach, logScale } = lowerRegionExpansion(sorted, m, p, q, negligible);
+  let sum = 0;
+  for (let s = low; s <= reach; s++) sum += g[s];
+  return Math.min(1, Math.exp(Math.log(sum) + logScale));
+}
+
+/**
+ * The exact expansion behind `sortedLowerTail` and `boundingLowerTailTable` (signedRankBound.ts): the
+ * probabilities of the partial sums 0…m of Σ wᵢ·Bᵢ, Bᵢ ~ Bernoulli(p), weights sorted ascending, as
+ * P(Σ wB = s) = g[s]·exp(logScale) for low ≤ s ≤ reach (every other g[s] is 0, or was dropped as negligible).
+ * With `negligible` > 0 sums at the bottom whose probability has fallen below it are dropped, as described
+ * at `sortedLowerTail`.
+ *
+ * **Special cases.** Needs m ≥ 0 and p, q both > 0 (the callers answer m < 0, p = 0 and q = 0 themselves).
+ */
+export function lowerRegionExpansion(
+  sorted: ArrayLike<number>,
+  m: number,
+  p: number,
+  q: number,
+  negligible = 0,
+): { g: Float64Array; low: number; reach: number; logScale: number } {
+  const n = sorted.length;
   const odds = p / q;
   const growth = 1 + odds;
   const logQ = Math.log(q);
@@ -124,7 +147,5 @@ export function sortedLowerTail(sorted: ArrayLike<number>, m: number, p: number,
     }
   }
   logScale += (n - i) * logQ; // the weights beyond m, each with B = 0
-  let sum = 0;
-  for (let s = low; s <= reach; s++) sum += g[s];
-  return Math.min(1, Math.exp(Math.log(sum) + logScale));
+  return { g, low, reach, logScale };
 }
