@@ -3,6 +3,8 @@ import type { PairsResult } from '../core/pairsAnalysis';
 import { formatGamma, formatAsTyped } from '../io/pairsText';
 import { formatNumber } from '../io/formatNumber';
 import { createFrame } from './frame';
+import { equalStrengthDiagonal } from './equalStrengthDiagonal';
+import { framedPlotSpec } from './framedPlotSpec';
 import { palette } from './palette';
 import { polylinePath } from './pathData';
 import type { LegendItem, PlotMark, PlotSpec } from './plotSpec';
@@ -42,17 +44,7 @@ export function amplificationPlot(result: PairsResult, options: PairsPlotOptions
   }
   const marks: PlotMark[] = [];
   const legend: LegendItem[] = [];
-  marks.push({
-    kind: 'rule',
-    x1: frame.x(1),
-    y1: frame.y(1),
-    x2: frame.x(top),
-    y2: frame.y(top),
-    stroke: palette.contour,
-    strokeWidth: 1,
-    dash: '2 4',
-    label: 'Equal links to treatment and outcome',
-  });
+  marks.push(equalStrengthDiagonal(frame, top, 'Equal links to treatment and outcome'));
   marks.push({ kind: 'path', d: polylinePath(points), stroke: palette.estimate, strokeWidth: 2.5, label: `Pairs (Λ, Δ) equivalent to Γ = ${formatGamma(gamma)}` });
   legend.push({ label: `Γ = ${formatGamma(gamma)}`, color: palette.estimate, swatch: 'line' });
   for (const pair of result.amplification) {
@@ -73,17 +65,12 @@ export function amplificationPlot(result: PairsResult, options: PairsPlotOptions
   const rows = tableLambdas
     .filter((l) => l > gamma * 1.05 && l <= top)
     .map((l) => [formatAsTyped(l), formatNumber(amplificationDelta(gamma, l), { significant: 3 })]);
-  return Object.freeze({
+  return framedPlotSpec(frame, {
     id: 'pairs-amplification',
     title: `Ways a hidden covariate could produce bias Γ = ${formatGamma(gamma)}`,
     description: `Each point on the curve is a covariate strong enough to tip the finding: it multiplies the odds of treatment by Λ and the odds of a ${result.alternative === 'less' ? 'lower' : 'higher'} outcome by Δ. Where both are equal, Λ = Δ = ${formatNumber(symmetric, { significant: 3 })}.`,
-    width,
-    height,
-    xAxis: frame.xAxis,
-    yAxis: frame.yAxis,
-    inner: frame.inner,
-    marks: Object.freeze(marks),
-    legend: Object.freeze(legend),
+    marks,
+    legend,
     table: Object.freeze({ caption: `Pairs (Λ, Δ) equivalent to Γ = ${formatGamma(gamma)}`, columns: ['Λ (treatment)', 'Δ (outcome)'], rows }),
   });
 }

@@ -2,6 +2,7 @@ import type { PairsResult } from '../core/pairsAnalysis';
 import { formatEffect, formatGammaValue, formatAsTyped } from '../io/pairsText';
 import { outcomeLabel } from '../io/studyLabels';
 import { createFrame } from './frame';
+import { framedPlotSpec } from './framedPlotSpec';
 import { palette } from './palette';
 import { polygonPath, polylinePath } from './pathData';
 import type { LegendItem, PlotMark, PlotSpec } from './plotSpec';
@@ -100,17 +101,12 @@ export function estimateRangePlot(result: PairsResult, options: PairsPlotOptions
     labelSide: 'right',
   });
   const last = rows[rows.length - 1];
-  return Object.freeze({
+  return framedPlotSpec(frame, {
     id: 'pairs-estimate-range',
     title: 'How far the effect estimate could move under hidden bias',
     description: `The Hodges–Lehmann estimate is ${formatEffect(result.estimate, options.study)} with no hidden bias; at Γ = ${formatGammaValue(last.gamma)} the estimates range from ${formatEffect(last.estimateLow, options.study)} to ${formatEffect(last.estimateHigh, options.study)} and the ${level} sensitivity interval runs from ${formatEffect(last.intervalLow, options.study)} to ${formatEffect(last.intervalHigh, options.study)}.`,
-    width,
-    height,
-    xAxis: frame.xAxis,
-    yAxis: frame.yAxis,
-    inner: frame.inner,
-    marks: Object.freeze(marks),
-    legend: Object.freeze(legend),
+    marks,
+    legend,
     table: Object.freeze({
       caption: `Estimate range and ${level} sensitivity interval by Γ`,
       columns: ['Γ', 'estimate low', 'estimate high', 'interval low', 'interval high'],

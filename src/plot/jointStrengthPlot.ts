@@ -5,6 +5,8 @@ import { formatEValue, formatPlain } from '../io/eValueText';
 import { exposureLabel, outcomeLabel } from '../io/studyLabels';
 import type { StudyLabels } from '../io/studyLabels';
 import { createFrame } from './frame';
+import { equalStrengthDiagonal } from './equalStrengthDiagonal';
+import { framedPlotSpec } from './framedPlotSpec';
 import type { Frame } from './frame';
 import { palette } from './palette';
 import { polygonPath, polylinePath } from './pathData';
@@ -82,17 +84,7 @@ export function jointStrengthPlot(result: EValueResult, options: JointStrengthPl
   }
 
   // The diagonal of equal strengths, where the E-values lie.
-  marks.push({
-    kind: 'rule',
-    x1: frame.x(1),
-    y1: frame.y(1),
-    x2: frame.x(top),
-    y2: frame.y(top),
-    stroke: palette.contour,
-    strokeWidth: 1,
-    dash: '2 4',
-    label: 'Equal strengths with exposure and outcome',
-  });
+  marks.push(equalStrengthDiagonal(frame, top, 'Equal strengths with exposure and outcome'));
 
   if (drawable(estimateRatio)) {
     marks.push({
@@ -157,17 +149,12 @@ export function jointStrengthPlot(result: EValueResult, options: JointStrengthPl
   marks.push(...placeLabels(points, inner));
   if (confounders.length > 0) legend.push({ label: 'reference confounder', color: palette.reference, swatch: 'square' });
 
-  return Object.freeze({
+  return framedPlotSpec(frame, {
     id: 'joint-strength',
     title: `Confounder strengths that would ${goal} the estimate`,
     description: describePlot(result, exposure, outcome),
-    width,
-    height,
-    xAxis: frame.xAxis,
-    yAxis: frame.yAxis,
-    inner,
-    marks: Object.freeze(marks),
-    legend: Object.freeze(legend),
+    marks,
+    legend,
     table: dataTable(result, confounders, top),
   });
 }

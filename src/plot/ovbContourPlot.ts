@@ -8,6 +8,7 @@ import { formatNumber, formatPercent } from '../io/formatNumber';
 import { exposureLabel, outcomeLabel, type StudyLabels } from '../io/studyLabels';
 import { plainNumber } from '../io/ovbText';
 import { createFrame } from './frame';
+import { framedPlotSpec } from './framedPlotSpec';
 import { palette } from './palette';
 import { polygonPath, polylinePath } from './pathData';
 import type { DataTable, LegendItem, PlotMark, PlotSpec } from './plotSpec';
@@ -171,17 +172,12 @@ export function ovbContourPlot(result: OvbResult, options: OvbContourOptions): P
 
   placePointLabels(marks, inner);
 
-  return Object.freeze({
+  return framedPlotSpec(frame, {
     id: kind === 'estimate' ? 'ovb-estimate-contours' : 'ovb-t-contours',
     title: kind === 'estimate' ? 'Adjusted estimate by strength of a hidden confounder' : 'Adjusted t-statistic by strength of a hidden confounder',
     description: describe(result, kind, exposure, outcome, unshown),
-    width,
-    height,
-    xAxis: frame.xAxis,
-    yAxis: frame.yAxis,
-    inner,
-    marks: Object.freeze(marks),
-    legend: Object.freeze(legend),
+    marks,
+    legend,
     table: dataTable(result, kind, value, unadjusted, boundary.curves, scenario ?? null),
   });
 }
@@ -370,8 +366,7 @@ function levelLines(
   const lines: LevelLine[] = [];
   for (const polygon of generator(grid as unknown as number[])) {
     const rings: [number, number][][] = [];
-    let labelAt: [number, number] | null = null;
-    let best = -Infinity;
+    const inside: [number, number][] = [];
     for (const poly of polygon.coordinates) {
       for (const ring of poly) {
         // Keep only the parts of the ring inside the grid: the grid's border is not a level line.
@@ -385,17 +380,13 @@ function levelLines(
           }
           const p = toData(gx, gy);
           part.push(p);
-          // label where the line is furthest up and right, but not at the very edge
-          const score = p[0] / maxX + p[1] / maxY;
-          if (p[0] < 0.93 * maxX && p[1] < 0.95 * maxY && p[0] > 0.05 * maxX && score > best) {
-            best = score;
-            labelAt = p;
-          }
+          inside.push(p);
         }
         if (part.length > 1) rings.push(part);
       }
     }
-    if (rings.length > 0) lines.push({ level: polygon.value, rings, labelAt });
+    // label where the line is furthest up and right, but not at the very edge
+    if (rings.length > 0) lines.push({ level: polygon.value, rings, labelAt: labelPosition(inside, maxX, maxY) });
   }
   return lines;
 }
@@ -417,16 +408,7 @@ function estimateLevelLines(result: OvbResult, levels: readonly number[], maxX: 
     if (!(start < maxX)) continue;
     const ring: [number, number][] = [];
     for (const b of sweep(start, maxX, [], LEVEL_SAMPLES)) ring.push([b, Math.min(maxY, (g2 * (1 - b)) / b)]);
-    let labelAt: [number, number] | null = null;
-    let best = -Infinity;
-    for (const p of ring) {
-      const score = p[0] / maxX + p[1] / maxY;
-      if (p[0] < 0.93 * maxX && p[1] < 0.95 * maxY && p[0] > 0.05 * maxX && score > best) {
-        best = score;
-        labelAt = p;
-      }
-    }
-    lines.push({ level, rings: [ring], labelAt });
+    lines.push({ level, rings: [ring], labelAt: labelPosition(ring, maxX, maxY) });
   }
   return lines;
 }
@@ -471,19 +453,27 @@ function tLevelLines(result: OvbResult, levels: readonly number[], maxX: number,
     // the tip); NaN points break it where a root leaves the plot.
     const ring: [number, number][] = [...high.slice().reverse(), ...low];
     if (!ring.some(([, a]) => Number.isFinite(a))) continue;
-    let labelAt: [number, number] | null = null;
-    let best = -Infinity;
-    for (const p of ring) {
-      if (!Number.isFinite(p[1])) continue;
-      const score = p[0] / maxX + p[1] / maxY;
-      if (p[0] < 0.93 * maxX && p[1] < 0.95 * maxY && p[0] > 0.05 * maxX && score > best) {
-        best = score;
-        labelAt = p;
-      }
-    }
-    lines.push({ level, rings: [ring], labelAt });
+    lines.push({ level, rings: [ring], labelAt: labelPosition(ring, maxX, maxY) });
   }
   return lines;
+}
+
+/**
+ * Where a level line's label goes: its point farthest towards the top right (by x/maxX + y/maxY) that keeps
+ * clear of the plot's edges; null when no point does. Points with no value (NaN) are skipped.
+ */
+function labelPosition(ring: readonly [number, number][], maxX: number, maxY: number): [number, number] | null {
+  let labelAt: [number, number] | null = null;
+  let best = -Infinity;
+  for (const p of ring) {
+    if (!Number.isFinite(p[1])) continue;
+    const score = p[0] / maxX + p[1] / maxY;
+    if (p[0] < 0.93 * maxX && p[1] < 0.95 * maxY && p[0] > 0.05 * maxX && score > best) {
+      best = score;
+      labelAt = p;
+    }
+  }
+  return labelAt;
 }
 
 /** About eight round levels across the values shown, leaving out the flip level (drawn exactly). */

@@ -5,6 +5,7 @@ import { formatNumber, formatPercent } from '../io/formatNumber';
 import { exposureLabel, outcomeLabel, unitsSuffix, type StudyLabels } from '../io/studyLabels';
 import { plainNumber } from '../io/ovbText';
 import { createFrame } from './frame';
+import { framedPlotSpec } from './framedPlotSpec';
 import { palette, seriesColors, seriesDashes } from './palette';
 import { polylinePath } from './pathData';
 import type { LegendItem, PlotMark, PlotSpec } from './plotSpec';
@@ -96,20 +97,15 @@ export function ovbExtremeScenarioPlot(result: OvbResult, options: OvbExtremeSce
   for (const c of curves) {
     for (let i = 0; i <= CURVE_POINTS; i += CURVE_POINTS / 10) rows.push([formatPercent(c.r2yz, 0), 'curve', formatPercent(c.points[i][0]), formatNumber(c.points[i][1], { significant: 4 })]);
   }
-  return Object.freeze({
+  return framedPlotSpec(frame, {
     id: 'ovb-extreme-scenarios',
     title: 'Adjusted estimate if the confounder explained much of the outcome',
     description: `The estimate adjusted for a hidden confounder that explains all, 75% or 50% of the residual variance of ${outcome}, by its partial R² with ${exposure}. ${result.extremeScenarios
       .filter((e) => Number.isFinite(e.r2dzToReach))
       .map((e) => `With ${formatPercent(e.r2yz, 0)} it must explain ${formatPercent(e.r2dzToReach)} of ${exposure} to reach ${formatNumber(result.threshold, { significant: 3 })}.`)
       .join(' ')}`,
-    width,
-    height,
-    xAxis: frame.xAxis,
-    yAxis: frame.yAxis,
-    inner,
-    marks: Object.freeze(marks),
-    legend: Object.freeze(legend),
+    marks,
+    legend,
     table: { caption: 'Adjusted estimate under extreme scenarios', columns: ['R²(Y~Z|D,X)', 'row', 'R²(D~Z|X)', 'adjusted estimate'], rows },
   });
 }

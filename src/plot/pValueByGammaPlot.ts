@@ -3,6 +3,7 @@ import { formatPValue } from '../io/formatNumber';
 import { formatGamma, formatGammaValue, formatAsTyped } from '../io/pairsText';
 import type { StudyLabels } from '../io/studyLabels';
 import { createFrame } from './frame';
+import { framedPlotSpec } from './framedPlotSpec';
 import { palette } from './palette';
 import { polylinePath } from './pathData';
 import type { LegendItem, PlotMark, PlotSpec } from './plotSpec';
@@ -110,17 +111,12 @@ export function pValueByGammaPlot(result: PairsResult, options: PairsPlotOptions
       : result.sensitivityStatus === 'not-significant'
         ? `The p-value is above α = ${formatAsTyped(result.alpha)} already at Γ = 1.`
         : `The upper bound stays below α over the whole searched range.`;
-  return Object.freeze({
+  return framedPlotSpec(frame, {
     id: 'pairs-p-value-by-gamma',
     title: `How the ${testName} test's p-value bounds grow with hidden bias`,
     description: `Upper and lower bounds on the one-sided p-value for Γ from 1 to ${formatGammaValue(gammaMax)}. ${tipping}`,
-    width,
-    height,
-    xAxis: frame.xAxis,
-    yAxis: frame.yAxis,
-    inner: frame.inner,
-    marks: Object.freeze(marks),
-    legend: Object.freeze(legend),
+    marks,
+    legend,
     table: Object.freeze({
       caption: `p-value bounds by Γ (${result.tailMethod === 'exact' ? 'exact' : 'normal approximation'})`,
       columns: ['Γ', 'p upper bound', 'p lower bound'],
