@@ -87,6 +87,19 @@ describe('the appraisal workspace in Chromium', () => {
     await expect.poll(() => currentAppraisal(page)).toEqual(before);
   });
 
+  it('restores everything after a reload (kept in this browser)', async () => {
+    const { page } = session;
+    await openTab(page, 'Reported estimate');
+    await page.getByLabel('Finding', { exact: true }).fill('Kept across a reload (fictional)');
+    await page.locator('lurk-evalue').getByLabel('Estimate', { exact: true }).fill('0.7');
+    const before = await currentAppraisal(page);
+    await page.reload();
+    await page.locator('lurk-evalue').waitFor();
+    await expect.poll(() => currentAppraisal(page)).toEqual(before);
+    expect(await page.getByText('Fictional demo:').count()).toBe(0);
+    await page.locator('lurk-evalue').getByLabel('Estimate', { exact: true }).fill('0.72');
+  });
+
   it('refuses a file that is not an appraisal and keeps the current work', async () => {
     const { page } = session;
     const before = await currentAppraisal(page);
