@@ -85,6 +85,18 @@ export interface CalculatorState {
  * @property notice - a message about saving, opening or sharing.
  * @fires lurk-view-change - {view} when the user opens another tab.
  * @fires lurk-appraisal-change - {appraisal} after the user changed anything (the page keeps it for the next visit).
+ * @cssprop --lurk-font - font family
+ * @cssprop --lurk-text - text colour
+ * @cssprop --lurk-muted - colour of hints and secondary text
+ * @cssprop --lurk-bg - background of inputs and panels
+ * @cssprop --lurk-surface - background of result cards and notes
+ * @cssprop --lurk-border - border colour
+ * @cssprop --lurk-accent - colour of buttons, links and the selected tab
+ * @cssprop --lurk-accent-text - text on the accent colour
+ * @cssprop --lurk-error - colour of error messages and invalid fields
+ * @cssprop --lurk-warning-bg - background of warnings
+ * @cssprop --lurk-focus - focus outline colour
+ * @cssprop --lurk-radius - corner radius
  */
 @customElement('lurk-app')
 export class LurkApp extends LitElement {

@@ -42,6 +42,18 @@ Fictional cohort G: coffee and tremor,rr,1.08,0.91,1.28,,,
  * @property text - the CSV text (pasted or read from a file).
  * @property alpha - the significance level for RV at α, as typed.
  * @fires lurk-batch-change - {text, alpha} after the user changes the data or α.
+ * @cssprop --lurk-font - font family
+ * @cssprop --lurk-text - text colour
+ * @cssprop --lurk-muted - colour of hints and secondary text
+ * @cssprop --lurk-bg - background of inputs and panels
+ * @cssprop --lurk-surface - background of result cards and notes
+ * @cssprop --lurk-border - border colour
+ * @cssprop --lurk-accent - colour of buttons, links and the selected tab
+ * @cssprop --lurk-accent-text - text on the accent colour
+ * @cssprop --lurk-error - colour of error messages and invalid fields
+ * @cssprop --lurk-warning-bg - background of warnings
+ * @cssprop --lurk-focus - focus outline colour
+ * @cssprop --lurk-radius - corner radius
  */
 @customElement('lurk-batch')
 export class LurkBatch extends LitElement {

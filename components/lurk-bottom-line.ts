@@ -9,6 +9,18 @@ import { baseStyles } from './styles/base';
  * compared with measured factors, what would and would not change the conclusion, and the caution.
  *
  * @property appraisal - the current appraisal (study labels and calculator summaries).
+ * @cssprop --lurk-font - font family
+ * @cssprop --lurk-text - text colour
+ * @cssprop --lurk-muted - colour of hints and secondary text
+ * @cssprop --lurk-bg - background of inputs and panels
+ * @cssprop --lurk-surface - background of result cards and notes
+ * @cssprop --lurk-border - border colour
+ * @cssprop --lurk-accent - colour of buttons, links and the selected tab
+ * @cssprop --lurk-accent-text - text on the accent colour
+ * @cssprop --lurk-error - colour of error messages and invalid fields
+ * @cssprop --lurk-warning-bg - background of warnings
+ * @cssprop --lurk-focus - focus outline colour
+ * @cssprop --lurk-radius - corner radius
  */
 @customElement('lurk-bottom-line')
 export class LurkBottomLine extends LitElement {

@@ -48,6 +48,18 @@ const HEAD_BYTES = 256 * 1024;
  * @fires lurk-inputs-change - {inputs} after every edit by the user.
  * @fires lurk-result - {result, problems} when a user's action gives a new result (null while there is none).
  * @csspart results - the results column.
+ * @cssprop --lurk-font - font family
+ * @cssprop --lurk-text - text colour
+ * @cssprop --lurk-muted - colour of hints and secondary text
+ * @cssprop --lurk-bg - background of inputs and panels
+ * @cssprop --lurk-surface - background of result cards and notes
+ * @cssprop --lurk-border - border colour
+ * @cssprop --lurk-accent - colour of buttons, links and the selected tab
+ * @cssprop --lurk-accent-text - text on the accent colour
+ * @cssprop --lurk-error - colour of error messages and invalid fields
+ * @cssprop --lurk-warning-bg - background of warnings
+ * @cssprop --lurk-focus - focus outline colour
+ * @cssprop --lurk-radius - corner radius
  */
 @customElement('lurk-ovb')
 export class LurkOvb extends LitElement {

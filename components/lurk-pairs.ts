@@ -57,6 +57,18 @@ const SOURCES: ReadonlyArray<{ id: PairsSource; label: string }> = [
  * @fires lurk-inputs-change - {inputs} after every edit by the user.
  * @fires lurk-result - {result, problems} when a user's edit gives a new result (result null while there are problems).
  * @csspart results - the results column.
+ * @cssprop --lurk-font - font family
+ * @cssprop --lurk-text - text colour
+ * @cssprop --lurk-muted - colour of hints and secondary text
+ * @cssprop --lurk-bg - background of inputs and panels
+ * @cssprop --lurk-surface - background of result cards and notes
+ * @cssprop --lurk-border - border colour
+ * @cssprop --lurk-accent - colour of buttons, links and the selected tab
+ * @cssprop --lurk-accent-text - text on the accent colour
+ * @cssprop --lurk-error - colour of error messages and invalid fields
+ * @cssprop --lurk-warning-bg - background of warnings
+ * @cssprop --lurk-focus - focus outline colour
+ * @cssprop --lurk-radius - corner radius
  */
 @customElement('lurk-pairs')
 export class LurkPairs extends LitElement {

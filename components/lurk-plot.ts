@@ -24,6 +24,19 @@ export interface PlotPointerDetail {
  * @fires lurk-figure-export - {format: 'svg' | 'png', fileName} after the user exported the figure.
  * @csspart figure - the figure element holding the SVG.
  * @csspart table - the data table.
+ * @cssprop --lurk-font - font family
+ * @cssprop --lurk-text - text colour
+ * @cssprop --lurk-muted - colour of hints and secondary text
+ * @cssprop --lurk-bg - background of inputs and panels
+ * @cssprop --lurk-surface - background of result cards and notes
+ * @cssprop --lurk-border - border colour
+ * @cssprop --lurk-accent - colour of buttons, links and the selected tab
+ * @cssprop --lurk-accent-text - text on the accent colour
+ * @cssprop --lurk-error - colour of error messages and invalid fields
+ * @cssprop --lurk-warning-bg - background of warnings
+ * @cssprop --lurk-focus - focus outline colour
+ * @cssprop --lurk-radius - corner radius
+ * @cssprop --lurk-plot-max-width - the widest the plot is drawn (default 640px)
  */
 @customElement('lurk-plot')
 export class LurkPlot extends LitElement {

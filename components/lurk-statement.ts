@@ -17,6 +17,18 @@ const FORMATS: ReadonlyArray<{ id: StatementFormat; label: string; ext: string; 
  *
  * @property appraisal - the current appraisal (study labels and calculator summaries).
  * @fires lurk-statement-copy - {format} after the user copied the statement.
+ * @cssprop --lurk-font - font family
+ * @cssprop --lurk-text - text colour
+ * @cssprop --lurk-muted - colour of hints and secondary text
+ * @cssprop --lurk-bg - background of inputs and panels
+ * @cssprop --lurk-surface - background of result cards and notes
+ * @cssprop --lurk-border - border colour
+ * @cssprop --lurk-accent - colour of buttons, links and the selected tab
+ * @cssprop --lurk-accent-text - text on the accent colour
+ * @cssprop --lurk-error - colour of error messages and invalid fields
+ * @cssprop --lurk-warning-bg - background of warnings
+ * @cssprop --lurk-focus - focus outline colour
+ * @cssprop --lurk-radius - corner radius
  */
 @customElement('lurk-statement')
 export class LurkStatement extends LitElement {
