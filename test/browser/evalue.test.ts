@@ -3,32 +3,26 @@ import { page, userEvent } from 'vitest/browser';
 import axe from 'axe-core';
 import '../../components/lurk-evalue';
 import type { LurkEValue } from '../../components/lurk-evalue';
+import { mountElement, settleElement, shadowText, waitUntil, type RecordedEvent } from '../support/mountElement';
 
 let element: LurkEValue;
-let events: { type: string; detail: any }[];
+let events: RecordedEvent[];
 
 beforeEach(async () => {
-  await page.viewport(1280, 1500);
-  element = document.createElement('lurk-evalue');
-  element.study = { finding: 'Fictional example', exposure: 'cycling to work', outcome: 'hypertension', units: '', source: '' };
-  events = [];
-  for (const type of ['lurk-inputs-change', 'lurk-result']) {
-    element.addEventListener(type, (e) => events.push({ type, detail: (e as CustomEvent).detail }));
-  }
-  document.body.append(element);
-  await element.updateComplete;
+  ({ element, events } = await mountElement<LurkEValue>('lurk-evalue', {
+    viewport: { width: 1280, height: 1500 },
+    configure: (e) => {
+      e.study = { finding: 'Fictional example', exposure: 'cycling to work', outcome: 'hypertension', units: '', source: '' };
+    },
+  }));
 });
 
 afterEach(() => element.remove());
 
 const shadow = () => element.shadowRoot as ShadowRoot;
-const text = (selector: string) => (shadow().querySelector(selector)?.textContent ?? '').replace(/\s+/g, ' ').trim();
-
-async function settle() {
-  await element.updateComplete;
-  const plot = shadow().querySelector('lurk-plot') as (HTMLElement & { updateComplete: Promise<unknown> }) | null;
-  if (plot) await plot.updateComplete;
-}
+const text = (selector: string) => shadowText(element, selector);
+const settle = () => settleElement(element);
+const until = (check: () => boolean, ms = 15000) => waitUntil(check, settle, ms, 10);
 
 describe('<lurk-evalue>', () => {
   it('has no accessibility violations, empty and filled in', async () => {
@@ -148,7 +142,8 @@ describe('<lurk-evalue>', () => {
   it('an empty CSV file is refused with a message beside the file field', async () => {
     await userEvent.click(page.getByLabelText('A CSV file, one row per person'));
     await userEvent.upload(page.getByLabelText('CSV file', { exact: true }), new File([''], 'empty.csv', { type: 'text/csv' }));
-    await settle();
+    // Reading the file is asynchronous: wait for its outcome rather than a fixed number of renders.
+    await until(() => text('#file-error') !== '');
     expect(text('#file-error')).toBe('empty.csv: the file is empty');
     expect(shadow().querySelector('#file')?.getAttribute('aria-invalid')).toBe('true');
     expect(shadow().querySelector('#evalue-estimate')).toBeNull();

@@ -3,39 +3,23 @@ import { page, userEvent } from 'vitest/browser';
 import axe from 'axe-core';
 import '../../components/lurk-ovb';
 import type { LurkOvb } from '../../components/lurk-ovb';
+import { mountElement, settleElement, shadowText, waitUntil, type RecordedEvent } from '../support/mountElement';
 import swissText from '../reference/swiss.csv?raw';
 import ovb from '../reference/ovb.json';
 
 let element: LurkOvb;
-let events: { type: string; detail: any }[];
+let events: RecordedEvent[];
 
 beforeEach(async () => {
-  await page.viewport(1280, 2400);
-  element = document.createElement('lurk-ovb');
-  events = [];
-  for (const type of ['lurk-inputs-change', 'lurk-result']) element.addEventListener(type, (e) => events.push({ type, detail: (e as CustomEvent).detail }));
-  document.body.append(element);
-  await element.updateComplete;
+  ({ element, events } = await mountElement<LurkOvb>('lurk-ovb', { viewport: { width: 1280, height: 2400 } }));
 });
 
 afterEach(() => element.remove());
 
 const shadow = () => element.shadowRoot as ShadowRoot;
-const text = (selector: string) => (shadow().querySelector(selector)?.textContent ?? '').replace(/\s+/g, ' ').trim();
-
-async function settle() {
-  await element.updateComplete;
-  for (const plot of shadow().querySelectorAll('lurk-plot')) await (plot as HTMLElement & { updateComplete: Promise<unknown> }).updateComplete;
-}
-
-async function until(check: () => boolean, ms = 15000) {
-  const start = performance.now();
-  while (!check()) {
-    if (performance.now() - start > ms) throw new Error('timed out waiting for the page');
-    await new Promise((r) => setTimeout(r, 50));
-  }
-  await settle();
-}
+const text = (selector: string) => shadowText(element, selector);
+const settle = () => settleElement(element);
+const until = (check: () => boolean, ms = 15000) => waitUntil(check, settle, ms, 50);
 
 describe('<lurk-ovb>', () => {
   it('reproduces the published example from reported numbers', async () => {

@@ -4,44 +4,28 @@ import { page, userEvent } from 'vitest/browser';
 import axe from 'axe-core';
 import '../../components/lurk-pairs';
 import type { LurkPairs } from '../../components/lurk-pairs';
+import { mountElement, settleElement, shadowText, waitUntil, type RecordedEvent } from '../support/mountElement';
 import smallN15 from '../reference/rosenbaum_small_n15.csv?raw';
 import reference from '../reference/rosenbaum.json';
 
 let element: LurkPairs;
-let events: { type: string; detail: any }[];
+let events: RecordedEvent[];
 
 beforeEach(async () => {
-  await page.viewport(1280, 1800);
-  element = document.createElement('lurk-pairs');
-  element.study = { finding: 'Fictional example', exposure: 'the new ward routine', outcome: 'recovery score', units: 'points', source: '' };
-  events = [];
-  for (const type of ['lurk-inputs-change', 'lurk-result']) {
-    element.addEventListener(type, (e) => events.push({ type, detail: (e as CustomEvent).detail }));
-  }
-  document.body.append(element);
-  await element.updateComplete;
+  ({ element, events } = await mountElement<LurkPairs>('lurk-pairs', {
+    viewport: { width: 1280, height: 1800 },
+    configure: (e) => {
+      e.study = { finding: 'Fictional example', exposure: 'the new ward routine', outcome: 'recovery score', units: 'points', source: '' };
+    },
+  }));
 });
 
 afterEach(() => element.remove());
 
 const shadow = () => element.shadowRoot as ShadowRoot;
-const text = (selector: string) => (shadow().querySelector(selector)?.textContent ?? '').replace(/\s+/g, ' ').trim();
-
-async function settle() {
-  for (let i = 0; i < 3; i++) {
-    await element.updateComplete;
-    for (const plot of shadow().querySelectorAll('lurk-plot')) await (plot as HTMLElement & { updateComplete: Promise<unknown> }).updateComplete;
-  }
-}
-
-async function until(condition: () => boolean, ms = 20_000) {
-  const start = performance.now();
-  while (!condition()) {
-    if (performance.now() - start > ms) throw new Error('timed out waiting for the page');
-    await new Promise((r) => setTimeout(r, 10));
-  }
-  await settle();
-}
+const text = (selector: string) => shadowText(element, selector);
+const settle = () => settleElement(element, 3);
+const until = (condition: () => boolean, ms = 20_000) => waitUntil(condition, settle, ms, 10);
 
 describe('<lurk-pairs>', () => {
   it('loads a CSV through the file input and shows the tipping Γ and the table', async () => {
