@@ -1,14 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { designFromCrossProducts, validateCrossProducts, type CrossProductInput } from '../../src/core/crossProductFit';
-import { InputError } from '../../src/core/inputProblem';
 import { fitLeastSquares, INTERCEPT_NAME } from '../../src/core/linearModel';
 import { expectClose } from '../support/expectClose';
-import { readReferenceJson, readReferenceText } from '../support/reference';
-
-function readNumericCsv(name: string): { names: string[]; rows: number[][] } {
-  const lines = readReferenceText(name).trim().split(/\r?\n/);
-  return { names: lines[0].split(',').map((h) => h.replace(/"/g, '')), rows: lines.slice(1).map((l) => l.split(',').map(Number)) };
-}
+import { readNumericCsv } from '../support/numericCsv';
+import { readReferenceJson } from '../support/reference';
+import { problemsOf } from '../support/thrownProblems';
 
 function rawInput(names: string[], rows: number[][]): CrossProductInput {
   const k = names.length;
@@ -29,16 +25,6 @@ function covarianceInput(names: string[], rows: number[][]): CrossProductInput {
   const means = names.map((_, j) => rows.reduce((s, r) => s + r[j], 0) / n);
   const covariance = names.map((_, i) => names.map((__, j) => rows.reduce((s, r) => s + (r[i] - means[i]) * (r[j] - means[j]), 0) / (n - 1)));
   return { kind: 'covariance', columnNames: names, rowCount: n, means, covariance };
-}
-
-function problemsOf(run: () => unknown): { field: string; code: string; message: string }[] {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof InputError) return [...error.problems];
-    throw error;
-  }
-  throw new Error('expected an InputError');
 }
 
 describe('designFromCrossProducts', () => {

@@ -10,25 +10,10 @@ import {
   subsetRegression,
   validateLeastSquares,
 } from '../../src/core/linearModel';
-import { InputError } from '../../src/core/inputProblem';
 import { expectClose } from '../support/expectClose';
-import { readReferenceJson, readReferenceText } from '../support/reference';
-
-function readNumericCsv(name: string): { names: string[]; rows: number[][] } {
-  const lines = readReferenceText(name).trim().split(/\r?\n/);
-  const names = lines[0].split(',').map((h) => h.replace(/^"|"$/g, ''));
-  return { names, rows: lines.slice(1).map((line) => line.split(',').map(Number)) };
-}
-
-function problemsOf(run: () => unknown): { field: string; code: string; message: string }[] {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof InputError) return [...error.problems];
-    throw error;
-  }
-  throw new Error('expected an InputError');
-}
+import { readNumericCsv } from '../support/numericCsv';
+import { readReferenceJson } from '../support/reference';
+import { problemsOf } from '../support/thrownProblems';
 
 const swissCovariates = ['Agriculture', 'Examination', 'Catholic', 'Infant.Mortality'];
 

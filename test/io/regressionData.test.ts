@@ -1,7 +1,6 @@
 import { Readable } from 'node:stream';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { InputError } from '../../src/core/inputProblem';
 import { designFromRows, fitLeastSquares, INTERCEPT_NAME, type LeastSquaresFit } from '../../src/core/linearModel';
 import {
   accumulateRegressionFromStream,
@@ -14,7 +13,9 @@ import {
 } from '../../src/io/regressionData';
 import { isMissingCell } from '../../src/io/missingCell';
 import { expectClose } from '../support/expectClose';
+import { readNumericCsv } from '../support/numericCsv';
 import { readReferenceJson, readReferenceText } from '../support/reference';
+import { problemsOf } from '../support/thrownProblems';
 
 const swissText = readReferenceText('swiss.csv');
 const swissSpec: RegressionDataSpec = {
@@ -36,21 +37,8 @@ function expectSameFit(actual: LeastSquaresFit, expected: LeastSquaresFit, rel =
   });
 }
 
-function problemsOf(run: () => unknown): { field: string; code: string; message: string }[] {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof InputError) return [...error.problems];
-    throw error;
-  }
-  throw new Error('expected an InputError');
-}
-
 /** Swiss as rows of numbers, with its header names. */
-function swissRows(): { names: string[]; rows: number[][] } {
-  const lines = swissText.trim().split(/\r?\n/);
-  return { names: lines[0].split(',').map((h) => h.replace(/"/g, '')), rows: lines.slice(1).map((l) => l.split(',').map(Number)) };
-}
+const swissRows = () => readNumericCsv('swiss.csv');
 
 describe('regressionDataFromText on R\'s swiss data', () => {
   // R 4.2.2 base lm: test/reference/ovb.json "swiss"
