@@ -25,6 +25,7 @@ import { eValueSummary, type EValueSummary } from '../src/io/calculatorSummaries
 import type { ReferenceConfounderAssessment } from '../src/core/referenceConfounder';
 import type { StudyLabels } from '../src/io/studyLabels';
 import { guessYesValues } from '../src/io/twoByTwoFromCsv';
+import { shownProblems } from '../src/io/shownProblems';
 import { jointStrengthPlot } from '../src/plot/jointStrengthPlot';
 import type { PlotSpec } from '../src/plot/plotSpec';
 import type { PlotPointerDetail } from './lurk-plot';
@@ -401,7 +402,7 @@ export class LurkEValue extends LitElement {
 
   /** The problem to show beside a field: "required" only once the user has started, everything else at once. */
   private problemFor(field: string): InputProblem | undefined {
-    return this.outcome.problems.find((p) => p.field === field && (this.outcome.started || p.code !== 'required'));
+    return shownProblems(this.outcome.problems, this.outcome.started).find((p) => p.field === field);
   }
 
   // ——— results ———
@@ -409,7 +410,7 @@ export class LurkEValue extends LitElement {
   private results(): TemplateResult {
     const result = this.outcome.result;
     if (!result) {
-      const shown = this.outcome.problems.filter((p) => this.outcome.started || p.code !== 'required');
+      const shown = shownProblems(this.outcome.problems, this.outcome.started);
       return html`<p class="waiting" role="status">
         ${shown.length > 0
           ? `Fix the ${shown.length === 1 ? 'field' : `${shown.length} fields`} marked in the form to see the E-values.`

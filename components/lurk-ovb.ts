@@ -12,6 +12,7 @@ import { OVB_CAUTION, ovbReading, plainNumber } from '../src/io/ovbText';
 import { runRegressionInWorker } from '../src/io/regressionWorkerClient';
 import { emptyStudy, type StudyLabels } from '../src/io/studyLabels';
 import { ovbSummary, type OvbSummary } from '../src/io/calculatorSummaries';
+import { shownProblems } from '../src/io/shownProblems';
 import { ovbContourPlot } from '../src/plot/ovbContourPlot';
 import { ovbExtremeScenarioPlot } from '../src/plot/ovbExtremeScenarioPlot';
 import type { PlotSpec } from '../src/plot/plotSpec';
@@ -322,7 +323,7 @@ export class LurkOvb extends LitElement {
 
   /** The problem to show beside a field: "required" only once the user has started, everything else at once. */
   private problemFor(field: string): InputProblem | undefined {
-    return this.outcome.problems.find((p) => p.field === field && (this.outcome.started || p.code !== 'required'));
+    return shownProblems(this.outcome.problems, this.outcome.started).find((p) => p.field === field);
   }
 
   // ——— results ———
@@ -330,7 +331,7 @@ export class LurkOvb extends LitElement {
   private results(): TemplateResult {
     const result = this.outcome.result;
     if (!result) {
-      const shown = this.outcome.problems.filter((p) => this.outcome.started || p.code !== 'required');
+      const shown = shownProblems(this.outcome.problems, this.outcome.started);
       return html`<p class="hint">
           ${this.outcome.started && shown.length > 0
             ? 'Correct the marked fields to see the analysis.'

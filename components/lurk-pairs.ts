@@ -20,6 +20,7 @@ import { PAIRS_CAUTION, formatAsTyped, formatEffect, formatGamma, pPhrase, pairs
 import type { PairsReadSummary } from '../src/io/pairsWorkerProtocol';
 import { runPairsInWorker, type PairsWorkerProgress } from '../src/io/pairsWorkerClient';
 import { emptyStudy, type StudyLabels } from '../src/io/studyLabels';
+import { shownProblems } from '../src/io/shownProblems';
 import { amplificationPlot } from '../src/plot/amplificationPlot';
 import { estimateRangePlot } from '../src/plot/estimateRangePlot';
 import { pValueByGammaPlot } from '../src/plot/pValueByGammaPlot';
@@ -287,7 +288,7 @@ export class LurkPairs extends LitElement {
 
   /** The problem to show beside a field: "required" only once the user has started, everything else at once. */
   private problemFor(field: string): InputProblem | undefined {
-    return this.problems.find((p) => p.field === field && (this.started || p.code !== 'required'));
+    return shownProblems(this.problems, this.started).find((p) => p.field === field);
   }
 
   // ——— events and computation ———
@@ -435,7 +436,7 @@ export class LurkPairs extends LitElement {
       return html`<p class="waiting" role="status">The analysis was cancelled; change any input to run it again.</p>`;
     }
     if (!result) {
-      const shown = this.problems.filter((p) => this.started || p.code !== 'required');
+      const shown = shownProblems(this.problems, this.started);
       return html`<p class="waiting" role="status">
         ${shown.length > 0
           ? `Fix the ${shown.length === 1 ? 'field' : `${shown.length} fields`} marked in the form to see the bounds.`
