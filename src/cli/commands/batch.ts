@@ -30,6 +30,7 @@ A row with a problem is reported with its problem; the other rows are still comp
   --csv    a CSV of the results, safe to open in a spreadsheet (text that would run as a formula is neutralised)
 
 A sensitivity analysis bounds how strong hidden confounding would have to be; it does not prove causation.
+Decisions about health or safety defer to domain experts, local guidance and licensed practice.
 `;
 
 export const command: LurkCommand = {
