@@ -33,14 +33,15 @@ export function parseOptions(
 
 /**
  * Node's parser reads the "-0.4" of `--estimate -0.4` as an option of its own; a value that looks like a
- * negative number, following an option that takes a value, is joined to it (`--estimate=-0.4`).
+ * negative number (a leading "-" or typographic minus before a digit, point or comma, as in "-0.87" or the list
+ * "a=-2.4:-2.6" after it), following an option that takes a value, is joined to it (`--estimate=-0.4`).
  */
 function attachNegativeValues(args: readonly string[], options: OptionKinds): string[] {
   const out: string[] = [];
   for (let i = 0; i < args.length; i++) {
-    const name = args[i].startsWith('--') ? args[i].slice(2) : null;
+    const name = /^--([\w-]+)$/.exec(args[i])?.[1];
     const next = args[i + 1];
-    if (name && options[name]?.type === 'string' && next !== undefined && /^-(\d|\.\d)/.test(next)) {
+    if (name && options[name]?.type === 'string' && next !== undefined && /^[-\u2212][\d.,]/.test(next)) {
       out.push(`${args[i]}=${next}`);
       i++;
     } else out.push(args[i]);

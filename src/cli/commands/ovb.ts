@@ -85,7 +85,7 @@ export const command: LurkCommand = {
   summary: 'omitted-variable bias of a regression estimate: robustness values, bounds from covariates',
   async run(args: readonly string[], io: CliIo): Promise<number> {
     try {
-      const { values, positionals } = parseOptions(joinNegativeValues(args), OPTIONS);
+      const { values, positionals } = parseOptions(args, OPTIONS);
       if (values.help) {
         io.out(HELP);
         return 0;
@@ -200,26 +200,6 @@ export const command: LurkCommand = {
     }
   },
 };
-
-/**
- * Estimates are often negative: "--estimate -0.87" is read as "--estimate=-0.87" (Node's option parser would
- * otherwise take "-0.87" for an option). Only for options that take a value, and only before a number-like
- * token (also "a=-2.4:-2.6" lists).
- */
-function joinNegativeValues(args: readonly string[]): string[] {
-  const out: string[] = [];
-  for (let i = 0; i < args.length; i++) {
-    const name = /^--([\w-]+)$/.exec(args[i])?.[1];
-    const next = args[i + 1];
-    if (name && OPTIONS[name]?.type === 'string' && next !== undefined && /^[-\u2212][\d.,]/.test(next)) {
-      out.push(`${args[i]}=${next}`);
-      i++;
-    } else {
-      out.push(args[i]);
-    }
-  }
-  return out;
-}
 
 function requiredNumber(value: string | boolean | undefined, option: string): number {
   const n = numberOption(value, option);

@@ -75,7 +75,7 @@ export const command: LurkCommand = {
   async run(args: readonly string[], io: CliIo): Promise<number> {
     let discordantInput = false;
     try {
-      const { values, positionals } = parseOptions(attachNegativeValues(args), OPTIONS);
+      const { values, positionals } = parseOptions(args, OPTIONS);
       if (values.help) {
         io.out(HELP);
         return 0;
@@ -152,16 +152,3 @@ async function readPairsFile(path: string, spec: Parameters<typeof pairsFromCsvS
   }
 }
 
-/** A negative number right after an option that takes a value belongs to that option (e.g. --gamma values never are, but --diff names may start with '-'). */
-function attachNegativeValues(args: readonly string[]): string[] {
-  const out: string[] = [];
-  for (let i = 0; i < args.length; i++) {
-    const name = args[i].startsWith('--') ? args[i].slice(2) : null;
-    const next = args[i + 1];
-    if (name && OPTIONS[name]?.type === 'string' && next !== undefined && /^-(\d|\.\d)/.test(next)) {
-      out.push(`${args[i]}=${next}`);
-      i++;
-    } else out.push(args[i]);
-  }
-  return out;
-}
