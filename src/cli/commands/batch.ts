@@ -1,11 +1,11 @@
 import { appraiseBatchCsv, BATCH_COLUMNS, BATCH_MEASURES, type BatchResult } from '../../io/batchFindings';
 import { batchCsvText } from '../../io/batchCsv';
 import { formatNumber, formatPercent } from '../../io/formatNumber';
-import type { CliIo } from '../cliIo';
 import type { LurkCommand } from '../main';
-import { numberOption, parseOptions, type OptionKinds } from '../parseOptions';
-import { UsageError, reportBadInput } from '../usageError';
+import { numberOption, type OptionKinds } from '../parseOptions';
+import { UsageError } from '../usageError';
 import { readFileArgument } from '../readFileArgument';
+import { defineCommand } from '../defineCommand';
 
 const OPTIONS: OptionKinds = {
   json: { type: 'boolean' },
@@ -33,30 +33,24 @@ A sensitivity analysis bounds how strong hidden confounding would have to be; it
 Decisions about health or safety defer to domain experts, local guidance and licensed practice.
 `;
 
-export const command: LurkCommand = {
+export const command: LurkCommand = defineCommand({
+  name: 'batch',
   summary: 'E-values and robustness values for a CSV of many reported findings',
-  async run(args: readonly string[], io: CliIo): Promise<number> {
-    try {
-      const { values, positionals } = parseOptions(args, OPTIONS);
-      if (values.help) {
-        io.out(HELP);
-        return 0;
-      }
-      if (positionals.length !== 1) throw new UsageError('FILE', 'give exactly one CSV file of reported findings');
-      if (values.json && values.csv) throw new UsageError('--csv', 'choose --json or --csv, not both');
-      const alpha = numberOption(values.alpha, '--alpha') ?? 0.05;
-      if (!(alpha > 0 && alpha < 1)) throw new UsageError('--alpha', `must be between 0 and 1, got ${alpha}`);
-      const text = await readFileArgument(io, positionals[0], 'FILE');
-      const result = appraiseBatchCsv(text, alpha);
-      if (values.json) io.out(JSON.stringify(result, null, 2) + '\n');
-      else if (values.csv) io.out(batchCsvText(result));
-      else io.out(batchReport(result));
-      return 0;
-    } catch (error) {
-      return reportBadInput('batch', error, io);
-    }
+  help: HELP,
+  options: OPTIONS,
+  async run({ values, positionals }, io) {
+    if (positionals.length !== 1) throw new UsageError('FILE', 'give exactly one CSV file of reported findings');
+    if (values.json && values.csv) throw new UsageError('--csv', 'choose --json or --csv, not both');
+    const alpha = numberOption(values.alpha, '--alpha') ?? 0.05;
+    if (!(alpha > 0 && alpha < 1)) throw new UsageError('--alpha', `must be between 0 and 1, got ${alpha}`);
+    const text = await readFileArgument(io, positionals[0], 'FILE');
+    const result = appraiseBatchCsv(text, alpha);
+    if (values.json) io.out(JSON.stringify(result, null, 2) + '\n');
+    else if (values.csv) io.out(batchCsvText(result));
+    else io.out(batchReport(result));
+    return 0;
   },
-};
+});
 
 /** A readable table. */
 export function batchReport(result: BatchResult): string {

@@ -23,9 +23,10 @@ import { twoByTwoFromCsv } from '../../io/twoByTwoFromCsv';
 import type { TwoByTwoFromCsv } from '../../io/twoByTwoFromCsv';
 import type { CliIo } from '../cliIo';
 import type { LurkCommand } from '../main';
-import { choiceOption, numberListOption, numberOption, parseOptions } from '../parseOptions';
+import { choiceOption, numberListOption, numberOption } from '../parseOptions';
 import type { OptionKinds } from '../parseOptions';
-import { UsageError, reportBadInput } from '../usageError';
+import { UsageError } from '../usageError';
+import { defineCommand } from '../defineCommand';
 
 const OPTIONS: OptionKinds = {
   measure: { type: 'string', short: 'm' },
@@ -81,25 +82,19 @@ ${E_VALUE_CAUTION}
 `;
 
 /** `lurk evalue`: E-values from a reported estimate, a 2×2 table or a CSV file. */
-export const command: LurkCommand = {
+export const command: LurkCommand = defineCommand({
+  name: 'evalue',
   summary: 'E-value for a risk, odds or hazard ratio, a standardized or raw mean difference, or a 2×2 table',
-  async run(args: readonly string[], io: CliIo): Promise<number> {
-    try {
-      const { values } = parseOptions(args, OPTIONS);
-      if (values.help) {
-        io.out(HELP);
-        return 0;
-      }
-      const analysis = await analyse(values, io);
-      const confounders = referenceConfounders(values['reference-confounders']).map((c) => assessReferenceConfounder(analysis.result, c));
-      if (values.json) io.out(JSON.stringify(jsonReport(analysis, confounders), null, 2) + '\n');
-      else io.out(textReport(analysis, confounders));
-      return 0;
-    } catch (error) {
-      return reportBadInput('evalue', error, io);
-    }
+  help: HELP,
+  options: OPTIONS,
+  async run({ values }, io) {
+    const analysis = await analyse(values, io);
+    const confounders = referenceConfounders(values['reference-confounders']).map((c) => assessReferenceConfounder(analysis.result, c));
+    if (values.json) io.out(JSON.stringify(jsonReport(analysis, confounders), null, 2) + '\n');
+    else io.out(textReport(analysis, confounders));
+    return 0;
   },
-};
+});
 
 interface Analysis {
   readonly result: EValueResult;

@@ -14,9 +14,10 @@ import { ovbExtremeScenarioPlot } from '../../plot/ovbExtremeScenarioPlot';
 import { renderSvgString } from '../../plot/svgString';
 import type { CliIo } from '../cliIo';
 import type { LurkCommand } from '../main';
-import { choiceOption, numberListOption, numberOption, parseOptions, type OptionKinds } from '../parseOptions';
-import { UsageError, reportBadInput } from '../usageError';
+import { choiceOption, numberListOption, numberOption, type OptionKinds } from '../parseOptions';
+import { UsageError } from '../usageError';
 import { readFileArgument } from '../readFileArgument';
+import { defineCommand } from '../defineCommand';
 
 const OPTIONS: OptionKinds = {
   estimate: { type: 'string' },
@@ -81,125 +82,119 @@ A sensitivity analysis bounds how strong hidden confounding would have to be; it
 Decisions about health or safety defer to domain experts, local guidance and licensed practice.
 `;
 
-export const command: LurkCommand = {
+export const command: LurkCommand = defineCommand({
+  name: 'ovb',
   summary: 'omitted-variable bias of a regression estimate: robustness values, bounds from covariates',
-  async run(args: readonly string[], io: CliIo): Promise<number> {
-    try {
-      const { values, positionals } = parseOptions(args, OPTIONS);
-      if (values.help) {
-        io.out(HELP);
-        return 0;
-      }
-      if (positionals.length > 0) throw new UsageError(positionals[0], 'is not an option (see lurk ovb --help)');
-      const text = (name: string): string | undefined => {
-        const v = values[name];
-        if (v === undefined) return undefined;
-        if (typeof v !== 'string' || v.trim() === '') throw new UsageError(`--${name}`, 'needs a value');
-        return v.trim();
-      };
-      const list = (name: string): string[] | undefined => text(name)?.split(',').map((s) => s.trim()).filter((s) => s !== '');
-      const reported = ['estimate', 'se', 'df', 'n', 'parameters', 'covariate-t', 'covariate-r2'].filter((o) => values[o] !== undefined);
-      const sources = ['file', 'summary', 'sql'].filter((o) => values[o] !== undefined);
-      if (sources.length > 1) throw new UsageError(`--${sources[1]}`, `cannot be combined with --${sources[0]}`);
-      if (sources.length === 1 && reported.length > 0) {
-        throw new UsageError(`--${reported[0]}`, `gives reported numbers; it cannot be combined with --${sources[0]}`);
-      }
-      if (sources.length === 0) {
-        for (const o of ['outcome', 'treatment', 'covariates', 'categorical']) {
-          if (values[o] !== undefined) throw new UsageError(`--${o}`, 'needs --file, --summary or --sql (data columns)');
-        }
-      }
-      const settings = {
-        q: numberOption(values.q, '--q'),
-        alpha: numberOption(values.alpha, '--alpha'),
-        direction: choiceOption<BiasDirection>(values.direction, '--direction', ['toward-zero', 'away-from-zero']),
-        k: numberListOption(values.k, '--k'),
-        scenario: scenarioOption(values),
-      };
-      if (values.sql !== undefined) {
-        const { outcome, treatment, covariates } = columnsFor('--sql', text, list);
-        io.out(summaryStatisticsSql({ table: text('sql')!, variables: [...covariates, treatment, outcome].map((column) => ({ column })) }));
-        return 0;
-      }
-      let input: OvbInput;
-      let dataNote: string | undefined;
-      let study = { exposure: 'the treatment', outcome: 'the outcome' };
-      let extra: Record<string, unknown> = {};
-      if (values.file !== undefined || values.summary !== undefined) {
-        let summary: OvbRegressionSummary;
-        if (values.file !== undefined) {
-          const path = text('file')!;
-          const outcome = text('outcome');
-          const treatment = text('treatment');
-          if (!outcome) throw new UsageError('--outcome', 'is needed with --file');
-          if (!treatment) throw new UsageError('--treatment', 'is needed with --file');
-          const spec = { outcome, treatment, covariates: list('covariates'), categorical: list('categorical') };
-          const data = await renameFields(() => accumulateRegressionFromStream(openOrFail(io, path), spec), readFailure(path));
-          summary = await renameFields(() => ovbRegressionSummary(data.design, ovbSpecFromRegressionData(data, parseBenchmarkList(text('benchmark')))));
-          dataNote =
-            `Data: ${path}, ${data.rowsUsed} rows used of ${data.rowsRead}` +
-            (data.rowsDropped > 0 ? ` (${data.rowsDropped} dropped for a missing value)` : '') +
-            `; outcome ${data.outcome}, treatment ${data.treatment}, covariates ${data.covariates.join(', ') || 'none'}.` +
-            data.categorical.map((c) => `\n${c.column} is categorical: reference level "${c.reference}".`).join('');
-          study = { exposure: data.treatment, outcome: data.outcome };
-          extra = { rowsRead: data.rowsRead, rowsUsed: data.rowsUsed, rowsDropped: data.rowsDropped, outcome: data.outcome, treatment: data.treatment, covariates: data.covariates };
-          for (const w of data.warnings) dataNote += `\nNote: ${w}`;
-        } else {
-          const path = text('summary')!;
-          const { outcome, treatment, covariates } = columnsFor('--summary', text, list);
-          const raw = await readFileArgument(io, path, '--summary');
-          const row = summaryRow(raw);
-          const variables = [...covariates, treatment, outcome].map((column) => ({ column }));
-          const design = designFromCrossProducts(crossProductsFromSqlRow(row, variables));
-          summary = await renameFields(() =>
-            ovbRegressionSummary(design, {
-              outcome,
-              treatment,
-              covariates: covariates.map((c) => ({ name: c, designColumns: [c] })),
-              intercept: INTERCEPT_NAME,
-              ...(text('benchmark') ? { benchmarks: parseBenchmarkList(text('benchmark')) } : {}),
-            }),
-          );
-          dataNote = `Summary statistics: ${path}, n = ${summary.n}; outcome ${outcome}, treatment ${treatment}, covariates ${covariates.join(', ')}.`;
-          extra = { rowsUsed: summary.n, outcome, treatment, covariates };
-          study = { exposure: treatment, outcome };
-        }
-        if (!(summary.df > 1)) {
-          const source = values.file !== undefined ? '--file' : '--summary';
-          throw new UsageError(
-            source,
-            `has too few complete rows for this model: ${summary.n} rows and ${summary.n - summary.df} coefficients leave ${summary.df} residual degrees of freedom; the sensitivity analysis needs at least 2`,
-          );
-        }
-        input = { estimate: summary.estimate, se: summary.se, df: summary.df, benchmarks: summary.benchmarks, ...defined(settings) };
-      } else {
-        input = {
-          estimate: requiredNumber(values.estimate, '--estimate'),
-          se: requiredNumber(values.se, '--se'),
-          ...defined({
-            df: numberOption(values.df, '--df'),
-            n: numberOption(values.n, '--n'),
-            parameters: numberOption(values.parameters, '--parameters'),
-            benchmarks: chooseBenchmarks(joinLists(covariateTOption(text('covariate-t')), covariateR2Option(text('covariate-r2'))), list('benchmark')),
-          }),
-          ...defined(settings),
-        };
-      }
-      const plot = choiceOption(values.svg, '--svg', ['estimate', 't', 'extreme'] as const);
-      if (plot && values.json) throw new UsageError('--svg', 'cannot be combined with --json');
-      const result = await renameFields(() => analyseOvb(input));
-      if (plot) {
-        const spec = plot === 'extreme' ? ovbExtremeScenarioPlot(result, { study }) : ovbContourPlot(result, { kind: plot, study });
-        io.out(renderSvgString(spec, { includeTitle: true }) + '\n');
-        return 0;
-      }
-      io.out(values.json ? ovbJson(result, extra) : ovbReport(result, { dataNote, study }));
-      return 0;
-    } catch (error) {
-      return reportBadInput('ovb', error, io);
+  help: HELP,
+  options: OPTIONS,
+  async run({ values, positionals }, io) {
+    if (positionals.length > 0) throw new UsageError(positionals[0], 'is not an option (see lurk ovb --help)');
+    const text = (name: string): string | undefined => {
+      const v = values[name];
+      if (v === undefined) return undefined;
+      if (typeof v !== 'string' || v.trim() === '') throw new UsageError(`--${name}`, 'needs a value');
+      return v.trim();
+    };
+    const list = (name: string): string[] | undefined => text(name)?.split(',').map((s) => s.trim()).filter((s) => s !== '');
+    const reported = ['estimate', 'se', 'df', 'n', 'parameters', 'covariate-t', 'covariate-r2'].filter((o) => values[o] !== undefined);
+    const sources = ['file', 'summary', 'sql'].filter((o) => values[o] !== undefined);
+    if (sources.length > 1) throw new UsageError(`--${sources[1]}`, `cannot be combined with --${sources[0]}`);
+    if (sources.length === 1 && reported.length > 0) {
+      throw new UsageError(`--${reported[0]}`, `gives reported numbers; it cannot be combined with --${sources[0]}`);
     }
+    if (sources.length === 0) {
+      for (const o of ['outcome', 'treatment', 'covariates', 'categorical']) {
+        if (values[o] !== undefined) throw new UsageError(`--${o}`, 'needs --file, --summary or --sql (data columns)');
+      }
+    }
+    const settings = {
+      q: numberOption(values.q, '--q'),
+      alpha: numberOption(values.alpha, '--alpha'),
+      direction: choiceOption<BiasDirection>(values.direction, '--direction', ['toward-zero', 'away-from-zero']),
+      k: numberListOption(values.k, '--k'),
+      scenario: scenarioOption(values),
+    };
+    if (values.sql !== undefined) {
+      const { outcome, treatment, covariates } = columnsFor('--sql', text, list);
+      io.out(summaryStatisticsSql({ table: text('sql')!, variables: [...covariates, treatment, outcome].map((column) => ({ column })) }));
+      return 0;
+    }
+    let input: OvbInput;
+    let dataNote: string | undefined;
+    let study = { exposure: 'the treatment', outcome: 'the outcome' };
+    let extra: Record<string, unknown> = {};
+    if (values.file !== undefined || values.summary !== undefined) {
+      let summary: OvbRegressionSummary;
+      if (values.file !== undefined) {
+        const path = text('file')!;
+        const outcome = text('outcome');
+        const treatment = text('treatment');
+        if (!outcome) throw new UsageError('--outcome', 'is needed with --file');
+        if (!treatment) throw new UsageError('--treatment', 'is needed with --file');
+        const spec = { outcome, treatment, covariates: list('covariates'), categorical: list('categorical') };
+        const data = await renameFields(() => accumulateRegressionFromStream(openOrFail(io, path), spec), readFailure(path));
+        summary = await renameFields(() => ovbRegressionSummary(data.design, ovbSpecFromRegressionData(data, parseBenchmarkList(text('benchmark')))));
+        dataNote =
+          `Data: ${path}, ${data.rowsUsed} rows used of ${data.rowsRead}` +
+          (data.rowsDropped > 0 ? ` (${data.rowsDropped} dropped for a missing value)` : '') +
+          `; outcome ${data.outcome}, treatment ${data.treatment}, covariates ${data.covariates.join(', ') || 'none'}.` +
+          data.categorical.map((c) => `\n${c.column} is categorical: reference level "${c.reference}".`).join('');
+        study = { exposure: data.treatment, outcome: data.outcome };
+        extra = { rowsRead: data.rowsRead, rowsUsed: data.rowsUsed, rowsDropped: data.rowsDropped, outcome: data.outcome, treatment: data.treatment, covariates: data.covariates };
+        for (const w of data.warnings) dataNote += `\nNote: ${w}`;
+      } else {
+        const path = text('summary')!;
+        const { outcome, treatment, covariates } = columnsFor('--summary', text, list);
+        const raw = await readFileArgument(io, path, '--summary');
+        const row = summaryRow(raw);
+        const variables = [...covariates, treatment, outcome].map((column) => ({ column }));
+        const design = designFromCrossProducts(crossProductsFromSqlRow(row, variables));
+        summary = await renameFields(() =>
+          ovbRegressionSummary(design, {
+            outcome,
+            treatment,
+            covariates: covariates.map((c) => ({ name: c, designColumns: [c] })),
+            intercept: INTERCEPT_NAME,
+            ...(text('benchmark') ? { benchmarks: parseBenchmarkList(text('benchmark')) } : {}),
+          }),
+        );
+        dataNote = `Summary statistics: ${path}, n = ${summary.n}; outcome ${outcome}, treatment ${treatment}, covariates ${covariates.join(', ')}.`;
+        extra = { rowsUsed: summary.n, outcome, treatment, covariates };
+        study = { exposure: treatment, outcome };
+      }
+      if (!(summary.df > 1)) {
+        const source = values.file !== undefined ? '--file' : '--summary';
+        throw new UsageError(
+          source,
+          `has too few complete rows for this model: ${summary.n} rows and ${summary.n - summary.df} coefficients leave ${summary.df} residual degrees of freedom; the sensitivity analysis needs at least 2`,
+        );
+      }
+      input = { estimate: summary.estimate, se: summary.se, df: summary.df, benchmarks: summary.benchmarks, ...defined(settings) };
+    } else {
+      input = {
+        estimate: requiredNumber(values.estimate, '--estimate'),
+        se: requiredNumber(values.se, '--se'),
+        ...defined({
+          df: numberOption(values.df, '--df'),
+          n: numberOption(values.n, '--n'),
+          parameters: numberOption(values.parameters, '--parameters'),
+          benchmarks: chooseBenchmarks(joinLists(covariateTOption(text('covariate-t')), covariateR2Option(text('covariate-r2'))), list('benchmark')),
+        }),
+        ...defined(settings),
+      };
+    }
+    const plot = choiceOption(values.svg, '--svg', ['estimate', 't', 'extreme'] as const);
+    if (plot && values.json) throw new UsageError('--svg', 'cannot be combined with --json');
+    const result = await renameFields(() => analyseOvb(input));
+    if (plot) {
+      const spec = plot === 'extreme' ? ovbExtremeScenarioPlot(result, { study }) : ovbContourPlot(result, { kind: plot, study });
+      io.out(renderSvgString(spec, { includeTitle: true }) + '\n');
+      return 0;
+    }
+    io.out(values.json ? ovbJson(result, extra) : ovbReport(result, { dataNote, study }));
+    return 0;
   },
-};
+});
 
 function requiredNumber(value: string | boolean | undefined, option: string): number {
   const n = numberOption(value, option);

@@ -4,8 +4,9 @@ import { pairsFromCsvStream, type PairsRead } from '../../io/pairsFromCsv';
 import { pairsReportText, pairsResultJson, PAIRS_CAUTION } from '../../io/pairsText';
 import type { CliIo } from '../cliIo';
 import type { LurkCommand } from '../main';
-import { choiceOption, numberListOption, numberOption, parseOptions, type OptionKinds } from '../parseOptions';
-import { UsageError, reportBadInput } from '../usageError';
+import { choiceOption, numberListOption, numberOption, type OptionKinds } from '../parseOptions';
+import { UsageError } from '../usageError';
+import { defineCommand } from '../defineCommand';
 
 const OPTIONS: OptionKinds = {
   file: { type: 'string', short: 'f' },
@@ -70,16 +71,14 @@ function renamed(error: unknown, discordant: boolean): unknown {
 }
 
 /** `lurk pairs`: Rosenbaum bounds, tipping Γ, estimate range and amplification for matched pairs. */
-export const command: LurkCommand = {
+export const command: LurkCommand = defineCommand({
+  name: 'pairs',
   summary: 'Rosenbaum bounds for matched pairs: tipping Γ, p-value bounds, estimate range, amplification',
-  async run(args: readonly string[], io: CliIo): Promise<number> {
+  help: HELP,
+  options: OPTIONS,
+  async run({ values, positionals }, io) {
     let discordantInput = false;
     try {
-      const { values, positionals } = parseOptions(args, OPTIONS);
-      if (values.help) {
-        io.out(HELP);
-        return 0;
-      }
       if (positionals.length > 0) throw new UsageError(positionals[0], 'is not an option of this command (see --help)');
       discordantInput = values.discordant !== undefined;
       const test = choiceOption(values.test, '--test', ['signrank', 'sign'] as const);
@@ -130,10 +129,10 @@ export const command: LurkCommand = {
       }
       return 0;
     } catch (error) {
-      return reportBadInput('pairs', renamed(error, discordantInput), io);
+      throw renamed(error, discordantInput);
     }
   },
-};
+});
 
 async function readPairsFile(path: string, spec: Parameters<typeof pairsFromCsvStream>[1], io: CliIo): Promise<PairsRead> {
   let stream;
