@@ -33,6 +33,7 @@ import { baseStyles } from './styles/base';
 import { calculatorLayoutStyles } from './styles/calculator';
 import { eValueStyles } from './styles/evalue';
 import './lurk-plot';
+import { sourceChoice } from './sourceChoice';
 
 /** Detail of `lurk-result`: the new result, or null with the problems that prevent one. */
 export interface EValueResultDetail {
@@ -120,22 +121,7 @@ export class LurkEValue extends LitElement {
     return html`
       <div class="layout">
         <form @submit=${(e: Event) => e.preventDefault()} novalidate aria-label="E-value inputs">
-          <fieldset>
-            <legend>Start from</legend>
-            <div class="sources">
-              ${SOURCES.map(
-                (s) => html`<label class="choice"
-                  ><input
-                    type="radio"
-                    name="source"
-                    value=${s.id}
-                    .checked=${this.form.source === s.id}
-                    @change=${() => this.edit({ source: s.id })}
-                  />${s.label}</label
-                >`,
-              )}
-            </div>
-          </fieldset>
+          ${sourceChoice('Start from', SOURCES, this.form.source, (source) => this.edit({ source }))}
           ${this.form.source === 'reported' ? this.reportedFields() : this.form.source === 'counts' ? this.countFields() : this.fileFields()}
           ${this.sharedFields()} ${this.confounderFields()}
         </form>

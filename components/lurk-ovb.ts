@@ -21,6 +21,7 @@ import { baseStyles } from './styles/base';
 import { calculatorLayoutStyles } from './styles/calculator';
 import { ovbStyles } from './styles/ovb';
 import './lurk-plot';
+import { sourceChoice } from './sourceChoice';
 
 /** Detail of `lurk-result`: the new result, or null with the problems that prevent one. */
 export interface OvbResultDetail {
@@ -110,16 +111,7 @@ export class LurkOvb extends LitElement {
     return html`
       <div class="layout">
         <form @submit=${(e: Event) => e.preventDefault()} novalidate aria-label="Regression sensitivity inputs">
-          <fieldset>
-            <legend>Start from</legend>
-            <div class="sources">
-              ${SOURCES.map(
-                (s) => html`<label class="choice"
-                  ><input type="radio" name="source" value=${s.id} .checked=${f.source === s.id} @change=${() => this.edit({ source: s.id })} />${s.label}</label
-                >`,
-              )}
-            </div>
-          </fieldset>
+          ${sourceChoice('Start from', SOURCES, f.source, (source) => this.edit({ source }))}
           ${f.source === 'reported' ? this.reportedFields() : f.source === 'file' ? this.fileFields() : this.summaryFields()} ${this.settingFields()}
         </form>
         <section part="results" aria-label="Regression sensitivity results" aria-live="polite">${this.results()}</section>

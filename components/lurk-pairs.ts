@@ -29,6 +29,7 @@ import { baseStyles } from './styles/base';
 import { calculatorLayoutStyles } from './styles/calculator';
 import { pairsStyles } from './styles/pairs';
 import './lurk-plot';
+import { sourceChoice } from './sourceChoice';
 
 /** Detail of `lurk-result`: the new result, or null with the problems that prevent one. */
 export interface PairsResultDetail {
@@ -116,16 +117,7 @@ export class LurkPairs extends LitElement {
     return html`
       <div class="layout">
         <form @submit=${(e: Event) => e.preventDefault()} novalidate aria-label="Matched-pairs inputs">
-          <fieldset>
-            <legend>The pairs</legend>
-            <div class="sources">
-              ${SOURCES.map(
-                (s) => html`<label class="choice"
-                  ><input type="radio" name="source" value=${s.id} .checked=${this.form.source === s.id} @change=${() => this.edit({ source: s.id })} />${s.label}</label
-                >`,
-              )}
-            </div>
-          </fieldset>
+          ${sourceChoice('The pairs', SOURCES, this.form.source, (source) => this.edit({ source }))}
           ${this.form.source === 'file' ? this.fileFields() : this.form.source === 'pasted' ? this.pastedFields() : this.discordantFields()}
           ${this.analysisFields()}
         </form>
