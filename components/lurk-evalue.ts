@@ -34,6 +34,7 @@ import { calculatorLayoutStyles } from './styles/calculator';
 import { eValueStyles } from './styles/evalue';
 import './lurk-plot';
 import { sourceChoice } from './sourceChoice';
+import { textField } from './textField';
 
 /** Detail of `lurk-result`: the new result, or null with the problems that prevent one. */
 export interface EValueResultDetail {
@@ -364,21 +365,7 @@ export class LurkEValue extends LitElement {
   private textField(field: string, label: string, value: string, change: (text: string) => Partial<EValueFormInputs>, hint = ''): TemplateResult {
     const id = fieldId(field);
     const problem = this.problemFor(field);
-    return html`<div class="field">
-      <label for=${id}>${label}</label>
-      <input
-        id=${id}
-        type="text"
-        inputmode=${field.endsWith('name') ? 'text' : 'decimal'}
-        autocomplete="off"
-        .value=${value}
-        aria-invalid=${problem ? 'true' : 'false'}
-        aria-describedby="${id}-error${hint ? ` ${id}-hint` : ''}"
-        @input=${(e: Event) => this.edit(change((e.target as HTMLInputElement).value))}
-      />
-      ${hint ? html`<div class="hint" id="${id}-hint">${hint}</div>` : nothing}
-      <div class="field-error" id="${id}-error">${problem ? problem.message : ''}</div>
-    </div>`;
+    return textField({ id: id, label, value, problem, hint, inputMode: field.endsWith('name') ? 'text' : 'decimal', onInput: (text) => this.edit(change(text)) });
   }
 
   private errorFor(field: string, id: string, prefix = ''): TemplateResult {

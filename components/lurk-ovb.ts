@@ -22,6 +22,7 @@ import { calculatorLayoutStyles } from './styles/calculator';
 import { ovbStyles } from './styles/ovb';
 import './lurk-plot';
 import { sourceChoice } from './sourceChoice';
+import { textField } from './textField';
 
 /** Detail of `lurk-result`: the new result, or null with the problems that prevent one. */
 export interface OvbResultDetail {
@@ -296,21 +297,7 @@ export class LurkOvb extends LitElement {
     const id = fieldId(field);
     const problem = this.problemFor(field);
     const numeric = !/name|benchmarks|categorical|summary|outcome$|treatment$/.test(field) || /T$/.test(field);
-    return html`<div class="field">
-      <label for=${id}>${label}</label>
-      <input
-        id=${id}
-        type="text"
-        inputmode=${numeric ? 'decimal' : 'text'}
-        autocomplete="off"
-        .value=${value}
-        aria-invalid=${problem ? 'true' : 'false'}
-        aria-describedby="${id}-error${hint ? ` ${id}-hint` : ''}"
-        @input=${(e: Event) => this.edit(change((e.target as HTMLInputElement).value))}
-      />
-      ${hint ? html`<div class="hint" id="${id}-hint">${hint}</div>` : nothing}
-      <div class="field-error" id="${id}-error">${problem ? problem.message : ''}</div>
-    </div>`;
+    return textField({ id: id, label, value, problem, hint, inputMode: numeric ? 'decimal' : 'text', onInput: (text) => this.edit(change(text)) });
   }
 
   /** The problem to show beside a field: "required" only once the user has started, everything else at once. */

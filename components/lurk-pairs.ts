@@ -30,6 +30,7 @@ import { calculatorLayoutStyles } from './styles/calculator';
 import { pairsStyles } from './styles/pairs';
 import './lurk-plot';
 import { sourceChoice } from './sourceChoice';
+import { textField } from './textField';
 
 /** Detail of `lurk-result`: the new result, or null with the problems that prevent one. */
 export interface PairsResultDetail {
@@ -261,21 +262,7 @@ export class LurkPairs extends LitElement {
     hint = '',
   ): TemplateResult {
     const problem = this.problemFor(field) ?? (field === 'gammas' ? this.problems.find((p) => p.field.startsWith('gammas[')) : undefined);
-    return html`<div class="field">
-      <label for=${field}>${label}</label>
-      <input
-        id=${field}
-        type="text"
-        inputmode=${mode}
-        autocomplete="off"
-        .value=${value}
-        aria-invalid=${problem ? 'true' : 'false'}
-        aria-describedby="${field}-error${hint ? ` ${field}-hint` : ''}"
-        @input=${(e: Event) => this.edit(change((e.target as HTMLInputElement).value))}
-      />
-      ${hint ? html`<div class="hint" id="${field}-hint">${hint}</div>` : nothing}
-      <div class="field-error" id="${field}-error">${problem ? problem.message : ''}</div>
-    </div>`;
+    return textField({ id: field, label, value, problem, hint, inputMode: mode, onInput: (text) => this.edit(change(text)) });
   }
 
   /** The problem to show beside a field: "required" only once the user has started, everything else at once. */
