@@ -4,9 +4,9 @@ import { bench, describe } from 'vitest';
 import { analyseEValue } from '../src/core/eValueAnalysis';
 import type { EValueInput } from '../src/core/eValueAnalysis';
 import type { EffectMeasure, OutcomePrevalence } from '../src/core/riskRatioScale';
-import { readCsvText } from '../src/io/csv';
-import type { CsvTable } from '../src/io/csv';
-import { parseNumberText } from '../src/io/parseNumberText';
+import { readCsvText } from '../src/data/csv';
+import type { CsvTable } from '../src/data/csv';
+import { parseNumberText } from '../src/data/numberText';
 
 const ROWS = 100_000;
 const options = { iterations: 5, warmupIterations: 1, time: 0 };

@@ -4,8 +4,8 @@
 // Run: npx vitest bench --run --project unit bench/ovb.bench.ts
 import { bench, describe } from 'vitest';
 import { analyseOvb, type OvbInput } from '../src/core/ovbAnalysis';
-import { ovbContourPlot } from '../src/plot/ovbContourPlot';
-import { ovbExtremeScenarioPlot } from '../src/plot/ovbExtremeScenarioPlot';
+import { ovbContourPlot } from '../src/methods/regression/ovbContourPlot';
+import { ovbExtremeScenarioPlot } from '../src/methods/regression/ovbExtremeScenarioPlot';
 import { renderSvgString } from '../src/plot/svgString';
 import { readFileSync } from 'node:fs';
 

@@ -6,7 +6,7 @@ import { analysePairs, outcomeDifferences, type PairsData } from '../src/core/pa
 import { signedRanks } from '../src/core/signedRanks';
 import { signedRankBound, signedRankUpperP } from '../src/core/signedRankBound';
 import { tippingGamma } from '../src/core/tippingGamma';
-import { pairsFromCsvText } from '../src/io/pairsFromCsv';
+import { pairsFromCsvText } from '../src/methods/pairs/pairsFromCsv';
 
 /** A reproducible stream of numbers in [0, 1) (linear congruential; invented data only). */
 function random(seed: number): () => number {

@@ -7,8 +7,8 @@ import { bench, describe } from 'vitest';
 import { fitLeastSquares } from '../src/core/linearModel';
 import { memoryIo } from '../src/cli/cliIo';
 import { runLurk } from '../src/cli/main';
-import { CsvChunkReader } from '../src/io/csvChunkReader';
-import { accumulateRegressionFromStream } from '../src/io/regressionData';
+import { CsvChunkReader } from '../src/data/csvChunkReader';
+import { accumulateRegressionFromStream } from '../src/methods/regression/regressionData';
 import { benchCsv } from './regressionFixture';
 
 const ROWS = 1_000_000;

@@ -4,7 +4,7 @@
 // Run: npx vitest bench --run --project unit bench/regressionMemory.bench.ts
 import { createReadStream } from 'node:fs';
 import { bench, describe } from 'vitest';
-import { accumulateRegressionFromStream } from '../src/io/regressionData';
+import { accumulateRegressionFromStream } from '../src/methods/regression/regressionData';
 import { benchCsv } from './regressionFixture';
 
 const sizes = [100_000, 1_000_000];

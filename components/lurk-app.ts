@@ -1,9 +1,9 @@
 import { LitElement, css, html, nothing, type TemplateResult } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import { emptyStudy, type StudyLabels } from '../src/io/studyLabels';
-import { createAppraisal, readAppraisal, type Appraisal, type CalculatorEntry, type CalculatorName, type CalculatorSummary } from '../src/io/appraisal';
-import { encodeShareFragment } from '../src/io/shareLink';
-import { downloadBlob } from '../src/io/figureExport.browser';
+import { emptyStudy, type StudyLabels } from '../src/format/studyLabels';
+import { createAppraisal, readAppraisal, type Appraisal, type CalculatorEntry, type CalculatorName, type CalculatorSummary } from '../src/workspace/appraisal';
+import { encodeShareFragment } from '../src/workspace/shareLink';
+import { downloadBlob } from '../src/plot/figureExport.browser';
 import { baseStyles } from './styles/base';
 import './lurk-study';
 import './lurk-statement';

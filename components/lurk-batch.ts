@@ -1,12 +1,12 @@
 import { LitElement, css, html, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import { InputError } from '../src/core/inputProblem';
-import { appraiseBatchCsv, BATCH_COLUMNS, type BatchResult, type BatchRow } from '../src/io/batchFindings';
-import { batchCsvText } from '../src/io/batchCsv';
-import { formatNumber, formatPercent } from '../src/io/formatNumber';
-import { parseTypedNumber } from '../src/io/parseNumberText';
-import { downloadBlob } from '../src/io/figureExport.browser';
-import { eValueHistogram } from '../src/plot/eValueHistogram';
+import { appraiseBatchCsv, BATCH_COLUMNS, type BatchResult, type BatchRow } from '../src/workspace/batchFindings';
+import { batchCsvText } from '../src/workspace/batchCsv';
+import { formatNumber, formatPercent } from '../src/format/formatNumber';
+import { parseTypedNumber } from '../src/data/numberText';
+import { downloadBlob } from '../src/plot/figureExport.browser';
+import { eValueHistogram } from '../src/workspace/batchHistogram';
 import type { PlotSpec } from '../src/plot/plotSpec';
 import { baseStyles } from './styles/base';
 import './lurk-plot';

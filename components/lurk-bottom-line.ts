@@ -1,7 +1,7 @@
 import { LitElement, css, html, nothing } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
-import type { Appraisal } from '../src/io/appraisal';
-import { buildBottomLine, type BottomLine } from '../src/io/bottomLine';
+import type { Appraisal } from '../src/workspace/appraisal';
+import { buildBottomLine, type BottomLine } from '../src/workspace/bottomLine';
 import { baseStyles } from './styles/base';
 
 /**

@@ -6,10 +6,10 @@ import type { EValueResult } from '../src/core/eValueAnalysis';
 import { InputError } from '../src/core/inputProblem';
 import type { InputProblem } from '../src/core/inputProblem';
 import type { EffectMeasure } from '../src/core/riskRatioScale';
-import { columnLevels, readCsvText } from '../src/io/csv';
-import type { CsvTable } from '../src/io/csv';
-import { emptyEValueForm, evaluateEValueForm, normaliseEValueForm } from '../src/io/eValueForm';
-import type { ConfounderText, EValueFormInputs, EValueFormOutcome, EValueSource } from '../src/io/eValueForm';
+import { columnLevels, readCsvText } from '../src/data/csv';
+import type { CsvTable } from '../src/data/csv';
+import { emptyEValueForm, evaluateEValueForm, normaliseEValueForm } from '../src/methods/evalue/request';
+import type { ConfounderText, EValueFormInputs, EValueFormOutcome, EValueSource } from '../src/methods/evalue/request';
 import {
   MEASURE_LABELS,
   describeEValue,
@@ -19,14 +19,14 @@ import {
   formatLevel,
   formatMeasureValue,
   formatPlain,
-} from '../src/io/eValueText';
-import { emptyStudy } from '../src/io/studyLabels';
-import { eValueSummary, type EValueSummary } from '../src/io/calculatorSummaries';
+} from '../src/methods/evalue/text';
+import { emptyStudy } from '../src/format/studyLabels';
+import { eValueSummary, type EValueSummary } from '../src/workspace/calculatorSummaries';
 import type { ReferenceConfounderAssessment } from '../src/core/referenceConfounder';
-import type { StudyLabels } from '../src/io/studyLabels';
-import { guessYesValues } from '../src/io/twoByTwoFromCsv';
-import { shownProblems } from '../src/io/shownProblems';
-import { jointStrengthPlot } from '../src/plot/jointStrengthPlot';
+import type { StudyLabels } from '../src/format/studyLabels';
+import { guessYesValues } from '../src/methods/evalue/twoByTwoFromCsv';
+import { shownProblems } from '../src/format/shownProblems';
+import { jointStrengthPlot } from '../src/methods/evalue/jointStrengthPlot';
 import type { PlotSpec } from '../src/plot/plotSpec';
 import type { PlotPointerDetail } from './lurk-plot';
 import { baseStyles } from './styles/base';

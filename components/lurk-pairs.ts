@@ -3,9 +3,9 @@ import type { TemplateResult } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import { InputError, type InputProblem } from '../src/core/inputProblem';
 import { analysePairs, type PairsInput, type PairsResult } from '../src/core/pairsAnalysis';
-import { pairsSummary, type PairsSummary } from '../src/io/calculatorSummaries';
-import { CsvChunkReader } from '../src/io/csvChunkReader';
-import { pairsFromCsvText, type PairsRead } from '../src/io/pairsFromCsv';
+import { pairsSummary, type PairsSummary } from '../src/workspace/calculatorSummaries';
+import { CsvChunkReader } from '../src/data/csvChunkReader';
+import { pairsFromCsvText, type PairsRead } from '../src/methods/pairs/pairsFromCsv';
 import {
   emptyPairsForm,
   guessPairsColumns,
@@ -15,15 +15,15 @@ import {
   readPairsOptions,
   type PairsFormInputs,
   type PairsSource,
-} from '../src/io/pairsForm';
-import { PAIRS_CAUTION, formatAsTyped, formatEffect, formatGamma, pPhrase, pairsReading, pairsTable } from '../src/io/pairsText';
-import type { PairsReadSummary } from '../src/io/pairsWorkerProtocol';
-import { runPairsInWorker, type PairsWorkerProgress } from '../src/io/pairsWorkerClient';
-import { emptyStudy, type StudyLabels } from '../src/io/studyLabels';
-import { shownProblems } from '../src/io/shownProblems';
-import { amplificationPlot } from '../src/plot/amplificationPlot';
-import { estimateRangePlot } from '../src/plot/estimateRangePlot';
-import { pValueByGammaPlot } from '../src/plot/pValueByGammaPlot';
+} from '../src/methods/pairs/request';
+import { PAIRS_CAUTION, formatAsTyped, formatEffect, formatGamma, pPhrase, pairsReading, pairsTable } from '../src/methods/pairs/text';
+import type { PairsReadSummary } from '../src/methods/pairs/pairsWorkerProtocol';
+import { runPairsInWorker, type PairsWorkerProgress } from '../src/methods/pairs/pairsWorkerClient';
+import { emptyStudy, type StudyLabels } from '../src/format/studyLabels';
+import { shownProblems } from '../src/format/shownProblems';
+import { amplificationPlot } from '../src/methods/pairs/amplificationPlot';
+import { estimateRangePlot } from '../src/methods/pairs/estimateRangePlot';
+import { pValueByGammaPlot } from '../src/methods/pairs/pValueByGammaPlot';
 import type { PlotSpec } from '../src/plot/plotSpec';
 import { baseStyles } from './styles/base';
 import { calculatorLayoutStyles } from './styles/calculator';

@@ -4,7 +4,7 @@ import { unsafeSVG } from 'lit/directives/unsafe-svg.js';
 import type { PlotSpec } from '../src/plot/plotSpec';
 import { renderSvgString } from '../src/plot/svgString';
 import { invertAxis } from '../src/plot/invertAxis';
-import { downloadBlob, figurePngBlob, figureSvgBlob } from '../src/io/figureExport.browser';
+import { downloadBlob, figurePngBlob, figureSvgBlob } from '../src/plot/figureExport.browser';
 import { baseStyles } from './styles/base';
 
 export interface PlotPointerDetail {

@@ -1,8 +1,8 @@
 import { LitElement, css, html, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import type { Appraisal } from '../src/io/appraisal';
-import { buildRobustnessStatement, renderRobustnessStatement, type RobustnessStatement, type StatementFormat } from '../src/io/robustnessStatement';
-import { downloadBlob } from '../src/io/figureExport.browser';
+import type { Appraisal } from '../src/workspace/appraisal';
+import { buildRobustnessStatement, renderRobustnessStatement, type RobustnessStatement, type StatementFormat } from '../src/workspace/robustnessStatement';
+import { downloadBlob } from '../src/plot/figureExport.browser';
 import { baseStyles } from './styles/base';
 
 const FORMATS: ReadonlyArray<{ id: StatementFormat; label: string; ext: string; type: string }> = [

@@ -1,6 +1,6 @@
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
-import { emptyStudy, type StudyLabels } from '../src/io/studyLabels';
+import { emptyStudy, type StudyLabels } from '../src/format/studyLabels';
 import { baseStyles } from './styles/base';
 
 const FIELDS: ReadonlyArray<{ key: keyof StudyLabels; label: string; hint: string }> = [

@@ -2,8 +2,8 @@
 // or the fictional demo study.
 import '../../components/index';
 import { fictionalStudy } from '../demo/fictionalStudy';
-import { readAppraisal, type Appraisal } from '../io/appraisal';
-import { decodeShareFragment, hasShareFragment } from '../io/shareLink';
+import { readAppraisal, type Appraisal } from '../workspace/appraisal';
+import { decodeShareFragment, hasShareFragment } from '../workspace/shareLink';
 
 /** Where the page keeps the current appraisal between visits (this browser only). */
 const STORAGE_KEY = 'lurk.appraisal';

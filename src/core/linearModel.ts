@@ -76,7 +76,7 @@ export const DEFAULT_COLLINEARITY_TOLERANCE = 1e-7;
 
 /**
  * Builds a {@link TriangularDesign} from rows held in memory (small data, tests). For large data use
- * {@link StreamingQr} chunk by chunk, or the CSV accumulator in `src/io/regressionData.ts`.
+ * {@link StreamingQr} chunk by chunk, or the CSV accumulator in `src/methods/regression/regressionData.ts`.
  *
  * @param columnNames the names of the columns of each row
  * @param rows the rows (each of length columnNames.length)

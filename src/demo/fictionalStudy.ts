@@ -1,4 +1,4 @@
-import type { StudyLabels } from '../io/studyLabels';
+import type { StudyLabels } from '../format/studyLabels';
 
 /**
  * The demo: an invented study, clearly marked fictional, with every calculator filled in so that a newcomer

@@ -1,6 +1,6 @@
 import { scaleLinear, scaleLog } from 'd3-scale';
 import type { AxisSpec, PlotArea, Tick } from './plotSpec';
-import { formatNumber } from '../io/formatNumber';
+import { formatNumber } from '../format/formatNumber';
 
 /** Tick values are round numbers: write them without float noise or trailing zeros (0.30000000000000004 → 0.3). */
 export function defaultTickLabel(value: number): string {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { InputError } from '../../src/core/inputProblem';
 import { fitLeastSquares } from '../../src/core/linearModel';
-import { runRegressionInWorker, type RegressionProgress } from '../../src/io/regressionWorkerClient';
+import { runRegressionInWorker, type RegressionProgress } from '../../src/methods/regression/regressionWorkerClient';
 import swissText from '../reference/swiss.csv?raw';
 import ovb from '../reference/ovb.json';
 import { expectClose } from '../support/expectClose';

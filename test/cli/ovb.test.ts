@@ -119,7 +119,7 @@ describe('lurk ovb', () => {
     expect(sql.out).toMatch(/SELECT/);
     expect(sql.out).toMatch(/"Education"/);
     // the query's result computed here from the CSV (what a database would return)
-    const { readCsvText } = await import('../../src/io/csv');
+    const { readCsvText } = await import('../../src/data/csv');
     const table = readCsvText((await import('node:fs')).readFileSync(swissPath, 'utf8'));
     const vars = ['Agriculture', 'Examination', 'Catholic', 'Infant.Mortality', 'Education', 'Fertility'];
     const cols = vars.map((v) => table.rows.map((r) => Number(r[table.columns.indexOf(v)])));

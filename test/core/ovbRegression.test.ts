@@ -2,8 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { ovbRegressionSummary, validateOvbRegressionSpec } from '../../src/core/ovbRegression';
 import { analyseOvb } from '../../src/core/ovbAnalysis';
 import { InputError } from '../../src/core/inputProblem';
-import { regressionDataFromText } from '../../src/io/regressionData';
-import { ovbSpecFromRegressionData, parseBenchmarkList } from '../../src/io/ovbRegressionData';
+import { regressionDataFromText } from '../../src/methods/regression/regressionData';
+import { ovbSpecFromRegressionData, parseBenchmarkList } from '../../src/methods/regression/ovbRegressionData';
 import { expectClose } from '../support/expectClose';
 import { readReferenceJson, readReferenceText } from '../support/reference';
 

@@ -4,7 +4,7 @@ import { renderSvgString, renderedHeight } from '../../src/plot/svgString';
 import { invertAxis } from '../../src/plot/invertAxis';
 import { polylinePath } from '../../src/plot/pathData';
 import type { PlotSpec } from '../../src/plot/plotSpec';
-import { readPngDpi, setPngDpi } from '../../src/io/pngDpi';
+import { readPngDpi, setPngDpi } from '../../src/plot/pngDpi';
 
 function sampleSpec(): PlotSpec {
   const frame = createFrame({ width: 480, height: 320, x: { domain: [1, 100], label: 'x <log>', scale: 'log' }, y: { domain: [0, 1], label: 'y & co' } });

@@ -1,6 +1,6 @@
-import { appraiseBatchCsv, BATCH_COLUMNS, BATCH_MEASURES, type BatchResult } from '../../io/batchFindings';
-import { batchCsvText } from '../../io/batchCsv';
-import { formatNumber, formatPercent } from '../../io/formatNumber';
+import { appraiseBatchCsv, BATCH_COLUMNS, BATCH_MEASURES, type BatchResult } from '../../workspace/batchFindings';
+import { batchCsvText } from '../../workspace/batchCsv';
+import { formatNumber, formatPercent } from '../../format/formatNumber';
 import type { LurkCommand } from '../main';
 import { numberOption, type OptionKinds } from '../parseOptions';
 import { UsageError } from '../usageError';

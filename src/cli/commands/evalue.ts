@@ -7,7 +7,7 @@ import type { ReferenceConfounder, ReferenceConfounderAssessment } from '../../c
 import { EFFECT_MEASURES, OUTCOME_PREVALENCES } from '../../core/riskRatioScale';
 import type { EffectMeasure, OutcomePrevalence } from '../../core/riskRatioScale';
 import type { TwoByTwoMeasure } from '../../core/twoByTwo';
-import { readCsvText } from '../../io/csv';
+import { readCsvText } from '../../data/csv';
 import {
   E_VALUE_CAUTION,
   MEASURE_LABELS,
@@ -17,10 +17,10 @@ import {
   formatLevel,
   formatMeasureValue,
   formatPlain,
-} from '../../io/eValueText';
-import { parseNumberText } from '../../io/parseNumberText';
-import { twoByTwoFromCsv } from '../../io/twoByTwoFromCsv';
-import type { TwoByTwoFromCsv } from '../../io/twoByTwoFromCsv';
+} from '../../methods/evalue/text';
+import { parseNumberText } from '../../data/numberText';
+import { twoByTwoFromCsv } from '../../methods/evalue/twoByTwoFromCsv';
+import type { TwoByTwoFromCsv } from '../../methods/evalue/twoByTwoFromCsv';
 import type { CliIo } from '../cliIo';
 import type { LurkCommand } from '../main';
 import { choiceOption, numberListOption, numberOption } from '../parseOptions';

@@ -1,7 +1,7 @@
 import { analysePairs, type PairsData, type PairsInput } from '../../core/pairsAnalysis';
 import { InputError, inputProblem, type InputProblem } from '../../core/inputProblem';
-import { pairsFromCsvStream, type PairsRead } from '../../io/pairsFromCsv';
-import { pairsReportText, pairsResultJson, PAIRS_CAUTION } from '../../io/pairsText';
+import { pairsFromCsvStream, type PairsRead } from '../../methods/pairs/pairsFromCsv';
+import { pairsReportText, pairsResultJson, PAIRS_CAUTION } from '../../methods/pairs/text';
 import type { CliIo } from '../cliIo';
 import type { LurkCommand } from '../main';
 import { choiceOption, numberListOption, numberOption, type OptionKinds } from '../parseOptions';

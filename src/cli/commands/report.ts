@@ -1,6 +1,6 @@
-import { readAppraisal } from '../../io/appraisal';
-import { buildRobustnessStatement, renderRobustnessStatement, type StatementFormat } from '../../io/robustnessStatement';
-import { buildBottomLine } from '../../io/bottomLine';
+import { readAppraisal } from '../../workspace/appraisal';
+import { buildRobustnessStatement, renderRobustnessStatement, type StatementFormat } from '../../workspace/robustnessStatement';
+import { buildBottomLine } from '../../workspace/bottomLine';
 import { InputError, inputProblem } from '../../core/inputProblem';
 import type { LurkCommand } from '../main';
 import { choiceOption, type OptionKinds } from '../parseOptions';

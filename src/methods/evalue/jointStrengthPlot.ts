@@ -1,0 +1,288 @@
+import { boundingFactorPartner } from '../../core/boundingFactor';
+import type { EValueResult } from '../../core/eValueAnalysis';
+import type { ReferenceConfounderAssessment } from '../../core/referenceConfounder';
+import { formatEValue, formatPlain } from './text';
+import { exposureLabel, outcomeLabel } from '../../format/studyLabels';
+import type { StudyLabels } from '../../format/studyLabels';
+import { createFrame } from '../../plot/frame';
+import { equalStrengthDiagonal } from '../../plot/equalStrengthDiagonal';
+import { framedPlotSpec } from '../../plot/framedPlotSpec';
+import type { Frame } from '../../plot/frame';
+import { palette } from '../../plot/palette';
+import { polygonPath, polylinePath } from '../../plot/pathData';
+import type { LegendItem, PlotArea, PlotMark, PlotSpec, PointMark } from '../../plot/plotSpec';
+
+export interface JointStrengthPlotOptions {
+  readonly width?: number;
+  readonly height?: number;
+  readonly study?: Partial<StudyLabels>;
+  /** Reference confounders to mark, already assessed against the result. */
+  readonly confounders?: readonly ReferenceConfounderAssessment[];
+}
+
+/** How many points trace each curve. */
+const CURVE_POINTS = 160;
+
+/**
+ * The joint-strength plot of an E-value result: every pair of confounder strengths — risk ratio with the
+ * exposure (RR_EU, x) and with the outcome (RR_UD, y) — that would just explain away the estimate, and the
+ * interval limit, on logarithmic axes from 1.
+ *
+ * **Method.** The curve is B(RR_EU, RR_UD) = RR, i.e. RR_UD = RR·(RR_EU − 1)/(RR_EU − RR) for RR_EU > RR
+ * (Ding & VanderWeele 2016, Epidemiology 27(3):368–377), traced in steps even in log(RR_EU − RR) so the steep
+ * part near the asymptote is drawn smoothly. Pairs on or above the curve explain the estimate away (shaded);
+ * the E-value is where the curve meets the diagonal RR_EU = RR_UD. RR is the risk-ratio-scale estimate over
+ * the target, stated as ≥ 1.
+ */
+export function jointStrengthPlot(result: EValueResult, options: JointStrengthPlotOptions = {}): PlotSpec {
+  const width = options.width ?? 640;
+  const height = options.height ?? 460;
+  const confounders = options.confounders ?? [];
+  const exposure = exposureLabel(options.study);
+  const outcome = outcomeLabel(options.study);
+  const estimateRatio = result.ratioToTarget;
+  const intervalRatio = result.intervalRatioToTarget;
+  const eEstimate = result.eValueEstimate;
+  const eInterval = result.eValueInterval;
+  const goal = result.targetIsNull ? 'explain away' : 'move to the target';
+
+  const top = axisTop(eEstimate, confounders);
+  const frame = createFrame({
+    width,
+    height,
+    margin: { left: 64, right: 24, top: 16, bottom: 56 },
+    x: { domain: [1, top], label: `Risk ratio of a hidden confounder with ${exposure} (RR_EU)`, scale: 'log' },
+    y: { domain: [1, top], label: `Risk ratio with ${outcome} (RR_UD)`, scale: 'log' },
+  });
+  const { inner } = frame;
+
+  const marks: PlotMark[] = [];
+  const legend: LegendItem[] = [];
+  const drawable = (ratio: number) => ratio > 1 && Number.isFinite(ratio) && eValueFits(ratio, top);
+
+  // Shaded regions first (at the back): the interval's region lighter, the estimate's on top of it.
+  if (intervalRatio !== null && drawable(intervalRatio) && intervalRatio < estimateRatio) {
+    marks.push(region(frame, intervalRatio, top, palette.interval, 0.12, `Pairs that would make the interval include ${result.targetIsNull ? 'the null' : 'the target'}`));
+    legend.push({ label: 'would reach the interval limit', color: palette.interval, swatch: 'area' });
+  }
+  if (drawable(estimateRatio)) {
+    marks.push(region(frame, estimateRatio, top, palette.overturned, 0.3, `Pairs that would ${goal} the estimate`));
+    legend.push({ label: `would ${goal} the estimate`, color: palette.overturned, swatch: 'area' });
+  } else if (estimateRatio <= 1) {
+    marks.push({
+      kind: 'path',
+      d: polygonPath([
+        [inner.left, inner.bottom],
+        [inner.right, inner.bottom],
+        [inner.right, inner.top],
+        [inner.left, inner.top],
+      ]),
+      fill: palette.overturned,
+      fillOpacity: 0.3,
+      label: 'The estimate is at the target: every pair explains it away',
+    });
+  }
+
+  // The diagonal of equal strengths, where the E-values lie.
+  marks.push(equalStrengthDiagonal(frame, top, 'Equal strengths with exposure and outcome'));
+
+  if (drawable(estimateRatio)) {
+    marks.push({
+      kind: 'path',
+      d: polylinePath(curvePixels(frame, estimateRatio, top)),
+      stroke: palette.estimate,
+      strokeWidth: 2.5,
+      label: `Pairs that would just ${goal} the estimate`,
+    });
+    legend.push({ label: 'estimate', color: palette.estimate, swatch: 'line' });
+  }
+  if (intervalRatio !== null && drawable(intervalRatio)) {
+    marks.push({
+      kind: 'path',
+      d: polylinePath(curvePixels(frame, intervalRatio, top)),
+      stroke: palette.interval,
+      strokeWidth: 2.5,
+      dash: '7 4',
+      label: 'Pairs that would just make the interval include the target',
+    });
+    legend.push({ label: 'interval limit', color: palette.interval, swatch: 'line', dash: '7 4' });
+  }
+
+  const points: PointMark[] = [];
+  if (Number.isFinite(eEstimate) && eEstimate > 1 && eEstimate <= top) {
+    points.push({
+      kind: 'point',
+      x: frame.x(eEstimate),
+      y: frame.y(eEstimate),
+      shape: 'diamond',
+      color: palette.estimate,
+      size: 6,
+      label: `E-value ${formatEValue(eEstimate)}`,
+      labelSide: 'left',
+    });
+  }
+  if (eInterval !== null && Number.isFinite(eInterval) && eInterval > 1 && eInterval <= top) {
+    points.push({
+      kind: 'point',
+      x: frame.x(eInterval),
+      y: frame.y(eInterval),
+      shape: 'circle',
+      color: palette.interval,
+      size: 5,
+      label: `interval ${formatEValue(eInterval)}`,
+      labelSide: 'right',
+    });
+  }
+  for (const c of confounders) {
+    if (!(Number.isFinite(c.strengthExposure) && Number.isFinite(c.strengthOutcome))) continue;
+    points.push({
+      kind: 'point',
+      x: frame.x(c.strengthExposure),
+      y: frame.y(c.strengthOutcome),
+      shape: 'square',
+      color: palette.reference,
+      size: 5,
+      label: c.name,
+      labelSide: 'above',
+    });
+  }
+  marks.push(...placeLabels(points, inner));
+  if (confounders.length > 0) legend.push({ label: 'reference confounder', color: palette.reference, swatch: 'square' });
+
+  return framedPlotSpec(frame, {
+    id: 'joint-strength',
+    title: `Confounder strengths that would ${goal} the estimate`,
+    description: describePlot(result, exposure, outcome),
+    marks,
+    legend,
+    table: dataTable(result, confounders, top),
+  });
+}
+
+type Box = { left: number; right: number; top: number; bottom: number };
+type Side = NonNullable<PointMark['labelSide']>;
+
+/**
+ * Chooses each point's label side so that labels overlap neither each other nor other points and stay inside
+ * the plotting area, trying the preferred side first; when no side is free, the preferred one is kept.
+ * Text is measured roughly (6.4 px a character at 11 px), as the renderer's legend does.
+ */
+function placeLabels(points: readonly PointMark[], inner: PlotArea): PointMark[] {
+  const markers: Box[] = points.map((p) => {
+    const r = (p.size ?? 5) + 1;
+    return { left: p.x - r, right: p.x + r, top: p.y - r, bottom: p.y + r };
+  });
+  const placed: Box[] = [];
+  return points.map((point, i) => {
+    if (!point.label) return point;
+    const preferred = point.labelSide ?? 'right';
+    const sides: Side[] = [preferred, ...(['right', 'left', 'above', 'below'] as const).filter((s) => s !== preferred)];
+    const fits = (box: Box) =>
+      box.left >= inner.left &&
+      box.right <= inner.right &&
+      box.top >= inner.top &&
+      box.bottom <= inner.bottom &&
+      !placed.some((other) => overlaps(box, other)) &&
+      !markers.some((other, j) => j !== i && overlaps(box, other));
+    const side = sides.find((s) => fits(labelBox(point, s))) ?? preferred;
+    placed.push(labelBox(point, side));
+    return { ...point, labelSide: side };
+  });
+}
+
+/** Where the renderer puts a label on each side of its point (see svgString's pointLabel). */
+function labelBox(point: PointMark, side: Side): Box {
+  const width = (point.label ?? '').length * 6.4;
+  const gap = (point.size ?? 5) + 4;
+  switch (side) {
+    case 'right':
+      return { left: point.x + gap, right: point.x + gap + width, top: point.y - 7, bottom: point.y + 5 };
+    case 'left':
+      return { left: point.x - gap - width, right: point.x - gap, top: point.y - 7, bottom: point.y + 5 };
+    case 'above':
+      return { left: point.x - width / 2, right: point.x + width / 2, top: point.y - gap - 11, bottom: point.y - gap + 1 };
+    case 'below':
+      return { left: point.x - width / 2, right: point.x + width / 2, top: point.y + gap, bottom: point.y + gap + 12 };
+  }
+}
+
+function overlaps(a: Box, b: Box): boolean {
+  return a.left < b.right && b.left < a.right && a.top < b.bottom && b.top < a.bottom;
+}
+
+/** The top of both axes: room past the E-value and every reference point, on a round value. */
+function axisTop(eEstimate: number, confounders: readonly ReferenceConfounderAssessment[]): number {
+  let top = Number.isFinite(eEstimate) ? Math.max(3, eEstimate * 3) : 3;
+  for (const c of confounders) {
+    for (const s of [c.strengthExposure, c.strengthOutcome]) if (Number.isFinite(s)) top = Math.max(top, s * 1.5);
+  }
+  top = Math.min(top, 1e12);
+  const magnitude = Math.pow(10, Math.floor(Math.log10(top)));
+  for (const step of [1, 2, 5, 10]) if (step * magnitude >= top) return step * magnitude;
+  return 10 * magnitude;
+}
+
+/** Whether the curve for `ratio` crosses the plotted square (its E-value lies inside it). */
+function eValueFits(ratio: number, top: number): boolean {
+  return boundingFactorPartner(ratio, top) < top;
+}
+
+/** Pixel points of the curve B(x, y) = ratio from where it enters at the top edge to the right edge. */
+function curvePixels(frame: Frame, ratio: number, top: number): [number, number][] {
+  const xStart = boundingFactorPartner(ratio, top); // where the curve crosses y = top
+  const from = Math.log(xStart - ratio);
+  const to = Math.log(top - ratio);
+  const points: [number, number][] = [];
+  for (let i = 0; i <= CURVE_POINTS; i++) {
+    const x = i === 0 ? xStart : i === CURVE_POINTS ? top : ratio + Math.exp(from + ((to - from) * i) / CURVE_POINTS);
+    const y = i === 0 ? top : boundingFactorPartner(ratio, x);
+    points.push([frame.x(x), frame.y(y)]);
+  }
+  return points;
+}
+
+/** The region on and above the curve, closed along the top and right edges. */
+function region(frame: Frame, ratio: number, top: number, color: string, opacity: number, label: string): PlotMark {
+  const curve = curvePixels(frame, ratio, top);
+  const corner: [number, number] = [frame.x(top), frame.y(top)];
+  return { kind: 'path', d: polygonPath([...curve, corner]), fill: color, fillOpacity: opacity, label };
+}
+
+function describePlot(result: EValueResult, exposure: string, outcome: string): string {
+  const what = result.targetIsNull ? 'explain away the estimate' : 'move the estimate to the target';
+  if (result.ratioToTarget <= 1) {
+    return `The estimate already equals the ${result.targetIsNull ? 'null' : 'target'}, so every confounder, however weak, is enough.`;
+  }
+  return (
+    `Each point of the solid curve is a pair of risk ratios — of a hidden confounder with ${exposure} and with ${outcome} — ` +
+    `that would just ${what}; pairs above and to the right of it (shaded) would do so. The curve meets the diagonal of ` +
+    `equal strengths at the E-value, ${formatEValue(result.eValueEstimate)}.` +
+    (result.eValueInterval !== null && result.intervalRatioToTarget !== null && result.intervalRatioToTarget > 1
+      ? ` The dashed curve does the same for the interval limit (E-value ${formatEValue(result.eValueInterval)}).`
+      : '')
+  );
+}
+
+function dataTable(result: EValueResult, confounders: readonly ReferenceConfounderAssessment[], top: number) {
+  const yesNo = (b: boolean | null) => (b === null ? 'no interval' : b ? 'yes' : 'no');
+  const rows: string[][] = [];
+  rows.push(['E-value for the estimate', formatEValue(result.eValueEstimate), formatEValue(result.eValueEstimate), 'just']);
+  if (result.eValueInterval !== null) {
+    rows.push(['E-value for the interval', formatEValue(result.eValueInterval), formatEValue(result.eValueInterval), result.eValueInterval <= 1 ? 'the interval already includes it' : 'no (explains the interval)']);
+  }
+  // A few points along the estimate's curve, at round strengths with the exposure.
+  if (result.ratioToTarget > 1) {
+    for (const x of [1.5, 2, 3, 5, 10, 20, 50, 100, 1000]) {
+      if (x <= result.ratioToTarget || x > top) continue;
+      rows.push(['on the estimate curve', formatPlain(x), formatPlain(boundingFactorPartner(result.ratioToTarget, x)), 'just']);
+    }
+  }
+  for (const c of confounders) {
+    rows.push([`reference: ${c.name}`, formatPlain(c.strengthExposure), formatPlain(c.strengthOutcome), yesNo(c.explainsEstimate)]);
+  }
+  return Object.freeze({
+    caption: 'Confounder strengths (risk ratios) that would explain away the estimate, and the reference confounders',
+    columns: Object.freeze(['Point', 'RR with exposure', 'RR with outcome', 'Explains away the estimate?']),
+    rows: Object.freeze(rows.map((row) => Object.freeze(row))),
+  });
+}

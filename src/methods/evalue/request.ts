@@ -1,0 +1,287 @@
+import { analyseEValue, analyseEValueFromCounts, validateEValueCountsInput, validateEValueInput } from '../../core/eValueAnalysis';
+import type { EValueCountsInput, EValueInput, EValueResult } from '../../core/eValueAnalysis';
+import { InputError, inputProblem } from '../../core/inputProblem';
+import type { InputProblem } from '../../core/inputProblem';
+import { assessReferenceConfounder, validateReferenceConfounder } from '../../core/referenceConfounder';
+import type { ReferenceConfounderAssessment } from '../../core/referenceConfounder';
+import { EFFECT_MEASURES } from '../../core/riskRatioScale';
+import type { EffectMeasure, OutcomePrevalence } from '../../core/riskRatioScale';
+import type { TwoByTwoMeasure } from '../../core/twoByTwo';
+import type { CsvTable } from '../../data/csv';
+import { parseTypedNumber } from '../../data/numberText';
+import { twoByTwoFromCsv } from './twoByTwoFromCsv';
+import type { TwoByTwoFromCsv } from './twoByTwoFromCsv';
+
+/** Where the estimate comes from. */
+export type EValueSource = 'reported' | 'counts' | 'file';
+
+/** A reference confounder as typed. */
+export interface ConfounderText {
+  readonly name: string;
+  readonly rrExposure: string;
+  readonly rrOutcome: string;
+}
+
+/**
+ * Everything the E-value form holds, as the user typed it (text, never parsed numbers), so nothing typed is
+ * lost and the whole form can be saved and restored. A CSV's rows are not part of it, only its name and the
+ * choices made about its columns.
+ */
+export interface EValueFormInputs {
+  readonly source: EValueSource;
+  readonly measure: EffectMeasure;
+  readonly estimate: string;
+  /** Whether the interval is given by its limits or by the standard error. */
+  readonly intervalBy: 'limits' | 'se';
+  readonly lower: string;
+  readonly upper: string;
+  readonly se: string;
+  /** The confidence level, as a percentage ("95") or a fraction ("0.95"). */
+  readonly level: string;
+  readonly outcomePrevalence: '' | OutcomePrevalence;
+  readonly sd: string;
+  readonly target: string;
+  readonly counts: { readonly a: string; readonly b: string; readonly c: string; readonly d: string };
+  readonly tableMeasure: TwoByTwoMeasure;
+  readonly fileName: string;
+  readonly exposureColumn: string;
+  readonly outcomeColumn: string;
+  /** Values meaning exposed; empty to use the values found from a yes/no-like column. */
+  readonly exposedValues: readonly string[];
+  readonly outcomeValues: readonly string[];
+  readonly confounders: readonly ConfounderText[];
+}
+
+export function emptyEValueForm(): EValueFormInputs {
+  return Object.freeze({
+    source: 'reported',
+    measure: 'rr',
+    estimate: '',
+    intervalBy: 'limits',
+    lower: '',
+    upper: '',
+    se: '',
+    level: '95',
+    outcomePrevalence: '',
+    sd: '',
+    target: '',
+    counts: Object.freeze({ a: '', b: '', c: '', d: '' }),
+    tableMeasure: 'rr',
+    fileName: '',
+    exposureColumn: '',
+    outcomeColumn: '',
+    exposedValues: Object.freeze([]),
+    outcomeValues: Object.freeze([]),
+    confounders: Object.freeze([]),
+  });
+}
+
+/**
+ * A complete form from whatever was saved (a partial object, an older version, or nothing): every field takes
+ * the saved text when it has the right type and the empty form's value otherwise.
+ */
+export function normaliseEValueForm(saved: unknown): EValueFormInputs {
+  const base = emptyEValueForm();
+  if (saved === null || typeof saved !== 'object') return base;
+  const s = saved as Record<string, unknown>;
+  const text = (key: keyof EValueFormInputs) => (typeof s[key] === 'string' ? (s[key] as string) : (base[key] as string));
+  const pick = <T extends string>(key: keyof EValueFormInputs, choices: readonly T[]) =>
+    choices.includes(s[key] as T) ? (s[key] as T) : (base[key] as T);
+  const strings = (value: unknown) => (Array.isArray(value) ? value.filter((v): v is string => typeof v === 'string') : []);
+  const counts = (s.counts ?? {}) as Record<string, unknown>;
+  const countText = (cell: string) => (typeof counts[cell] === 'string' ? (counts[cell] as string) : '');
+  const confounders = Array.isArray(s.confounders)
+    ? s.confounders
+        .filter((c): c is Record<string, unknown> => c !== null && typeof c === 'object')
+        .map((c) =>
+          Object.freeze({
+            name: typeof c.name === 'string' ? c.name : '',
+            rrExposure: typeof c.rrExposure === 'string' ? c.rrExposure : '',
+            rrOutcome: typeof c.rrOutcome === 'string' ? c.rrOutcome : '',
+          }),
+        )
+    : [];
+  return Object.freeze({
+    source: pick('source', ['reported', 'counts', 'file'] as const),
+    measure: pick('measure', EFFECT_MEASURES),
+    estimate: text('estimate'),
+    intervalBy: pick('intervalBy', ['limits', 'se'] as const),
+    lower: text('lower'),
+    upper: text('upper'),
+    se: text('se'),
+    level: text('level'),
+    outcomePrevalence: pick('outcomePrevalence', ['', 'rare', 'common'] as const),
+    sd: text('sd'),
+    target: text('target'),
+    counts: Object.freeze({ a: countText('a'), b: countText('b'), c: countText('c'), d: countText('d') }),
+    tableMeasure: pick('tableMeasure', ['rr', 'or'] as const),
+    fileName: text('fileName'),
+    exposureColumn: text('exposureColumn'),
+    outcomeColumn: text('outcomeColumn'),
+    exposedValues: Object.freeze(strings(s.exposedValues)),
+    outcomeValues: Object.freeze(strings(s.outcomeValues)),
+    confounders: Object.freeze(confounders),
+  });
+}
+
+/** What the form's current text gives. */
+export interface EValueFormOutcome {
+  /** The analysis, or null while the form has problems or is not filled in yet. */
+  readonly result: EValueResult | null;
+  /** Every problem, by input field (`estimate`, `counts.a`, `exposure`, `confounders[1].rrOutcome`, …). */
+  readonly problems: readonly InputProblem[];
+  /** Whether the user has entered the main value(s) yet: until then "required" problems are not worth showing. */
+  readonly started: boolean;
+  /** The table counted from the file (file source only). */
+  readonly csv: TwoByTwoFromCsv | null;
+  /** One entry per confounder row: its assessment, or null while it has problems or no result exists. */
+  readonly confounders: ReadonlyArray<ReferenceConfounderAssessment | null>;
+}
+
+/**
+ * Reads the form's text (numbers with a decimal point or comma; the level as "95" or "0.95"), checks it with
+ * the core's validation, and runs the analysis when there is no problem. Text that is not a number is named
+ * by field with what was typed; nothing is thrown.
+ *
+ * @param form the form as typed
+ * @param table the CSV read from the chosen file (file source only), or null when none is loaded
+ */
+export function evaluateEValueForm(form: EValueFormInputs, table: CsvTable | null): EValueFormOutcome {
+  const problems: InputProblem[] = [];
+  const number = (field: string, text: string): number | null => {
+    if (text.trim() === '') return null;
+    const value = parseTypedNumber(text);
+    if (Number.isNaN(value)) problems.push(inputProblem(field, 'not-a-number', `must be a number, got "${text.trim()}"`, text));
+    return value;
+  };
+  const level = parseLevel(number('level', form.level));
+  const target = number('target', form.target);
+  const prevalence = form.outcomePrevalence === '' ? null : form.outcomePrevalence;
+  let result: EValueResult | null = null;
+  let csv: TwoByTwoFromCsv | null = null;
+  let started: boolean;
+
+  const run = (validate: () => InputProblem[], analyse: () => EValueResult) => {
+    // Fields that failed to parse are already reported; the rules are checked on the rest.
+    const parsed = new Set(problems.map((p) => p.field));
+    const ruleProblems = validate().filter((p) => !parsed.has(p.field));
+    problems.push(...ruleProblems);
+    if (problems.length === 0) {
+      try {
+        result = analyse();
+      } catch (error) {
+        if (error instanceof InputError) problems.push(...error.problems);
+        else throw error;
+      }
+    }
+  };
+
+  if (form.source === 'reported') {
+    started = form.estimate.trim() !== '';
+    const limits = form.intervalBy === 'limits';
+    const input: EValueInput = {
+      measure: form.measure,
+      estimate: number('estimate', form.estimate) as number,
+      lower: limits ? number('lower', form.lower) : null,
+      upper: limits ? number('upper', form.upper) : null,
+      se: limits ? null : number('se', form.se),
+      level,
+      outcomePrevalence: form.measure === 'or' || form.measure === 'hr' ? prevalence : null,
+      sd: form.measure === 'md' ? number('sd', form.sd) : null,
+      target,
+    };
+    run(
+      () => validateEValueInput(input),
+      () => analyseEValue(input),
+    );
+  } else {
+    const counts = countsFrom(form, table, number, problems, (c) => (csv = c));
+    started = form.source === 'counts' ? Object.values(form.counts).some((t) => t.trim() !== '') : table !== null;
+    if (counts) {
+      const input: EValueCountsInput = {
+        counts,
+        measure: form.tableMeasure,
+        level,
+        outcomePrevalence: form.tableMeasure === 'or' ? prevalence : null,
+        target,
+      };
+      run(
+        () => validateEValueCountsInput(input),
+        () => withFileWarnings(analyseEValueFromCounts(input), csv),
+      );
+    }
+  }
+
+  const finalResult = result as EValueResult | null;
+  const confounders = form.confounders.map((row, i) => {
+    const field = `confounders[${i}]`;
+    const before = problems.length;
+    const confounder = {
+      name: row.name,
+      rrExposure: number(`${field}.rrExposure`, row.rrExposure) ?? NaN,
+      rrOutcome: number(`${field}.rrOutcome`, row.rrOutcome) ?? NaN,
+    };
+    const parsed = new Set(problems.slice(before).map((p) => p.field));
+    const rowProblems = validateReferenceConfounder(confounder, field).filter((p) => !parsed.has(p.field));
+    problems.push(...rowProblems);
+    if (problems.length > before || !finalResult) return null;
+    return assessReferenceConfounder(finalResult, confounder);
+  });
+
+  return Object.freeze({
+    result: finalResult,
+    problems: Object.freeze(problems),
+    started,
+    csv,
+    confounders: Object.freeze(confounders),
+  });
+}
+
+/** The file's own warnings (rows left out, repaired header) go first among the result's warnings. */
+function withFileWarnings(result: EValueResult, csv: TwoByTwoFromCsv | null): EValueResult {
+  if (!csv || csv.warnings.length === 0) return result;
+  return Object.freeze({ ...result, warnings: Object.freeze([...csv.warnings, ...result.warnings]) });
+}
+
+/** "95" and "0.95" both mean 95%: a number above 1 and below 100 is read as a percentage. */
+export function parseLevel(value: number | null): number | null {
+  if (value === null || Number.isNaN(value)) return null;
+  return value > 1 && value < 100 ? value / 100 : value;
+}
+
+function countsFrom(
+  form: EValueFormInputs,
+  table: CsvTable | null,
+  number: (field: string, text: string) => number | null,
+  problems: InputProblem[],
+  keepCsv: (csv: TwoByTwoFromCsv) => void,
+) {
+  if (form.source === 'counts') {
+    const cells = (['a', 'b', 'c', 'd'] as const).map((cell) => {
+      const value = number(`counts.${cell}`, form.counts[cell]);
+      if (value === null) problems.push(inputProblem(`counts.${cell}`, 'required', 'is required (a count, 0 or more)'));
+      return value;
+    });
+    if (cells.some((v) => v === null || Number.isNaN(v))) return null;
+    const [a, b, c, d] = cells as number[];
+    return { a, b, c, d };
+  }
+  if (!table) {
+    problems.push(inputProblem('file', 'required', 'choose a CSV file with one row per person'));
+    return null;
+  }
+  try {
+    const csv = twoByTwoFromCsv(table, {
+      exposureColumn: form.exposureColumn,
+      outcomeColumn: form.outcomeColumn,
+      exposedValues: form.exposedValues,
+      outcomeValues: form.outcomeValues,
+    });
+    keepCsv(csv);
+    return csv.counts;
+  } catch (error) {
+    if (error instanceof InputError) problems.push(...error.problems);
+    else throw error;
+    return null;
+  }
+}

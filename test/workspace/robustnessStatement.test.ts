@@ -1,0 +1,105 @@
+import { describe, expect, it } from 'vitest';
+import { analyseEValue } from '../../src/core/eValueAnalysis';
+import { analysePairs } from '../../src/core/pairsAnalysis';
+import { analyseOvb } from '../../src/core/ovbAnalysis';
+import { createAppraisal, type Appraisal } from '../../src/workspace/appraisal';
+import { eValueSummary, ovbSummary, pairsSummary } from '../../src/workspace/calculatorSummaries';
+import { buildRobustnessStatement, latex, renderRobustnessStatement } from '../../src/workspace/robustnessStatement';
+import { buildBottomLine } from '../../src/workspace/bottomLine';
+import { readReferenceJson } from '../support/reference';
+
+const rosenbaum = readReferenceJson('rosenbaum.json');
+const study = { finding: 'A fictional finding', exposure: 'cycling to work', outcome: 'blood pressure', units: 'mmHg', source: 'invented' };
+
+function appraisal(): Appraisal {
+  // VanderWeele & Ding 2017 worked example: RR 3.9 (95% CI 1.8–8.7) → E-values 7.26 and 3.00
+  const e = analyseEValue({ measure: 'rr', estimate: 3.9, lower: 1.8, upper: 8.7 });
+  // R 4.2.2 (rosenbaum.json, small_n15): signed-rank sensitivity value 1.6118… (exact), shown floored to 1.611
+  const p = analysePairs({ data: { kind: 'differences', differences: rosenbaum.datasets.small_n15.differences }, method: 'exact' });
+  // Cinelli & Hazlett 2020 published example: t = 4.18, df = 783 → partial R² 2.2%, RV 13.9%, RV(α = 0.05) 7.6%
+  const r = analyseOvb({ estimate: 4.18, se: 1, df: 783 });
+  return createAppraisal(study, {
+    evalue: { inputs: {}, summary: eValueSummary(e) },
+    pairs: { inputs: {}, summary: pairsSummary(p) },
+    regression: { inputs: {}, summary: ovbSummary(r) },
+  });
+}
+
+describe('buildRobustnessStatement', () => {
+  const statement = buildRobustnessStatement(appraisal());
+  const text = statement.paragraphs.join(' ');
+
+  it('states the E-values, the tipping Γ and the robustness values computed from the inputs', () => {
+    expect(text).toContain('E-value for the point estimate is 7.26');
+    expect(text).toContain('the E-value is 3.00');
+    expect(text).toContain('up to Γ = 1.611');
+    expect(text).toContain('The robustness value is 13.9%');
+    expect(text).toContain('at least 7.6% of both');
+    expect(text).toContain('explains 2.2% of the residual variance');
+  });
+
+  it('uses the study labels and ends with the caution', () => {
+    expect(text).toContain('between cycling to work and blood pressure');
+    expect(statement.paragraphs.at(-1)).toMatch(/do not show that such confounding is absent/);
+  });
+
+  it('lists full references to each published method used, numbered as cited', () => {
+    expect(statement.references[0]).toMatch(/^VanderWeele TJ, Ding P\. .*Annals of Internal Medicine\. 2017;167\(4\):268–274/);
+    expect(statement.references.some((r) => r.includes('Rosenbaum PR. Observational Studies'))).toBe(true);
+    expect(statement.references.some((r) => r.includes('Cinelli C, Hazlett C'))).toBe(true);
+    expect(text).toContain('[1]');
+  });
+
+  it('never shows NaN, undefined or Infinity', () => {
+    for (const format of ['md', 'tex', 'html'] as const) expect(renderRobustnessStatement(statement, format)).not.toMatch(/NaN|undefined|Infinity/);
+  });
+
+  it('says when nothing has been computed', () => {
+    const empty = buildRobustnessStatement(createAppraisal(study, {}));
+    expect(empty.paragraphs).toHaveLength(1);
+    expect(empty.references).toEqual([]);
+  });
+});
+
+describe('renderRobustnessStatement', () => {
+  const statement = buildRobustnessStatement(appraisal());
+
+  it('writes Markdown with a heading and a numbered reference list', () => {
+    const md = renderRobustnessStatement(statement, 'md');
+    expect(md.startsWith('## Sensitivity to unmeasured confounding: A fictional finding')).toBe(true);
+    expect(md).toMatch(/### References\n\n1\. VanderWeele/);
+  });
+
+  it('writes LaTeX with special characters escaped and symbols in math mode', () => {
+    const tex = renderRobustnessStatement(statement, 'tex');
+    expect(tex).toContain('\\subsection*{');
+    expect(tex).toContain('13.9\\%');
+    expect(tex).toContain('$\\Gamma$ = 1.611');
+    expect(tex).toContain('\\begin{enumerate}');
+    expect(latex('a_b & 50% {x} R² ≥ 1')).toBe('a\\_b \\& 50\\% \\{x\\} R$^2$ $\\geq$ 1');
+  });
+
+  it('writes HTML with text escaped', () => {
+    const withMarkup = buildRobustnessStatement(createAppraisal({ ...study, exposure: '<script>x</script>' }, appraisal().calculators));
+    const out = renderRobustnessStatement(withMarkup, 'html');
+    expect(out).toContain('&lt;script&gt;x&lt;/script&gt;');
+    expect(out).not.toContain('<script>');
+    expect(out).toMatch(/<ol>\n {4}<li>VanderWeele/);
+  });
+});
+
+describe('buildBottomLine', () => {
+  it('says in plain words how strong a hidden factor would have to be, and the caution', () => {
+    const line = buildBottomLine(appraisal());
+    expect(line.empty).toBe(false);
+    expect(line.howStrong[0]).toContain('at least 7.26 times as likely');
+    expect(line.howStrong[1]).toContain('by more than 1.611 to 1');
+    expect(line.howStrong[2]).toContain('at least 13.9%');
+    expect(line.caution).toMatch(/does not prove/);
+    expect(line.caution).toMatch(/domain experts, local guidance and licensed practice/);
+  });
+
+  it('is empty before any calculator has a result', () => {
+    expect(buildBottomLine(createAppraisal(study, {})).empty).toBe(true);
+  });
+});
