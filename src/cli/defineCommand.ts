@@ -1,7 +1,12 @@
 import type { CliIo } from './cliIo';
-import type { LurkCommand } from './main';
 import { parseOptions, type OptionKinds } from './parseOptions';
 import { reportBadInput } from './usageError';
+
+/** One sub-command of `lurk`: its one-line summary and its runner (returns the exit status). */
+export interface LurkCommand {
+  summary: string;
+  run(args: readonly string[], io: CliIo): Promise<number>;
+}
 
 /** What a sub-command declares; `defineCommand` adds option parsing, --help and the bad-input exit. */
 export interface CommandSpec {

@@ -1,10 +1,6 @@
 import type { CliIo } from './cliIo';
 
-/** One sub-command of `lurk`: its one-line summary and its runner (returns the exit status). */
-export interface LurkCommand {
-  summary: string;
-  run(args: readonly string[], io: CliIo): Promise<number>;
-}
+import type { LurkCommand } from './defineCommand';
 
 // Each command lives in its own module under ./commands and is loaded only when used.
 const commands: Record<string, () => Promise<LurkCommand>> = {

@@ -1,7 +1,7 @@
 import { appraiseBatchCsv, BATCH_COLUMNS, BATCH_MEASURES, type BatchResult } from '../../workspace/batchFindings';
 import { batchCsvText } from '../../workspace/batchCsv';
 import { formatNumber, formatPercent } from '../../format/formatNumber';
-import type { LurkCommand } from '../main';
+import type { LurkCommand } from '../defineCommand';
 import { numberOption, type OptionKinds } from '../parseOptions';
 import { UsageError } from '../usageError';
 import { readFileArgument } from '../readFileArgument';

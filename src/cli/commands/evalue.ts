@@ -22,7 +22,7 @@ import { parseNumberText } from '../../data/numberText';
 import { twoByTwoFromCsv } from '../../methods/evalue/twoByTwoFromCsv';
 import type { TwoByTwoFromCsv } from '../../methods/evalue/twoByTwoFromCsv';
 import type { CliIo } from '../cliIo';
-import type { LurkCommand } from '../main';
+import type { LurkCommand } from '../defineCommand';
 import { choiceOption, numberListOption, numberOption } from '../parseOptions';
 import type { OptionKinds } from '../parseOptions';
 import { UsageError } from '../usageError';

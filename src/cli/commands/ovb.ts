@@ -13,7 +13,7 @@ import { ovbContourPlot } from '../../methods/regression/ovbContourPlot';
 import { ovbExtremeScenarioPlot } from '../../methods/regression/ovbExtremeScenarioPlot';
 import { renderSvgString } from '../../plot/svgString';
 import type { CliIo } from '../cliIo';
-import type { LurkCommand } from '../main';
+import type { LurkCommand } from '../defineCommand';
 import { choiceOption, numberListOption, numberOption, type OptionKinds } from '../parseOptions';
 import { UsageError } from '../usageError';
 import { readFileArgument } from '../readFileArgument';

@@ -3,7 +3,7 @@ import { InputError, inputProblem, type InputProblem } from '../../core/inputPro
 import { pairsFromCsvStream, type PairsRead } from '../../methods/pairs/pairsFromCsv';
 import { pairsReportText, pairsResultJson, PAIRS_CAUTION } from '../../methods/pairs/text';
 import type { CliIo } from '../cliIo';
-import type { LurkCommand } from '../main';
+import type { LurkCommand } from '../defineCommand';
 import { choiceOption, numberListOption, numberOption, type OptionKinds } from '../parseOptions';
 import { UsageError } from '../usageError';
 import { defineCommand } from '../defineCommand';

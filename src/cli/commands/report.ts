@@ -2,7 +2,7 @@ import { readAppraisal } from '../../workspace/appraisal';
 import { buildRobustnessStatement, renderRobustnessStatement, type StatementFormat } from '../../workspace/robustnessStatement';
 import { buildBottomLine } from '../../workspace/bottomLine';
 import { InputError, inputProblem } from '../../core/inputProblem';
-import type { LurkCommand } from '../main';
+import type { LurkCommand } from '../defineCommand';
 import { choiceOption, type OptionKinds } from '../parseOptions';
 import { UsageError } from '../usageError';
 import { readFileArgument } from '../readFileArgument';
