@@ -100,6 +100,8 @@ export interface WorkspaceKit<Form, Outcome extends MethodOutcome, Summary exten
   readSummary(saved: unknown): Summary | null;
   /** Whether the form's numbers come from raw data that is not saved (a file): then the saved summary is used. */
   needsData(form: Form): boolean;
+  /** The summary of a form that needs no data, read and run now (null while it has problems). */
+  summaryFromForm(form: Form): Summary | null;
   statement(summary: Summary, study: StudyLabels, cite: (reference: string) => string): StatementPart | null;
   bottomLine(summary: Summary, study: StudyLabels): BottomLinePart;
 }
