@@ -17,6 +17,8 @@ export interface MethodModule<Form = unknown, Outcome extends MethodOutcome = Me
   readonly id: string;
   /** The tab's label on the page. */
   readonly title: string;
+  /** The page's view of the method: its element's tag name, the heading and one line under it. */
+  readonly view: { readonly element: string; readonly heading: string; readonly intro: string };
   readonly form: FormKit<Form>;
   readonly command: CommandKit<Form>;
   readonly workspace: WorkspaceKit<Form, Outcome, Summary>;
