@@ -1,5 +1,6 @@
 import { InputError, type InputProblem, inputProblem, throwIfProblems } from '../../core/inputProblem';
-import type { RawCrossProductInput } from '../../core/crossProductFit';
+import type { CrossProductInput } from '../../core/crossProductFit';
+import { quoteSqlIdentifier, quoteSqlString, readTableName } from '../../data/sqlText';
 
 /** One variable of the summary query: a numeric column, or one level of a categorical column (0/1 indicator). */
 export type SummaryVariable =
@@ -19,15 +20,7 @@ export function summaryVariableName(variable: SummaryVariable): string {
   return 'level' in variable ? `${variable.column}=${variable.level}` : variable.column;
 }
 
-/** A standard SQL delimited identifier: in double quotes, with any " doubled (SQL:1992 §5.2). */
-export function quoteSqlIdentifier(name: string): string {
-  return `"${name.replace(/"/g, '""')}"`;
-}
-
-/** A standard SQL character literal: in single quotes, with any ' doubled. */
-export function quoteSqlString(text: string): string {
-  return `'${text.replace(/'/g, "''")}'`;
-}
+export { quoteSqlIdentifier, quoteSqlString } from '../../data/sqlText';
 
 /**
  * Checks the query spec. Fields: `table`, `variables`, `variables[i]`.
@@ -55,38 +48,60 @@ export function validateSummarySqlSpec(spec: SummarySqlSpec): InputProblem[] {
   return problems;
 }
 
+/** Marks the result row of the regression's summary query, so that a row from another query is recognised. */
+export const REGRESSION_QUERY_MARK = 'lurk-regression-summary';
+
 /**
  * One standard SQL query that computes, in the user's own database, exactly the summary statistics that
- * Lurk's regression needs: the number of rows with every chosen column present, the sum of each variable
- * and the sum of each product of two variables (the cross-product matrix of [1, variables…]).
+ * Lurk's regression needs, in a numerically stable form: the number of complete rows, the mean of each
+ * variable, and the centred cross-products Σ(x_i − m_i)(x_j − m_j) — two passes in one statement (a CTE of
+ * means, then sums of products of deviations), with the corrected two-pass term: the query also returns
+ * d_i = Σ(x_i − m_i), and the reader subtracts d_i·d_j/n, which removes the rounding error of the means
+ * (Chan, Golub & LeVeque 1983, Algorithms for computing the sample variance, The American Statistician
+ * 37(3):242–247). Raw sums of products would lose every digit on data with large means and small spread
+ * (dates, years, identifiers).
  *
- * Uses only SQL-92: `COUNT(*)`, `SUM`, `CAST(… AS DOUBLE PRECISION)` (so integer columns cannot overflow),
- * `CASE WHEN … THEN 1 ELSE 0 END` for category indicators, double-quoted identifiers and a `WHERE … IS NOT
- * NULL` filter that drops a row when any chosen column is NULL — the same rows the CSV path drops. Result
- * columns: `n`, `s_i` (Σ variable i), `c_i_j` (Σ variable i × variable j, i ≤ j), with i, j numbered from 1
- * in the order given (the query's comment lists them).
+ * Uses CTEs, `COUNT(*)`, `AVG`, `SUM`, `MIN`, `CAST(… AS DOUBLE PRECISION)` (so integer columns cannot
+ * overflow), `CASE WHEN … THEN 1 ELSE 0 END` for category indicators, double-quoted identifiers (schema-qualified
+ * tables quoted part by part) and a `WHERE … IS NOT NULL` filter that drops a row when any chosen column is
+ * NULL — the same rows the CSV path drops. Result columns: `lurk_query` (a mark), `n`, `m_i`, `d_i`, `c_i_j`
+ * (i ≤ j), numbered from 1 in the order given (the query's comment lists them). Checked on DuckDB and PostgreSQL.
  *
  * @throws InputError (fields as {@link validateSummarySqlSpec})
  */
 export function summaryStatisticsSql(spec: SummarySqlSpec): string {
   throwIfProblems(validateSummarySqlSpec(spec));
-  const parts = typeof spec.table === 'string' ? [spec.table] : spec.table;
+  const parts = typeof spec.table === 'string' ? tableParts(spec.table) : spec.table;
   const table = parts.map(quoteSqlIdentifier).join('.');
   const expressions = spec.variables.map(variableExpression);
+  const k = expressions.length;
   const lines: string[] = [];
-  lines.push('-- Summary statistics for a linear regression: rows, sums and sums of products.');
+  lines.push('-- Summary statistics for a linear regression: rows, means and centred sums of products.');
   spec.variables.forEach((v, i) => lines.push(`-- ${i + 1} = ${summaryVariableName(v).replace(/[\r\n]+/g, ' ')}`));
+  const columns = [...new Set(spec.variables.map((v) => v.column))];
+  lines.push('WITH complete AS (');
+  lines.push(`  SELECT ${expressions.map((e, i) => `${e} AS v_${i + 1}`).join(',\n         ')}`);
+  lines.push(`  FROM ${table}`);
+  lines.push(`  WHERE ${columns.map((c) => `${quoteSqlIdentifier(c)} IS NOT NULL`).join('\n    AND ')}`);
+  lines.push('), means AS (');
+  lines.push(`  SELECT COUNT(*) AS n, ${expressions.map((_, i) => `AVG(v_${i + 1}) AS m_${i + 1}`).join(', ')} FROM complete`);
+  lines.push(')');
   lines.push('SELECT');
-  const select: string[] = ['  COUNT(*) AS n'];
-  expressions.forEach((e, i) => select.push(`  SUM(${e}) AS s_${i + 1}`));
-  for (let i = 0; i < expressions.length; i++) {
-    for (let j = i; j < expressions.length; j++) select.push(`  SUM(${expressions[i]} * ${expressions[j]}) AS c_${i + 1}_${j + 1}`);
+  const select: string[] = [`  ${quoteSqlString(REGRESSION_QUERY_MARK)} AS lurk_query`, '  MIN(means.n) AS n'];
+  for (let i = 1; i <= k; i++) select.push(`  MIN(means.m_${i}) AS m_${i}`);
+  for (let i = 1; i <= k; i++) select.push(`  SUM(v_${i} - means.m_${i}) AS d_${i}`);
+  for (let i = 1; i <= k; i++) {
+    for (let j = i; j <= k; j++) select.push(`  SUM((v_${i} - means.m_${i}) * (v_${j} - means.m_${j})) AS c_${i}_${j}`);
   }
   lines.push(select.join(',\n'));
-  lines.push(`FROM ${table}`);
-  const columns = [...new Set(spec.variables.map((v) => v.column))];
-  lines.push(`WHERE ${columns.map((c) => `${quoteSqlIdentifier(c)} IS NOT NULL`).join('\n  AND ')};`);
+  lines.push('FROM complete CROSS JOIN means;');
   return lines.join('\n') + '\n';
+}
+
+/** A table name as typed ("research.visits", '"my.table"') in its parts; validation has checked it. */
+function tableParts(text: string): string[] {
+  const { parts, problem } = readTableName(text);
+  return problem ? [text] : parts;
 }
 
 function variableExpression(v: SummaryVariable): string {
@@ -97,18 +112,25 @@ function variableExpression(v: SummaryVariable): string {
 
 /**
  * Reads the one result row of {@link summaryStatisticsSql} (as returned by a database driver, or pasted:
- * numbers, bigints or numeric strings) into the input of `designFromCrossProducts`.
+ * numbers, bigints or numeric strings) into the input of `designFromCrossProducts`: means and the covariance
+ * (centred cross-products, corrected by d_i·d_j/n, over n − 1). A row of the earlier raw form (`s_i` sums and
+ * raw `c_i_j` products) is still read as raw cross-products.
  *
- * @throws InputError naming the result column (`n`, `s_i`, `c_i_j`) that is absent or not a number.
+ * @throws InputError naming the result column (`n`, `m_i`, `d_i`, `c_i_j`) that is absent or not a number, or
+ *   `summary` for a row of another calculator's query.
  */
 export function crossProductsFromSqlRow(
   row: Readonly<Record<string, unknown>>,
   variables: readonly SummaryVariable[],
   options: { intercept?: boolean } = {},
-): RawCrossProductInput {
+): CrossProductInput {
   const problems: InputProblem[] = [];
   const lower: Record<string, unknown> = {};
   for (const [key, value] of Object.entries(row)) lower[key.toLowerCase()] = value;
+  const mark = lower.lurk_query;
+  if ((mark !== undefined && mark !== REGRESSION_QUERY_MARK) || (mark === undefined && ('a' in lower || 'rank_sum' in lower))) {
+    throw new InputError([inputProblem('summary', 'other-query', "is the result of another calculator's query, not of the regression's summary query: print it with lurk ovb --sql and run it")]);
+  }
   const read = (key: string): number => {
     const value = lower[key];
     const number = typeof value === 'bigint' ? Number(value) : typeof value === 'string' ? Number(value.trim()) : value;
@@ -120,22 +142,22 @@ export function crossProductsFromSqlRow(
   };
   const k = variables.length;
   const rowCount = read('n');
-  const sums = variables.map((_, i) => read(`s_${i + 1}`));
-  const crossProducts: number[][] = variables.map(() => new Array<number>(k).fill(0));
+  const centred = 'm_1' in lower || !('s_1' in lower);
+  const vector = variables.map((_, i) => read(centred ? `m_${i + 1}` : `s_${i + 1}`));
+  const offsets = centred ? variables.map((_, i) => read(`d_${i + 1}`)) : [];
+  const matrix: number[][] = variables.map(() => new Array<number>(k).fill(0));
   for (let i = 0; i < k; i++) {
     for (let j = i; j < k; j++) {
       const v = read(`c_${i + 1}_${j + 1}`);
-      crossProducts[i][j] = v;
-      crossProducts[j][i] = v;
+      matrix[i][j] = v;
+      matrix[j][i] = v;
     }
   }
   if (problems.length > 0) throw new InputError(problems);
-  return Object.freeze({
-    kind: 'cross-products' as const,
-    columnNames: Object.freeze(variables.map(summaryVariableName)),
-    rowCount,
-    sums: Object.freeze(sums),
-    crossProducts: Object.freeze(crossProducts.map((r) => Object.freeze(r))),
-    intercept: options.intercept ?? true,
-  });
+  const columnNames = Object.freeze(variables.map(summaryVariableName));
+  if (!centred) {
+    return Object.freeze({ kind: 'cross-products' as const, columnNames, rowCount, sums: Object.freeze(vector), crossProducts: Object.freeze(matrix.map((r) => Object.freeze(r))), intercept: options.intercept ?? true });
+  }
+  const covariance = matrix.map((r, i) => Object.freeze(r.map((c, j) => (c - (offsets[i] * offsets[j]) / rowCount) / (rowCount - 1))));
+  return Object.freeze({ kind: 'covariance' as const, columnNames, rowCount, means: Object.freeze(vector), covariance: Object.freeze(covariance), intercept: options.intercept ?? true });
 }

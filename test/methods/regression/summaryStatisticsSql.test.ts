@@ -53,12 +53,16 @@ describe('summaryStatisticsSql', () => {
   it('writes one SELECT with COUNT, SUMs of variables and of their products, and a NULL filter', () => {
     const sql = summaryStatisticsSql({ table: ['research', 'visits'], variables: [{ column: 'dose' }, { column: 'site', level: 'b' }] });
     expect(sql).toContain('COUNT(*) AS n');
-    expect(sql).toContain('SUM(CAST("dose" AS DOUBLE PRECISION)) AS s_1');
-    expect(sql).toContain(`SUM(CASE WHEN "site" = 'b' THEN 1.0 ELSE 0.0 END) AS s_2`);
-    expect(sql).toContain('AS c_1_2');
+    expect(sql).toContain('CAST("dose" AS DOUBLE PRECISION) AS v_1');
+    expect(sql).toContain(`CASE WHEN "site" = 'b' THEN 1.0 ELSE 0.0 END AS v_2`);
+    expect(sql).toContain('AVG(v_1) AS m_1');
+    expect(sql).toContain('SUM(v_1 - means.m_1) AS d_1');
+    expect(sql).toContain('SUM((v_1 - means.m_1) * (v_2 - means.m_2)) AS c_1_2');
     expect(sql).toContain('FROM "research"."visits"');
-    expect(sql).toMatch(/WHERE "dose" IS NOT NULL\s+AND "site" IS NOT NULL;/);
-    expect(sql.match(/SELECT/g)).toHaveLength(1);
+    expect(sql).toMatch(/WHERE "dose" IS NOT NULL\s+AND "site" IS NOT NULL/);
+    // A schema-qualified name typed as one string is quoted part by part.
+    expect(summaryStatisticsSql({ table: 'research.visits', variables: [{ column: 'dose' }] })).toContain('FROM "research"."visits"');
+    expect(summaryStatisticsSql({ table: '"my.table"', variables: [{ column: 'dose' }] })).toContain('FROM "my.table"');
   });
 
   it('names the field of a bad spec', () => {
@@ -67,15 +71,31 @@ describe('summaryStatisticsSql', () => {
 
   it('names a result column that is missing or not a number', () => {
     const variables = [{ column: 'a' }];
+    expect(() => crossProductsFromSqlRow({ n: 3, m_1: 2, d_1: 0 }, variables)).toThrow(/c_1_1: is missing/);
+    expect(() => crossProductsFromSqlRow({ n: 3, m_1: 'x', d_1: 0, c_1_1: 1 }, variables)).toThrow(/m_1: must be a number/);
     expect(() => crossProductsFromSqlRow({ n: 3, s_1: 2 }, variables)).toThrow(/c_1_1: is missing/);
-    expect(() => crossProductsFromSqlRow({ n: 3, s_1: 'x', c_1_1: 1 }, variables)).toThrow(/s_1: must be a number/);
   });
 
-  it('reads numbers, bigints and numeric strings, in any letter case', () => {
+  it('reads the centred form: means, and centred sums corrected by d_i·d_j/n over n − 1', () => {
+    const input = crossProductsFromSqlRow({ N: 3n, M_1: '2', d_1: 0.3, c_1_1: 2.03 }, [{ column: 'a' }]);
+    expect(input.kind).toBe('covariance');
+    if (input.kind !== 'covariance') return;
+    expect(input.rowCount).toBe(3);
+    expect(input.means).toEqual([2]);
+    expect(input.covariance[0][0]).toBeCloseTo((2.03 - 0.09 / 3) / 2, 15);
+  });
+
+  it('still reads the earlier raw form (sums and raw products), in any letter case', () => {
     const input = crossProductsFromSqlRow({ N: 3n, S_1: '6', c_1_1: 14 }, [{ column: 'a' }]);
+    expect(input.kind).toBe('cross-products');
+    if (input.kind !== 'cross-products') return;
     expect(input.rowCount).toBe(3);
     expect(input.sums).toEqual([6]);
     expect(input.crossProducts).toEqual([[14]]);
+  });
+
+  it("refuses a row from another calculator's query", () => {
+    expect(() => crossProductsFromSqlRow({ lurk_query: 'lurk-2x2-counts', a: 1 }, [{ column: 'a' }])).toThrow(/another calculator/);
   });
 });
 
