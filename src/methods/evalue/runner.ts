@@ -1,6 +1,7 @@
 import { boundingFactor } from '../../core/boundingFactor';
 import type { EValueResult } from '../../core/eValueAnalysis';
-import type { CsvTable } from '../../data/csv';
+import { InputError } from '../../core/inputProblem';
+import { readCsvText, type CsvTable } from '../../data/csv';
 import type { StudyLabels } from '../../format/studyLabels';
 import type { PlotSpec } from '../../plot/plotSpec';
 import { jointStrengthPlot } from './jointStrengthPlot';
@@ -32,4 +33,17 @@ export function runEValue(form: EValueFormInputs, table: CsvTable | null, study:
  */
 export function strengthPairReadout(result: EValueResult | null, x: number, y: number, inside: boolean): string {
   return result && inside ? describeStrengthPair(x, y, boundingFactor(x, y), result) : '';
+}
+
+/** A chosen file read as a CSV table, or the reason it cannot be used (named after the file). */
+export type ChosenFile = { readonly table: CsvTable; readonly problem: '' } | { readonly table: null; readonly problem: string };
+
+/** Reads the file the user chose on the page (its rows stay in the browser and are never saved). */
+export async function readChosenFile(file: { readonly name: string; text(): Promise<string> }): Promise<ChosenFile> {
+  try {
+    return { table: readCsvText(await file.text(), 'file'), problem: '' };
+  } catch (error) {
+    if (!(error instanceof InputError)) throw error;
+    return { table: null, problem: `${file.name}: ${error.problems.map((p) => p.message).join('; ')}` };
+  }
 }
