@@ -146,7 +146,9 @@ describe('lurk evalue: bad input exits 2 with one line naming the field', () => 
   });
 
   it('text where a number belongs', async () => {
-    expect(await errorLine(['--measure', 'rr', '--estimate', 'two'])).toBe('lurk evalue: --estimate: must be a finite number, got "two"');
+    // The one number reader's message (the same as on the page).
+    expect(await errorLine(['--measure', 'rr', '--estimate', 'two'])).toBe('lurk evalue: --estimate: must be a number, got "two"');
+    expect(await errorLine(['--measure', 'rr', '--estimate', '1,200'])).toMatch(/^lurk evalue: --estimate: "1,200" could be 1\.2 \(decimal comma\) or 1200/);
   });
 
   it('a missing SD, a missing prevalence, a missing measure', async () => {
@@ -159,7 +161,13 @@ describe('lurk evalue: bad input exits 2 with one line naming the field', () => 
     expect(await errorLine(['--counts', '-1,2,3,4'])).toBe('lurk evalue: --counts: count a (exposed, had the outcome) must be a whole number of people, 0 or more');
     expect(await errorLine(['--counts', '1,2.5,3,4'])).toMatch(/^lurk evalue: --counts: count b \(exposed, no outcome\) must be a whole number/);
     expect(await errorLine(['--counts', '1,2,3'])).toMatch(/^lurk evalue: --counts: needs four counts/);
-    expect(await errorLine(['--counts', '1,x,3,4'])).toMatch(/^lurk evalue: --counts: item 2 must be a finite number/);
+    // Each count is read by the one number reader as a whole number, and the message names the cell.
+    expect(await errorLine(['--counts', '1,x,3,4'])).toBe('lurk evalue: --counts: count b (exposed, no outcome) must be a number, got "x"');
+  });
+
+  it('counts may carry thousands separators when separated by ";" or spaces', async () => {
+    const json = await lurkJson(['--counts', '1,200; 8,800; 600; 9,400']);
+    expect(json.table.counts).toEqual({ a: 1200, b: 8800, c: 600, d: 9400 });
   });
 
   it('an empty CSV, an unknown column, a missing file', async () => {
@@ -210,6 +218,6 @@ describe('the built command', () => {
     expect(JSON.parse(stdout).eValueInterval).toBe(3);
     const failed = await run('node', [join(outDir, 'lurk.js'), 'evalue', '--measure', 'rr', '--estimate', 'x']).catch((e) => e);
     expect(failed.code).toBe(2);
-    expect(failed.stderr).toBe('lurk evalue: --estimate: must be a finite number, got "x"\n');
+    expect(failed.stderr).toBe('lurk evalue: --estimate: must be a number, got "x"\n');
   });
 });

@@ -4,11 +4,12 @@ import { InputError, inputProblem } from '../../core/inputProblem';
 import type { InputProblem } from '../../core/inputProblem';
 import { assessReferenceConfounder, validateReferenceConfounder } from '../../core/referenceConfounder';
 import type { ReferenceConfounderAssessment } from '../../core/referenceConfounder';
-import { EFFECT_MEASURES } from '../../core/riskRatioScale';
+import { EFFECT_MEASURES, OUTCOME_PREVALENCES } from '../../core/riskRatioScale';
 import type { EffectMeasure, OutcomePrevalence } from '../../core/riskRatioScale';
 import type { TwoByTwoMeasure } from '../../core/twoByTwo';
 import type { CsvTable } from '../../data/csv';
-import { parseTypedNumber } from '../../data/numberText';
+import type { NumberKind } from '../../data/numberText';
+import { fieldReader } from '../fieldReader';
 import { twoByTwoFromCsv } from './twoByTwoFromCsv';
 import type { TwoByTwoFromCsv } from './twoByTwoFromCsv';
 
@@ -84,20 +85,23 @@ export function normaliseEValueForm(saved: unknown): EValueFormInputs {
   const base = emptyEValueForm();
   if (saved === null || typeof saved !== 'object') return base;
   const s = saved as Record<string, unknown>;
-  const text = (key: keyof EValueFormInputs) => (typeof s[key] === 'string' ? (s[key] as string) : (base[key] as string));
-  const pick = <T extends string>(key: keyof EValueFormInputs, choices: readonly T[]) =>
-    choices.includes(s[key] as T) ? (s[key] as T) : (base[key] as T);
-  const strings = (value: unknown) => (Array.isArray(value) ? value.filter((v): v is string => typeof v === 'string') : []);
+  const asText = (value: unknown): string | null => (typeof value === 'string' ? value : typeof value === 'number' && Number.isFinite(value) ? String(value) : null);
+  const text = (key: keyof EValueFormInputs) => asText(s[key]) ?? (base[key] as string);
+  const pick = <T extends string>(key: keyof EValueFormInputs, choices: readonly T[]) => {
+    const wanted = typeof s[key] === 'string' ? (s[key] as string).trim().toLowerCase() : null;
+    return choices.find((c) => c === wanted) ?? (base[key] as T);
+  };
+  const strings = (value: unknown) => (Array.isArray(value) ? value.map(asText).filter((v): v is string => v !== null) : []);
   const counts = (s.counts ?? {}) as Record<string, unknown>;
-  const countText = (cell: string) => (typeof counts[cell] === 'string' ? (counts[cell] as string) : '');
+  const countText = (cell: string) => asText(counts[cell]) ?? '';
   const confounders = Array.isArray(s.confounders)
     ? s.confounders
         .filter((c): c is Record<string, unknown> => c !== null && typeof c === 'object')
         .map((c) =>
           Object.freeze({
             name: typeof c.name === 'string' ? c.name : '',
-            rrExposure: typeof c.rrExposure === 'string' ? c.rrExposure : '',
-            rrOutcome: typeof c.rrOutcome === 'string' ? c.rrOutcome : '',
+            rrExposure: asText(c.rrExposure) ?? '',
+            rrOutcome: asText(c.rrOutcome) ?? '',
           }),
         )
     : [];
@@ -139,32 +143,30 @@ export interface EValueFormOutcome {
 }
 
 /**
- * Reads the form's text (numbers with a decimal point or comma; the level as "95" or "0.95"), checks it with
- * the core's validation, and runs the analysis when there is no problem. Text that is not a number is named
- * by field with what was typed; nothing is thrown.
+ * Reads the form's text with the one field reader (numbers with a decimal point or an unambiguous decimal comma;
+ * counts as whole numbers, thousands separators allowed; the level as "95", "95%" or "0.95"; choices without
+ * regard to case), checks it with the core's validation, and runs the analysis when there is no problem. Text
+ * that is not a number is named by field with what was typed; nothing is thrown. The page, the command line and
+ * saved forms all come through here, so the same text gives the same value or the same message everywhere.
  *
- * @param form the form as typed
+ * @param form the form as typed (a choice typed in another case, "RR", is accepted)
  * @param table the CSV read from the chosen file (file source only), or null when none is loaded
  */
 export function evaluateEValueForm(form: EValueFormInputs, table: CsvTable | null): EValueFormOutcome {
-  const problems: InputProblem[] = [];
-  const number = (field: string, text: string): number | null => {
-    if (text.trim() === '') return null;
-    const value = parseTypedNumber(text);
-    if (Number.isNaN(value)) problems.push(inputProblem(field, 'not-a-number', `must be a number, got "${text.trim()}"`, text));
-    return value;
-  };
-  const level = parseLevel(number('level', form.level));
+  const reader = fieldReader();
+  const problems = reader.problems;
+  const number = (field: string, text: string, kind: NumberKind = 'decimal'): number | null => reader.number(field, text, kind);
+  const level = number('level', form.level, 'level');
   const target = number('target', form.target);
-  const prevalence = form.outcomePrevalence === '' ? null : form.outcomePrevalence;
+  const prevalence = reader.choice('outcomePrevalence', form.outcomePrevalence, OUTCOME_PREVALENCES);
   let result: EValueResult | null = null;
   let csv: TwoByTwoFromCsv | null = null;
   let started: boolean;
 
   const run = (validate: () => InputProblem[], analyse: () => EValueResult) => {
-    // Fields that failed to parse are already reported; the rules are checked on the rest.
-    const parsed = new Set(problems.map((p) => p.field));
-    const ruleProblems = validate().filter((p) => !parsed.has(p.field));
+    // Fields that failed to be read are already reported; the rules are checked on the rest.
+    const read = new Set(problems.map((p) => p.field));
+    const ruleProblems = validate().filter((p) => !read.has(p.field));
     problems.push(...ruleProblems);
     if (problems.length === 0) {
       try {
@@ -177,32 +179,41 @@ export function evaluateEValueForm(form: EValueFormInputs, table: CsvTable | nul
   };
 
   if (form.source === 'reported') {
-    started = form.estimate.trim() !== '';
+    started = String(form.estimate).trim() !== '';
+    const measure = reader.choice('measure', form.measure, EFFECT_MEASURES);
     const limits = form.intervalBy === 'limits';
+    const estimate = number('estimate', form.estimate);
+    if (measure === null) {
+      if (!started) problems.unshift(inputProblem('estimate', 'required', 'is required'));
+      if (!reader.has('measure')) problems.push(inputProblem('measure', 'required', `is required: one of ${EFFECT_MEASURES.join(', ')}`));
+    }
     const input: EValueInput = {
-      measure: form.measure,
-      estimate: number('estimate', form.estimate) as number,
+      measure: measure ?? 'rr',
+      estimate: estimate as number,
       lower: limits ? number('lower', form.lower) : null,
       upper: limits ? number('upper', form.upper) : null,
       se: limits ? null : number('se', form.se),
       level,
-      outcomePrevalence: form.measure === 'or' || form.measure === 'hr' ? prevalence : null,
-      sd: form.measure === 'md' ? number('sd', form.sd) : null,
+      outcomePrevalence: measure === 'or' || measure === 'hr' ? prevalence : null,
+      sd: measure === 'md' ? number('sd', form.sd) : null,
       target,
     };
-    run(
-      () => validateEValueInput(input),
-      () => analyseEValue(input),
-    );
+    if (measure !== null) {
+      run(
+        () => validateEValueInput(input),
+        () => analyseEValue(input),
+      );
+    }
   } else {
+    const tableMeasure = reader.choice('tableMeasure', form.tableMeasure, ['rr', 'or'] as const);
     const counts = countsFrom(form, table, number, problems, (c) => (csv = c));
-    started = form.source === 'counts' ? Object.values(form.counts).some((t) => t.trim() !== '') : table !== null;
-    if (counts) {
+    started = form.source === 'counts' ? Object.values(form.counts).some((t) => String(t).trim() !== '') : table !== null;
+    if (counts && tableMeasure !== null) {
       const input: EValueCountsInput = {
         counts,
-        measure: form.tableMeasure,
+        measure: tableMeasure,
         level,
-        outcomePrevalence: form.tableMeasure === 'or' ? prevalence : null,
+        outcomePrevalence: tableMeasure === 'or' ? prevalence : null,
         target,
       };
       run(
@@ -221,8 +232,8 @@ export function evaluateEValueForm(form: EValueFormInputs, table: CsvTable | nul
       rrExposure: number(`${field}.rrExposure`, row.rrExposure) ?? NaN,
       rrOutcome: number(`${field}.rrOutcome`, row.rrOutcome) ?? NaN,
     };
-    const parsed = new Set(problems.slice(before).map((p) => p.field));
-    const rowProblems = validateReferenceConfounder(confounder, field).filter((p) => !parsed.has(p.field));
+    const read = new Set(problems.slice(before).map((p) => p.field));
+    const rowProblems = validateReferenceConfounder(confounder, field).filter((p) => !read.has(p.field));
     problems.push(...rowProblems);
     if (problems.length > before || !finalResult) return null;
     return assessReferenceConfounder(finalResult, confounder);
@@ -230,7 +241,7 @@ export function evaluateEValueForm(form: EValueFormInputs, table: CsvTable | nul
 
   return Object.freeze({
     result: finalResult,
-    problems: Object.freeze(problems),
+    problems: Object.freeze([...problems]),
     started,
     csv,
     confounders: Object.freeze(confounders),
@@ -252,17 +263,23 @@ export function parseLevel(value: number | null): number | null {
 function countsFrom(
   form: EValueFormInputs,
   table: CsvTable | null,
-  number: (field: string, text: string) => number | null,
+  number: (field: string, text: string, kind?: NumberKind) => number | null,
   problems: InputProblem[],
   keepCsv: (csv: TwoByTwoFromCsv) => void,
 ) {
   if (form.source === 'counts') {
     const cells = (['a', 'b', 'c', 'd'] as const).map((cell) => {
-      const value = number(`counts.${cell}`, form.counts[cell]);
-      if (value === null) problems.push(inputProblem(`counts.${cell}`, 'required', 'is required (a count, 0 or more)'));
+      const value = number(`counts.${cell}`, form.counts[cell], 'whole');
+      if (value === null && String(form.counts[cell] ?? '').trim() === '') problems.push(inputProblem(`counts.${cell}`, 'required', 'is required (a count, 0 or more)'));
       return value;
     });
-    if (cells.some((v) => v === null || Number.isNaN(v))) return null;
+    if (cells.some((v) => v === null)) {
+      // The cells that were read are still checked against the rules, so every problem shows at once.
+      const read = new Set(problems.map((p) => p.field));
+      const [a, b, c, d] = cells.map((v) => v ?? NaN);
+      problems.push(...validateEValueCountsInput({ counts: { a, b, c, d }, measure: 'rr' }).filter((p) => p.field.startsWith('counts.') && !read.has(p.field)));
+      return null;
+    }
     const [a, b, c, d] = cells as number[];
     return { a, b, c, d };
   }

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { readCsvText } from '../../../src/data/csv';
 import { emptyEValueForm, evaluateEValueForm, normaliseEValueForm, parseLevel } from '../../../src/methods/evalue/request';
 import type { EValueFormInputs } from '../../../src/methods/evalue/request';
+import type { EValueCountsResult } from '../../../src/core/eValueAnalysis';
 import { expectClose } from '../../support/expectClose';
 
 const form = (changes: Partial<EValueFormInputs>): EValueFormInputs => ({ ...emptyEValueForm(), ...changes });
@@ -58,15 +59,22 @@ describe('evaluateEValueForm', () => {
     const outcome = evaluateEValueForm(form({ source: 'counts', counts: { a: '10', b: '90', c: '5', d: '95' } }), null);
     expectClose(outcome.result?.riskRatioScale.estimate as number, 2, { rel: 1e-15 });
     const bad = evaluateEValueForm(form({ source: 'counts', counts: { a: '-1', b: '2.5', c: 'x', d: '' } }), null);
+    // Counts are read as whole numbers, so "2.5" is refused while reading; the cells that were read are still
+    // checked against the rules ("-1" is not a count).
     expect(fields(bad)).toEqual([
+      ['counts.b', 'not-whole'],
       ['counts.c', 'not-a-number'],
       ['counts.d', 'required'],
+      ['counts.a', 'not-a-count'],
     ]);
     const negative = evaluateEValueForm(form({ source: 'counts', counts: { a: '-1', b: '2.5', c: '3', d: '4' } }), null);
     expect(fields(negative)).toEqual([
+      ['counts.b', 'not-whole'],
       ['counts.a', 'not-a-count'],
-      ['counts.b', 'not-a-count'],
     ]);
+    // Thousands separators are fine in a count.
+    const grouped = evaluateEValueForm(form({ source: 'counts', counts: { a: '1,200', b: '8 800', c: '600', d: '9,400' } }), null);
+    expect((grouped.result as EValueCountsResult | null)?.table.counts).toEqual({ a: 1200, b: 8800, c: 600, d: 9400 });
     expect(negative.started).toBe(true);
   });
 
@@ -115,10 +123,12 @@ describe('normaliseEValueForm', () => {
     const restored = normaliseEValueForm({ estimate: '2', measure: 'weird', counts: { a: 3 }, confounders: [{ name: 'age' }, 5], exposedValues: ['yes', 1] });
     expect(restored.estimate).toBe('2');
     expect(restored.measure).toBe('rr');
-    expect(restored.counts).toEqual({ a: '', b: '', c: '', d: '' });
+    // A number where text was expected is taken as its text.
+    expect(restored.counts).toEqual({ a: '3', b: '', c: '', d: '' });
     expect(restored.confounders).toEqual([{ name: 'age', rrExposure: '', rrOutcome: '' }]);
-    expect(restored.exposedValues).toEqual(['yes']);
+    expect(restored.exposedValues).toEqual(['yes', '1']);
     expect(normaliseEValueForm(null)).toEqual(emptyEValueForm());
+    expect(normaliseEValueForm({ estimate: 3.9, measure: 'OR', outcomePrevalence: 'Rare' })).toMatchObject({ estimate: '3.9', measure: 'or', outcomePrevalence: 'rare' });
   });
 
   it('keeps a full form exactly', () => {

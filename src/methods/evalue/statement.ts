@@ -1,0 +1,83 @@
+import { formatNumber } from '../../format/formatNumber';
+import { exposureLabel, outcomeLabel, type StudyLabels } from '../../format/studyLabels';
+import type { StatementPart } from '../methodModule';
+import type { EValueSummary } from './summary';
+
+/** The works the E-value paragraph cites, in the statement's reference style. */
+export const E_VALUE_STATEMENT_REFERENCES = {
+  evalue: 'VanderWeele TJ, Ding P. Sensitivity analysis in observational research: introducing the E-value. Annals of Internal Medicine. 2017;167(4):268–274.',
+  bounding: 'Ding P, VanderWeele TJ. Sensitivity analysis without assumptions. Epidemiology. 2016;27(3):368–377.',
+  orCommon: 'VanderWeele TJ. On a square-root transformation of the odds ratio for a common outcome. Epidemiology. 2017;28(6):e58–e60.',
+  hrCommon: 'VanderWeele TJ. Optimal approximate conversions of odds ratios and hazard ratios to risk ratios. Biometrics. 2020;76(3):746–752.',
+} as const;
+
+const MEASURE_NAMES: Record<string, string> = {
+  rr: 'risk ratio',
+  or: 'odds ratio',
+  hr: 'hazard ratio',
+  smd: 'standardized mean difference',
+  md: 'mean difference',
+};
+
+/**
+ * The E-value's paragraph of the robustness statement (the numbers, the conversion to the risk-ratio scale, the
+ * reference confounders) and the conventions it relies on; null when the summary has no E-value.
+ */
+export function eValueStatement(e: EValueSummary, study: StudyLabels, cite: (reference: string) => string): StatementPart | null {
+  if (e.eValueEstimate === null) return null;
+  const refs = E_VALUE_STATEMENT_REFERENCES;
+  const exposure = exposureLabel(study);
+  const outcome = outcomeLabel(study);
+  const measure = MEASURE_NAMES[e.measure] ?? e.measure;
+  const unit = e.measure === 'md' && study.units.trim() ? ` ${study.units.trim()}` : '';
+  const interval =
+    e.lower !== null && e.upper !== null && e.level !== null ? `, ${num(e.level * 100)}% confidence interval ${num(e.lower)} to ${num(e.upper)}${unit}` : '';
+  const goal = e.targetIsNull ? 'explain away the observed association' : `shift the estimate to ${num(e.target)}${unit}`;
+  const parts = [
+    `We assessed the sensitivity of the association between ${exposure} and ${outcome} (${measure} ${num(e.estimate)}${unit}${interval}) ` +
+      `to unmeasured confounding with the E-value ${cite(refs.evalue)}, which builds on the bounding factor of Ding and VanderWeele ${cite(refs.bounding)}.`,
+  ];
+  const assumptions = [
+    'The E-value makes no assumption about the number, type or prevalence of unmeasured confounders; it is the minimum joint strength, on the risk-ratio scale, that a confounder would need.',
+  ];
+  if (e.conversion === 'odds-ratio-square-root') {
+    parts.push(`The odds ratio was converted to the risk-ratio scale by its square root because the outcome is common ${cite(refs.orCommon)}.`);
+    assumptions.push('The square root of a common outcome’s odds ratio is an approximate risk ratio.');
+  } else if (e.conversion === 'hazard-ratio-common-outcome') {
+    parts.push(`The hazard ratio was converted to the risk-ratio scale with the approximation for a common outcome ${cite(refs.hrCommon)}.`);
+    assumptions.push('A common outcome’s hazard ratio is put on the risk-ratio scale by an approximation.');
+  } else if (e.conversion === 'standardized-mean-difference' || e.conversion === 'mean-difference-via-sd') {
+    parts.push(`The ${measure} was converted to an approximate risk ratio as exp(0.91·d) ${cite(refs.evalue)}.`);
+    assumptions.push('A standardized mean difference d corresponds approximately to a risk ratio of exp(0.91·d).');
+  } else if (e.conversion === 'odds-ratio-rare-outcome' || e.conversion === 'hazard-ratio-rare-outcome') {
+    parts.push(`Because the outcome is rare, the ${measure} was used as an approximate risk ratio.`);
+    assumptions.push(`For a rare outcome (under about 15%) the ${measure} approximates the risk ratio.`);
+  }
+  parts.push(
+    `The E-value for the point estimate is ${ratio(e.eValueEstimate)}: to ${goal}, an unmeasured confounder would have to be associated with both ` +
+      `${exposure} and ${outcome} by a risk ratio of at least ${ratio(e.eValueEstimate)} each, above and beyond the measured covariates; weaker confounding could not do so.`,
+  );
+  if (e.eValueInterval !== null) {
+    parts.push(
+      e.eValueInterval === 1
+        ? `The confidence interval already includes ${e.targetIsNull ? 'the null' : 'the target value'}, so its E-value is 1.`
+        : `For the confidence limit closest to ${e.targetIsNull ? 'the null' : 'the target'}, the E-value is ${ratio(e.eValueInterval)}.`,
+    );
+  }
+  for (const r of e.references ?? []) {
+    parts.push(
+      `A confounder as strongly related to the exposure and outcome as ${r.name} (risk ratios ${ratio(r.rrExposure)} and ${ratio(r.rrOutcome)}) ` +
+        `${r.explainsEstimate ? 'could' : 'could not'} explain away the estimate${r.explainsInterval === null ? '' : ` and ${r.explainsInterval ? 'could' : 'could not'} move the confidence interval to include the null`}.`,
+    );
+  }
+  return Object.freeze({ paragraph: parts.join(' '), assumptions: Object.freeze(assumptions) });
+}
+
+function num(value: number | null | undefined): string {
+  const text = formatNumber(value, { significant: 3 });
+  return /^-?\d+\.\d+$/.test(text) ? text.replace(/\.?0+$/, '') : text;
+}
+
+function ratio(value: number | null | undefined): string {
+  return formatNumber(value, { digits: 2 });
+}

@@ -1,0 +1,50 @@
+import { describe, expect, it } from 'vitest';
+import { analyseEValue, type EValueInput } from '../../../src/core/eValueAnalysis';
+import { eValueStatement } from '../../../src/methods/evalue/statement';
+import { eValueSummary } from '../../../src/methods/evalue/summary';
+import { createAppraisal } from '../../../src/workspace/appraisal';
+import { buildRobustnessStatement } from '../../../src/workspace/robustnessStatement';
+
+const study = { finding: 'A fictional finding', exposure: 'cycling to work', outcome: 'hypertension', units: '', source: 'invented' };
+
+function statementOf(input: EValueInput) {
+  const references: string[] = [];
+  const cite = (r: string) => {
+    if (!references.includes(r)) references.push(r);
+    return `[${references.indexOf(r) + 1}]`;
+  };
+  return { part: eValueStatement(eValueSummary(analyseEValue(input)), study, cite), references };
+}
+
+describe('eValueStatement', () => {
+  it('states the published example’s E-values with their references', () => {
+    // VanderWeele & Ding 2017, Ann Intern Med 167:268–274: RR 3.9 (1.8 to 8.7) → 7.26 and 3.00
+    const { part, references } = statementOf({ measure: 'rr', estimate: 3.9, lower: 1.8, upper: 8.7 });
+    expect(part?.paragraph).toContain('E-value for the point estimate is 7.26');
+    expect(part?.paragraph).toContain('the E-value is 3.00');
+    expect(references[0]).toMatch(/^VanderWeele TJ, Ding P/);
+    expect(part?.assumptions.length).toBeGreaterThan(0);
+  });
+
+  it('is the workspace’s E-value paragraph, with its closing convention moved to the assumptions', () => {
+    for (const input of [
+      { measure: 'rr', estimate: 3.9, lower: 1.8, upper: 8.7 },
+      { measure: 'or', estimate: 2.5, lower: 1.6, upper: 3.9, outcomePrevalence: 'common' },
+      { measure: 'smd', estimate: 0.5, se: 0.1 },
+    ] as EValueInput[]) {
+      const { part } = statementOf(input);
+      const old = buildRobustnessStatement(createAppraisal(study, { evalue: { inputs: {}, summary: eValueSummary(analyseEValue(input)) } })).paragraphs[0];
+      expect(old).toBe(`${part?.paragraph} ${part?.assumptions[0]}`);
+    }
+  });
+
+  it('names the conversion as an assumption', () => {
+    const { part } = statementOf({ measure: 'or', estimate: 2.5, outcomePrevalence: 'common' });
+    expect(part?.assumptions.join(' ')).toMatch(/square root/);
+  });
+
+  it('is null without an E-value', () => {
+    const summary = { ...eValueSummary(analyseEValue({ measure: 'rr', estimate: 2 })), eValueEstimate: null };
+    expect(eValueStatement(summary, study, () => '[1]')).toBeNull();
+  });
+});
