@@ -246,7 +246,12 @@ function confoundersFromOption(value: string | boolean | undefined): EValueFormI
 /** The E-value: the method module that the page, the command line and the workspace use. */
 export const evalueMethod: MethodModule<EValueFormInputs, EValueFormOutcome, EValueSummary> = {
   id: 'evalue',
-  title: 'E-value',
+  title: 'Reported estimate',
+  view: {
+    element: 'lurk-evalue',
+    heading: 'E-value: from a reported estimate or a 2×2 table',
+    intro: 'How strongly would a hidden confounder have to be associated with both the exposure and the outcome to explain the finding away?',
+  },
   form: {
     empty: emptyEValueForm,
     normalise: normaliseEValueForm,
@@ -265,6 +270,7 @@ export const evalueMethod: MethodModule<EValueFormInputs, EValueFormOutcome, EVa
     summarise: summariseEValue,
     readSummary: readEValueSummary,
     needsData: (form) => form.source === 'file',
+    summaryFromForm: (form) => summariseEValue(evaluateEValueForm(form, null)),
     statement: eValueStatement,
     bottomLine: eValueBottomLine,
   },
