@@ -330,7 +330,7 @@ function readSettings(form: OvbFormInputs, reader: FieldReader): Pick<OvbInput, 
   const r2dz = opt(reader.number('r2dz', form.r2dz, 'fraction'));
   const r2yz = opt(reader.number('r2yz', form.r2yz, 'fraction'));
   if ((r2dz === undefined) !== (r2yz === undefined) && !problems.some((p) => p.field === 'r2dz' || p.field === 'r2yz')) {
-    problems.push(inputProblem(r2dz === undefined ? 'r2dz' : 'r2yz', 'required', 'give both partial R² values to evaluate a confounder.'));
+    problems.push(inputProblem(r2dz === undefined ? 'r2dz' : 'r2yz', 'required', 'is needed too: give both partial R² values to evaluate a confounder.'));
   }
   return {
     ...(q !== undefined ? { q } : {}),
