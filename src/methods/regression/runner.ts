@@ -59,3 +59,10 @@ export function ovbPointReadout(result: OvbResult, r2dz: number, r2yz: number): 
     significant: 3,
   })}, SE ${formatNumber(a.se, { significant: 3 })}, t ${formatNumber(a.t, { digits: 2 })}`;
 }
+
+/** Why fitting a file failed, in words for the page (cancelled, a problem in the file, or another error). */
+export function fitFailureMessage(error: unknown): string {
+  if (error instanceof DOMException && error.name === 'AbortError') return 'Reading was cancelled.';
+  if (error instanceof InputError) return error.problems.map((p) => p.message).join(' ');
+  return error instanceof Error ? error.message : String(error);
+}
