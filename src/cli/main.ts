@@ -7,7 +7,7 @@ import { methodCommand } from './methodCommand';
 const commands: Record<string, () => Promise<LurkCommand>> = {
   evalue: () => import('../methods/evalue/method').then((m) => methodCommand(m.evalueMethod)),
   pairs: () => import('./commands/pairs').then((m) => m.command),
-  ovb: () => import('./commands/ovb').then((m) => m.command),
+  ovb: () => import('../methods/regression/method').then((m) => methodCommand(m.regressionMethod)),
   batch: () => import('./commands/batch').then((m) => m.command),
   report: () => import('./commands/report').then((m) => m.command),
 };

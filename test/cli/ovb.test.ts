@@ -141,8 +141,8 @@ describe('lurk ovb', () => {
     const cases: [string[], RegExp][] = [
       [['--estimate', '1', '--se', '1', '--df', '1'], /^lurk ovb: --df: must be greater than 1/],
       [['--estimate', '1', '--se', '0', '--df', '10'], /^lurk ovb: --se: /],
-      [['--estimate', 'abc', '--se', '1', '--df', '10'], /^lurk ovb: --estimate: must be a finite number/],
-      [['--se', '1', '--df', '10'], /^lurk ovb: --estimate: is needed/],
+      [['--estimate', 'abc', '--se', '1', '--df', '10'], /^lurk ovb: --estimate: must be a number, got "abc"/],
+      [['--se', '1', '--df', '10'], /^lurk ovb: --estimate: is required/],
       [['--estimate', '1', '--se', '1', '--df', '10', '--r2dz', '1', '--r2yz', '0.1'], /^lurk ovb: --r2dz: must be a partial R² in \[0, 1\)/],
       [['--estimate', '1', '--se', '1', '--df', '10', '--r2yz', '0.1'], /^lurk ovb: --r2dz: is needed/],
       [['--estimate', '1', '--se', '1', '--df', '10', '--k', '1,-1'], /^lurk ovb: --k: must be greater than 0/],

@@ -4,7 +4,7 @@ import { designFromCrossProducts } from '../../core/crossProductFit';
 import { INTERCEPT_NAME, type TriangularDesign } from '../../core/linearModel';
 import type { BiasDirection } from '../../core/confounderAdjustment';
 import { InputError, inputProblem, type InputProblem } from '../../core/inputProblem';
-import { parseTypedNumber } from '../../data/numberText';
+import { fieldReader, type FieldReader } from '../fieldReader';
 import { readCsvText } from '../../data/csv';
 import { crossProductsFromSqlRow, summaryStatisticsSql } from './summaryStatisticsSql';
 import { parseBenchmarkList } from './ovbRegressionData';
@@ -21,6 +21,18 @@ export interface CovariateTText {
   readonly treatmentT: string;
 }
 
+/** A covariate's partial R²s (fractions or percentages), as typed: with the outcome and, if known, with the treatment. */
+export interface CovariateR2Text {
+  readonly name: string;
+  /** Its partial R² with the outcome (given the treatment and the other covariates). */
+  readonly outcomeR2: string;
+  /** Its partial R² with the treatment (given the other covariates); may be empty. */
+  readonly treatmentR2: string;
+}
+
+/** Which way the omitted confounder is taken to move the estimate. */
+export const DIRECTIONS: readonly BiasDirection[] = ['toward-zero', 'away-from-zero'];
+
 /**
  * Everything the regression form holds, as typed (text, never parsed numbers), so nothing is lost and the form
  * can be saved and restored. A CSV's rows are never part of it: only its name and the column choices.
@@ -35,6 +47,8 @@ export interface OvbFormInputs {
   readonly n: string;
   readonly parameters: string;
   readonly covariateTs: readonly CovariateTText[];
+  /** Covariates given by their partial R²s instead of t-statistics (the command line's --covariate-r2). */
+  readonly covariateR2s?: readonly CovariateR2Text[];
   readonly fileName: string;
   readonly outcome: string;
   readonly treatment: string;
@@ -51,7 +65,8 @@ export interface OvbFormInputs {
   readonly k: string;
   readonly q: string;
   readonly alpha: string;
-  readonly direction: BiasDirection;
+  /** toward-zero or away-from-zero, as typed (read without regard to case). */
+  readonly direction: string;
   /** A confounder strength to evaluate, as percentages or fractions. */
   readonly r2dz: string;
   readonly r2yz: string;
@@ -93,13 +108,20 @@ export function normaliseOvbForm(saved: unknown): OvbFormInputs {
   const base = emptyOvbForm();
   if (!saved || typeof saved !== 'object') return base;
   const s = saved as Record<string, unknown>;
-  const text = (key: keyof OvbFormInputs): string => (typeof s[key] === 'string' ? (s[key] as string) : (base[key] as string));
+  const asText = (value: unknown, fallback = ''): string => (typeof value === 'string' ? value : typeof value === 'number' && Number.isFinite(value) ? String(value) : fallback);
+  const text = (key: keyof OvbFormInputs): string => asText(s[key], base[key] as string);
   const strings = (value: unknown): string[] => (Array.isArray(value) ? value.filter((v): v is string => typeof v === 'string') : []);
   const covariateTs = Array.isArray(s.covariateTs)
     ? s.covariateTs
         .filter((c): c is Record<string, unknown> => !!c && typeof c === 'object')
-        .map((c) => Object.freeze({ name: String(c.name ?? ''), outcomeT: String(c.outcomeT ?? ''), treatmentT: String(c.treatmentT ?? '') }))
+        .map((c) => Object.freeze({ name: asText(c.name), outcomeT: asText(c.outcomeT), treatmentT: asText(c.treatmentT) }))
     : [];
+  const covariateR2s = Array.isArray(s.covariateR2s)
+    ? s.covariateR2s
+        .filter((c): c is Record<string, unknown> => !!c && typeof c === 'object')
+        .map((c) => Object.freeze({ name: asText(c.name), outcomeR2: asText(c.outcomeR2), treatmentR2: asText(c.treatmentR2) }))
+    : [];
+  const direction = typeof s.direction === 'string' ? DIRECTIONS.find((d) => d === (s.direction as string).trim().toLowerCase()) : undefined;
   return Object.freeze({
     source: s.source === 'file' || s.source === 'summary' ? s.source : 'reported',
     estimate: text('estimate'),
@@ -109,6 +131,7 @@ export function normaliseOvbForm(saved: unknown): OvbFormInputs {
     n: text('n'),
     parameters: text('parameters'),
     covariateTs: Object.freeze(covariateTs),
+    ...(covariateR2s.length > 0 ? { covariateR2s: Object.freeze(covariateR2s) } : {}),
     fileName: text('fileName'),
     outcome: text('outcome'),
     treatment: text('treatment'),
@@ -121,7 +144,7 @@ export function normaliseOvbForm(saved: unknown): OvbFormInputs {
     k: text('k'),
     q: text('q'),
     alpha: text('alpha'),
-    direction: s.direction === 'away-from-zero' ? 'away-from-zero' : 'toward-zero',
+    direction: direction ?? 'toward-zero',
     r2dz: text('r2dz'),
     r2yz: text('r2yz'),
     plotMax: text('plotMax'),
@@ -147,28 +170,37 @@ export interface OvbFormOutcome {
  * benchmarks, summaryTable, summaryColumns, summaryResult.
  */
 export function evaluateOvbForm(form: OvbFormInputs, fileData: FileRegression | null): OvbFormOutcome {
-  const problems: InputProblem[] = [];
-  const settings = readSettings(form, problems);
+  const reader = fieldReader();
+  const problems = reader.problems;
+  const settings = readSettings(form, reader);
   let regression: OvbRegressionSummary | null = null;
   let base: Pick<OvbInput, 'estimate' | 'se' | 'df' | 'n' | 'parameters' | 'benchmarks'> | null = null;
   let started = true;
   let rowOfBenchmark: number[] = [];
   if (form.source === 'reported') {
     started = form.estimate.trim() !== '' || form.se.trim() !== '';
-    const estimate = readNumber(form.estimate, 'estimate', problems, true);
-    const se = readNumber(form.se, 'se', problems, true);
-    const df = form.dfBy === 'df' ? readNumber(form.df, 'df', problems, true) : undefined;
-    const n = form.dfBy === 'n' ? readNumber(form.n, 'n', problems, true) : undefined;
-    const parameters = form.dfBy === 'n' ? readNumber(form.parameters, 'parameters', problems, true) : undefined;
+    const estimate = opt(reader.required('estimate', form.estimate, 'decimal', 'the coefficient of the treatment'));
+    const se = opt(reader.required('se', form.se, 'decimal', 'its standard error'));
+    const df = form.dfBy === 'df' ? opt(reader.required('df', form.df, 'whole', 'the residual degrees of freedom')) : undefined;
+    const n = form.dfBy === 'n' ? opt(reader.required('n', form.n, 'whole', 'the number of observations')) : undefined;
+    const parameters = form.dfBy === 'n' ? opt(reader.required('parameters', form.parameters, 'whole', 'the number of coefficients')) : undefined;
     const benchmarks: OvbBenchmarkInput[] = [];
     rowOfBenchmark = [];
     form.covariateTs.forEach((c, i) => {
       if (c.name.trim() === '' && c.outcomeT.trim() === '' && c.treatmentT.trim() === '') return;
-      const outcomeT = readNumber(c.outcomeT, `covariateTs[${i}].outcomeT`, problems, true);
-      const treatmentT = readNumber(c.treatmentT, `covariateTs[${i}].treatmentT`, problems, false);
+      const outcomeT = opt(reader.required(`covariateTs[${i}].outcomeT`, c.outcomeT, 'decimal', 'its t in the outcome regression'));
+      const treatmentT = opt(reader.number(`covariateTs[${i}].treatmentT`, c.treatmentT, 'decimal'));
       if (c.name.trim() === '') problems.push(inputProblem(`covariateTs[${i}].name`, 'required', 'needs a name.'));
       if (outcomeT !== undefined) rowOfBenchmark.push(i);
       if (outcomeT !== undefined) benchmarks.push({ covariate: c.name.trim() || `covariate ${i + 1}`, outcomeT, ...(treatmentT !== undefined ? { treatmentT } : {}) });
+    });
+    (form.covariateR2s ?? []).forEach((c, i) => {
+      if (c.name.trim() === '' && c.outcomeR2.trim() === '' && c.treatmentR2.trim() === '') return;
+      const r2yxj = opt(reader.required(`covariateR2s[${i}].outcomeR2`, c.outcomeR2, 'fraction', 'its partial R² with the outcome'));
+      const r2dxj = opt(reader.number(`covariateR2s[${i}].treatmentR2`, c.treatmentR2, 'fraction'));
+      if (c.name.trim() === '') problems.push(inputProblem(`covariateR2s[${i}].name`, 'required', 'needs a name.'));
+      if (r2yxj !== undefined) rowOfBenchmark.push(R2_ROW + i);
+      if (r2yxj !== undefined) benchmarks.push({ covariate: c.name.trim() || `covariate ${i + 1}`, r2yxj, ...(r2dxj !== undefined ? { r2dxj } : {}) });
     });
     if (estimate !== undefined && se !== undefined) base = { estimate, se, ...(df !== undefined ? { df } : {}), ...(n !== undefined ? { n } : {}), ...(parameters !== undefined ? { parameters } : {}), benchmarks };
   } else if (form.source === 'file') {
@@ -200,7 +232,7 @@ export function evaluateOvbForm(form: OvbFormInputs, fileData: FileRegression | 
     problems.push(...analysisProblems);
     if (analysisProblems.length === 0) result = analyseOvb(input);
   }
-  const plotMax = readFraction(form.plotMax, 'plotMax', problems, false);
+  const plotMax = opt(reader.number('plotMax', form.plotMax, 'fraction'));
   if (plotMax !== undefined && !(plotMax > 0 && plotMax < 1)) problems.push(inputProblem('plotMax', 'outside-interval', 'must be above 0 and below 100%.', form.plotMax));
   return { result, problems, started, regression, plotMax };
 }
@@ -288,54 +320,34 @@ function benchmarkGroups(form: OvbFormInputs) {
   return groups ? { benchmarks: groups } : {};
 }
 
-function readSettings(form: OvbFormInputs, problems: InputProblem[]): Pick<OvbInput, 'q' | 'alpha' | 'direction' | 'k' | 'scenario'> {
-  const q = readNumber(form.q, 'q', problems, false);
-  const alpha = readNumber(form.alpha, 'alpha', problems, false);
-  const k: number[] = [];
+function readSettings(form: OvbFormInputs, reader: FieldReader): Pick<OvbInput, 'q' | 'alpha' | 'direction' | 'k' | 'scenario'> {
+  const problems = reader.problems;
+  const q = opt(reader.number('q', form.q, 'fraction'));
+  const alpha = opt(reader.number('alpha', form.alpha, 'fraction'));
+  const direction = reader.choice('direction', form.direction, DIRECTIONS) ?? 'toward-zero';
   const kText = form.k.trim();
-  if (kText !== '') {
-    kText.split(/[;,\s]+/).filter((s) => s !== '').forEach((part) => {
-      const v = parseTypedNumber(part);
-      if (Number.isNaN(v)) problems.push(inputProblem('k', 'not-a-number', `"${part}" is not a number; write multiples like 1, 2, 3.`, part));
-      else k.push(v);
-    });
-  }
-  const r2dz = readFraction(form.r2dz, 'r2dz', problems, false);
-  const r2yz = readFraction(form.r2yz, 'r2yz', problems, false);
+  const k = reader.numberList('k', kText, 'decimal') ?? [];
+  const r2dz = opt(reader.number('r2dz', form.r2dz, 'fraction'));
+  const r2yz = opt(reader.number('r2yz', form.r2yz, 'fraction'));
   if ((r2dz === undefined) !== (r2yz === undefined) && !problems.some((p) => p.field === 'r2dz' || p.field === 'r2yz')) {
-    problems.push(inputProblem(r2dz === undefined ? 'r2dz' : 'r2yz', 'required', 'give both partial R² values to evaluate a confounder.'));
+    problems.push(inputProblem(r2dz === undefined ? 'r2dz' : 'r2yz', 'required', 'is needed too: give both partial R² values to evaluate a confounder.'));
   }
   return {
     ...(q !== undefined ? { q } : {}),
     ...(alpha !== undefined ? { alpha } : {}),
-    direction: form.direction,
+    direction,
     ...(kText !== '' ? { k } : {}),
     ...(r2dz !== undefined && r2yz !== undefined ? { scenario: { r2dz, r2yz } } : {}),
   };
 }
 
-function readNumber(text: string, field: string, problems: InputProblem[], required: boolean): number | undefined {
-  if (text.trim() === '') {
-    if (required) problems.push(inputProblem(field, 'required', 'is needed.'));
-    return undefined;
-  }
-  const v = parseTypedNumber(text);
-  if (Number.isNaN(v)) {
-    problems.push(inputProblem(field, 'not-a-number', `"${text.trim()}" is not a number (e.g. 0.42 or 0,42).`, text));
-    return undefined;
-  }
-  return v;
+/** A reader's value as an optional one (undefined when empty or bad). */
+function opt(value: number | null): number | undefined {
+  return value === null ? undefined : value;
 }
 
-/** A partial R² typed as a percentage ("13.9%") or a fraction ("0.139"). */
-function readFraction(text: string, field: string, problems: InputProblem[], required: boolean): number | undefined {
-  const trimmed = text.trim();
-  if (trimmed.endsWith('%')) {
-    const v = readNumber(trimmed.slice(0, -1), field, problems, true);
-    return v === undefined ? undefined : v / 100;
-  }
-  return readNumber(trimmed, field, problems, required);
-}
+/** Benchmarks from covariateR2s are numbered from here in the map of benchmarks to form rows. */
+const R2_ROW = 1_000_000;
 
 /** The analysis' fields as the form's fields (benchmarks[i].outcomeT → covariateTs[i].outcomeT; scenario.r2dz → r2dz). */
 function toFormField(p: InputProblem, rowOfBenchmark: readonly number[]): InputProblem {
@@ -344,7 +356,11 @@ function toFormField(p: InputProblem, rowOfBenchmark: readonly number[]): InputP
   else if (/^k\[\d+\]$/.test(field)) field = 'k';
   else {
     const m = /^benchmarks\[(\d+)\]\.(\w+)$/.exec(field);
-    if (m) field = `covariateTs[${rowOfBenchmark[Number(m[1])] ?? m[1]}].${m[2] === 'covariate' ? 'name' : m[2]}`;
+    if (m) {
+      const row = rowOfBenchmark[Number(m[1])] ?? Number(m[1]);
+      const name = m[2] === 'covariate' ? 'name' : m[2];
+      field = row >= R2_ROW ? `covariateR2s[${row - R2_ROW}].${name === 'r2yxj' ? 'outcomeR2' : name === 'r2dxj' ? 'treatmentR2' : name}` : `covariateTs[${row}].${name}`;
+    }
   }
   return field === p.field ? p : { ...p, field };
 }

@@ -1,0 +1,88 @@
+import { InputError, inputProblem } from '../../core/inputProblem';
+import { fieldReader } from '../fieldReader';
+import type { CommandContext, CommandReport, FileSource, MethodModule, OptionValues } from '../methodModule';
+import { ovbBottomLine } from './bottomLine';
+import { fitFileStream, type FittedFile } from './fileFit';
+import { OVB_HELP, OVB_OPTIONS, ovbFormFromOptions, ovbOptionOf } from './options';
+import { ovbCommandReport, ovbSqlReport, ovbSvgReport, type OvbDataOrigin } from './report';
+import { emptyOvbForm, evaluateOvbForm, normaliseOvbForm, ovbSummarySql, type OvbFormInputs, type OvbFormOutcome } from './request';
+import { ovbStatement } from './statement';
+import { ovbSummary, readOvbSummary, type OvbSummary } from './summary';
+
+const PLOTS = ['estimate', 't', 'extreme'] as const;
+
+/** The regression (omitted-variable bias in partial R²) method: form, command `lurk ovb` and workspace part. */
+export const regressionMethod: MethodModule<OvbFormInputs, OvbFormOutcome, OvbSummary> = {
+  id: 'regression',
+  title: 'Regression',
+  form: {
+    empty: emptyOvbForm,
+    normalise: normaliseOvbForm,
+    rawDataFields: [],
+  },
+  command: {
+    name: 'ovb',
+    summary: 'omitted-variable bias of a regression estimate: robustness values, bounds from covariates',
+    help: OVB_HELP,
+    options: OVB_OPTIONS,
+    formFromOptions: ovbFormFromOptions,
+    optionOf: ovbOptionOf,
+    run: runOvbCommand,
+  },
+  workspace: {
+    summarise: (outcome) => (outcome.result ? ovbSummary(outcome.result) : null),
+    readSummary: readOvbSummary,
+    // The rows of a file are never saved: a form that reads a file needs it again (the saved summary stands in).
+    needsData: (form) => form.source === 'file',
+    statement: ovbStatement,
+    bottomLine: ovbBottomLine,
+  },
+};
+
+/** `lurk ovb`: the query for --sql, else the analysis of the form (and its file) as a report or a plot. */
+async function runOvbCommand(form: OvbFormInputs, values: OptionValues, context: CommandContext): Promise<CommandReport> {
+  const reader = fieldReader();
+  const plot = typeof values.svg === 'string' ? reader.choice('--svg', values.svg, PLOTS) : null;
+  if (reader.problems.length > 0) throw new InputError(reader.problems);
+  if (plot && values.json) throw new InputError([inputProblem('--svg', 'usage', 'cannot be combined with --json')]);
+  if (values.sql !== undefined) {
+    const { sql, problem } = ovbSummarySql(form);
+    if (problem) throw new InputError([problem]);
+    return ovbSqlReport(sql, { table: form.summaryTable, outcome: form.outcome, treatment: form.treatment, covariates: covariatesOf(form) });
+  }
+  let fitted: FittedFile | null = null;
+  let read = form;
+  if (form.source === 'file') {
+    const file = context.open(form.fileName);
+    fitted = await readOrRefuse(file, '--file', () => fitFileStream(file.bytes(), form));
+  } else if (form.source === 'summary') {
+    const file = context.open(form.fileName);
+    read = { ...form, summaryResult: await readOrRefuse(file, '--summary', () => file.text()) };
+  }
+  const outcome = evaluateOvbForm(read, fitted?.fileData ?? null);
+  if (outcome.problems.length > 0 || !outcome.result) throw new InputError(outcome.problems);
+  const origin: OvbDataOrigin = fitted
+    ? { kind: 'file', path: form.fileName, data: fitted.data }
+    : form.source === 'summary'
+      ? { kind: 'summary', path: form.fileName, n: outcome.regression?.n ?? 0, outcome: form.outcome, treatment: form.treatment, covariates: covariatesOf(form) }
+      : { kind: 'reported' };
+  return plot ? ovbSvgReport(outcome.result, origin, plot) : ovbCommandReport(outcome.result, origin);
+}
+
+function covariatesOf(form: OvbFormInputs): string[] {
+  return form.summaryColumns.split(',').map((s) => s.trim()).filter((s) => s !== '');
+}
+
+/** Runs a read of a file; a file that cannot be opened is refused naming the option. */
+async function readOrRefuse<T>(file: FileSource, option: string, read: () => Promise<T>): Promise<T> {
+  try {
+    return await read();
+  } catch (error) {
+    if (error instanceof InputError || (error instanceof DOMException && error.name === 'AbortError')) throw error;
+    const code = (error as { code?: string }).code;
+    if (code === 'ENOENT' || code === 'EACCES' || code === 'EISDIR' || option === '--summary') {
+      throw new InputError([inputProblem(option, 'unreadable', `cannot read "${file.name}"`)]);
+    }
+    throw error;
+  }
+}

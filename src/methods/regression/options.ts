@@ -1,0 +1,192 @@
+import { DEFAULT_BENCHMARK_MULTIPLES } from '../../core/ovbAnalysis';
+import { InputError, inputProblem } from '../../core/inputProblem';
+import { NUMBER_READING_RULE } from '../../data/numberText';
+import type { OptionSpec, OptionValues } from '../methodModule';
+import { emptyOvbForm, type CovariateR2Text, type CovariateTText, type OvbFormInputs } from './request';
+
+/** The options of `lurk ovb` (every one fills a form field, except --svg, an output choice). */
+export const OVB_OPTIONS: Readonly<Record<string, OptionSpec>> = {
+  estimate: { type: 'string' },
+  se: { type: 'string' },
+  df: { type: 'string' },
+  n: { type: 'string' },
+  parameters: { type: 'string' },
+  'covariate-t': { type: 'string' },
+  'covariate-r2': { type: 'string' },
+  file: { type: 'string' },
+  summary: { type: 'string' },
+  sql: { type: 'string' },
+  outcome: { type: 'string' },
+  treatment: { type: 'string' },
+  covariates: { type: 'string' },
+  categorical: { type: 'string' },
+  benchmark: { type: 'string' },
+  k: { type: 'string' },
+  q: { type: 'string' },
+  alpha: { type: 'string' },
+  direction: { type: 'string' },
+  r2dz: { type: 'string' },
+  r2yz: { type: 'string' },
+  svg: { type: 'string' },
+};
+
+export const OVB_HELP = `lurk ovb — how strong would an omitted confounder have to be to overturn a regression estimate?
+Omitted-variable bias in partial R² (Cinelli & Hazlett 2020): robustness values, adjusted estimates and bounds
+from measured covariates.
+
+From reported numbers:
+  lurk ovb --estimate E --se S --df N [--covariate-t NAME=T_OUTCOME[:T_TREATMENT],...]
+  lurk ovb --estimate E --se S --n N --parameters P         (df = n − number of coefficients)
+From raw data (a CSV; read in chunks, so the file may be larger than memory):
+  lurk ovb --file F --outcome COL --treatment COL [--covariates a,b,...] [--categorical c,...]
+From summary statistics computed in your own database:
+  lurk ovb --sql TABLE --outcome COL --treatment COL --covariates a,b,...   prints the query to run
+  lurk ovb --summary RESULT --outcome COL --treatment COL --covariates a,b,...
+      RESULT: the query's one result row, as CSV (header and one row) or as a JSON object
+
+Options:
+  --covariates    covariate columns (default: every other column); text columns are dummy-coded
+  --categorical   numeric columns to treat as categories (e.g. a region code)
+  --benchmark     covariates to compare with (default: all), a group as a+b: --benchmark age,income+education
+                  (with reported numbers: a choice among the --covariate-t names)
+  --covariate-t   with reported numbers: a covariate's t in the outcome regression and, if known, in the
+                  regression of the treatment on the covariates (needed for its bounds), e.g. age=2.4:-2.6
+  --covariate-r2  with reported numbers: a covariate's partial R² with the outcome and, if known, with the
+                  treatment (fractions or percentages), e.g. age=0.04:1.2%
+  --k             multiples for the bounds (default ${DEFAULT_BENCHMARK_MULTIPLES.join(',')})
+  --q             fraction of the estimate to explain away (default 1: all of it)
+  --alpha         significance level (default 0.05)
+  --direction     toward-zero (default) or away-from-zero: which way the confounder moves the estimate
+  --r2dz, --r2yz  a confounder strength to evaluate (partial R²s with treatment and outcome, in [0, 1))
+  --json          one JSON object: estimate, se, t, df, partialR2, rv, rvAlpha, benchmarks [{covariate, k,
+                  r2dz, r2yz, correctedEstimate, correctedSe, correctedT, ...}], extremeScenarios, ...
+                  (with --sql: {query, table, outcome, treatment, covariates})
+  --svg PLOT      print a plot as SVG instead of the report: estimate (contours of the adjusted estimate),
+                  t (contours of the adjusted t) or extreme (extreme scenarios); e.g. --svg t > contours.svg
+
+${NUMBER_READING_RULE}
+
+A sensitivity analysis bounds how strong hidden confounding would have to be; it does not prove causation.
+Decisions about health or safety defer to domain experts, local guidance and licensed practice.
+`;
+
+const REPORTED = ['estimate', 'se', 'df', 'n', 'parameters', 'covariate-t', 'covariate-r2'];
+const SOURCES = ['file', 'summary', 'sql'];
+
+function refuse(option: string, message: string): never {
+  throw new InputError([inputProblem(option, 'usage', message)]);
+}
+
+/**
+ * The regression form the options give, as text (numbers are read by the request reader). Mixes the form
+ * cannot express are refused naming the option.
+ */
+export function ovbFormFromOptions(values: OptionValues): OvbFormInputs {
+  const text = (name: string): string | undefined => {
+    const v = values[name];
+    if (v === undefined) return undefined;
+    if (typeof v !== 'string' || v.trim() === '') refuse(`--${name}`, 'needs a value');
+    return v;
+  };
+  const list = (name: string): string[] | undefined => text(name)?.split(',').map((s) => s.trim()).filter((s) => s !== '');
+  const reported = REPORTED.filter((o) => values[o] !== undefined);
+  const sources = SOURCES.filter((o) => values[o] !== undefined);
+  if (sources.length > 1) refuse(`--${sources[1]}`, `cannot be combined with --${sources[0]}`);
+  if (sources.length === 1 && reported.length > 0) refuse(`--${reported[0]}`, `gives reported numbers; it cannot be combined with --${sources[0]}`);
+  if (sources.length === 0) {
+    for (const o of ['outcome', 'treatment', 'covariates', 'categorical']) if (values[o] !== undefined) refuse(`--${o}`, 'needs --file, --summary or --sql (data columns)');
+  }
+  const base = emptyOvbForm();
+  const settings: Partial<OvbFormInputs> = {
+    k: text('k') ?? base.k,
+    q: text('q') ?? base.q,
+    alpha: text('alpha') ?? base.alpha,
+    direction: text('direction') ?? base.direction,
+    r2dz: text('r2dz') ?? '',
+    r2yz: text('r2yz') ?? '',
+  };
+  const source = sources[0];
+  if (source === undefined) {
+    if (values.df !== undefined && (values.n !== undefined || values.parameters !== undefined)) {
+      refuse(values.n !== undefined ? '--n' : '--parameters', 'cannot be combined with --df (give --df, or --n and --parameters)');
+    }
+    const byN = values.n !== undefined || values.parameters !== undefined;
+    let covariateTs = covariateEntries(text('covariate-t'), '--covariate-t', 'NAME=T_OUTCOME or NAME=T_OUTCOME:T_TREATMENT').map(
+      ([name, outcomeT, treatmentT]): CovariateTText => ({ name, outcomeT, treatmentT }),
+    );
+    let covariateR2s = covariateEntries(text('covariate-r2'), '--covariate-r2', 'NAME=R2_OUTCOME or NAME=R2_OUTCOME:R2_TREATMENT').map(
+      ([name, outcomeR2, treatmentR2]): CovariateR2Text => ({ name, outcomeR2, treatmentR2 }),
+    );
+    const chosen = list('benchmark');
+    if (chosen !== undefined) {
+      const known = [...covariateTs, ...covariateR2s].map((c) => c.name);
+      const unknown = chosen.find((name) => !known.includes(name));
+      if (unknown !== undefined) refuse('--benchmark', `"${unknown}" is not among the --covariate-t entries (${known.join(', ') || 'none given'})`);
+      covariateTs = covariateTs.filter((c) => chosen.includes(c.name));
+      covariateR2s = covariateR2s.filter((c) => chosen.includes(c.name));
+    }
+    return Object.freeze({
+      ...base,
+      ...settings,
+      source: 'reported',
+      estimate: text('estimate') ?? '',
+      se: text('se') ?? '',
+      dfBy: byN ? 'n' : 'df',
+      df: text('df') ?? '',
+      n: text('n') ?? '',
+      parameters: text('parameters') ?? '',
+      covariateTs,
+      ...(covariateR2s.length > 0 ? { covariateR2s } : {}),
+    }) as OvbFormInputs;
+  }
+  const option = `--${source}`;
+  const outcome = text('outcome')?.trim();
+  const treatment = text('treatment')?.trim();
+  if (!outcome) refuse('--outcome', `is needed with ${option}`);
+  if (!treatment) refuse('--treatment', `is needed with ${option}`);
+  const covariates = list('covariates');
+  const common = { ...base, ...settings, outcome, treatment, benchmarks: text('benchmark') ?? '' };
+  if (source === 'file') {
+    return Object.freeze({ ...common, source: 'file', fileName: text('file')!, covariates: covariates ?? [], categorical: text('categorical') ?? '' }) as OvbFormInputs;
+  }
+  if (!covariates) refuse('--covariates', `is needed with ${option} (the query has no header to take them from)`);
+  const all = [outcome, treatment, ...covariates];
+  const twice = all.find((c, i) => all.indexOf(c) !== i);
+  if (twice !== undefined) refuse(twice === treatment ? '--treatment' : '--covariates', `"${twice}" is chosen twice`);
+  return Object.freeze({
+    ...common,
+    source: 'summary',
+    summaryTable: source === 'sql' ? text('sql')!.trim() : '',
+    summaryColumns: covariates.join(', '),
+    fileName: source === 'summary' ? text('summary')! : '',
+  }) as OvbFormInputs;
+}
+
+/** NAME=A[:B],... as [name, A, B] text triples (the numbers are read by the request reader). */
+function covariateEntries(value: string | undefined, option: string, shape: string): [string, string, string][] {
+  if (value === undefined) return [];
+  return value.split(',').map((part, i) => {
+    const m = /^\s*([^=]+?)\s*=\s*([^:]+?)\s*(?::\s*(.+?)\s*)?$/.exec(part);
+    if (!m) refuse(option, `item ${i + 1} must look like ${shape}, got "${part}"`);
+    return [m[1], m[2], m[3] ?? ''];
+  });
+}
+
+const FIELD_OPTIONS: [RegExp, string][] = [
+  [/^covariateTs\b/, '--covariate-t'],
+  [/^covariateR2s\b/, '--covariate-r2'],
+  [/^(covariates|summaryColumns)\b/, '--covariates'],
+  [/^categorical\b/, '--categorical'],
+  [/^benchmarks\b/, '--benchmark'],
+  [/^(file|fileName|rowCount)$/, '--file'],
+  [/^summaryResult$/, '--summary'],
+  [/^summaryTable$/, '--sql'],
+  [/^(estimate|se|df|n|parameters|outcome|treatment|k|q|alpha|direction|r2dz|r2yz)$/, ''],
+];
+
+/** The option that holds a form field (`covariateTs[0].outcomeT` → `--covariate-t`), for messages. */
+export function ovbOptionOf(field: string): string {
+  const found = FIELD_OPTIONS.find(([re]) => re.test(field));
+  if (!found) return field;
+  return found[1] || `--${field}`;
+}

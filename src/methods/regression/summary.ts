@@ -1,0 +1,83 @@
+import type { OvbResult } from '../../core/ovbAnalysis';
+
+/** A benchmark bound that is available, as kept in an appraisal file. */
+export interface OvbSummaryBenchmark {
+  covariate: string;
+  k: number | null;
+  r2dz: number | null;
+  r2yz: number | null;
+  correctedEstimate: number | null;
+  correctedT: number | null;
+}
+
+/** Headline numbers of a regression sensitivity analysis, as plain JSON (non-finite numbers become null). */
+export interface OvbSummary {
+  [key: string]: unknown;
+  kind: 'regression';
+  estimate: number | null;
+  se: number | null;
+  t: number | null;
+  df: number | null;
+  q: number | null;
+  alpha: number | null;
+  direction: string;
+  partialR2: number | null;
+  rv: number | null;
+  rvAlpha: number | null;
+  /** Benchmark bounds that are available, k = 1 first. */
+  benchmarks: OvbSummaryBenchmark[];
+}
+
+/** The summary of a result, for the appraisal file, the statement and the bottom line. */
+export function ovbSummary(result: OvbResult): OvbSummary {
+  return {
+    kind: 'regression',
+    estimate: finite(result.estimate),
+    se: finite(result.se),
+    t: finite(result.t),
+    df: finite(result.df),
+    q: finite(result.q),
+    alpha: finite(result.alpha),
+    direction: result.direction,
+    partialR2: finite(result.partialR2),
+    rv: finite(result.rv),
+    rvAlpha: finite(result.rvAlpha),
+    benchmarks: result.benchmarks
+      .filter((b) => b.unavailable === null)
+      .map((b) => ({
+        covariate: b.covariate,
+        k: finite(b.k),
+        r2dz: finite(b.r2dz),
+        r2yz: finite(b.r2yz),
+        correctedEstimate: finite(b.correctedEstimate),
+        correctedT: finite(b.correctedT),
+      })),
+  };
+}
+
+const NUMBER_FIELDS = ['estimate', 'se', 't', 'df', 'q', 'alpha', 'partialR2', 'rv', 'rvAlpha'] as const;
+const BENCHMARK_NUMBERS = ['k', 'r2dz', 'r2yz', 'correctedEstimate', 'correctedT'] as const;
+
+/** A summary read back from a file or link, checked field by field; null when it is not a regression summary. */
+export function readOvbSummary(saved: unknown): OvbSummary | null {
+  if (!saved || typeof saved !== 'object') return null;
+  const s = saved as Record<string, unknown>;
+  if (s.kind !== 'regression') return null;
+  const num = (v: unknown): number | null => (typeof v === 'number' && Number.isFinite(v) ? v : null);
+  const numbers = Object.fromEntries(NUMBER_FIELDS.map((f) => [f, num(s[f])])) as Record<(typeof NUMBER_FIELDS)[number], number | null>;
+  const benchmarks = Array.isArray(s.benchmarks)
+    ? s.benchmarks
+        .filter((b): b is Record<string, unknown> => !!b && typeof b === 'object' && typeof (b as Record<string, unknown>).covariate === 'string')
+        .map((b) => ({ covariate: b.covariate as string, ...(Object.fromEntries(BENCHMARK_NUMBERS.map((f) => [f, num(b[f])])) as Record<(typeof BENCHMARK_NUMBERS)[number], number | null>) }))
+    : [];
+  return {
+    kind: 'regression',
+    ...numbers,
+    direction: s.direction === 'away-from-zero' ? 'away-from-zero' : 'toward-zero',
+    benchmarks,
+  };
+}
+
+function finite(value: number | null | undefined): number | null {
+  return value !== null && value !== undefined && Number.isFinite(value) ? value : null;
+}
