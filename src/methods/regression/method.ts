@@ -15,6 +15,11 @@ const PLOTS = ['estimate', 't', 'extreme'] as const;
 export const regressionMethod: MethodModule<OvbFormInputs, OvbFormOutcome, OvbSummary> = {
   id: 'regression',
   title: 'Regression',
+  view: {
+    element: 'lurk-ovb',
+    heading: 'Omitted-variable bias in a linear regression',
+    intro: 'How much of the residual variance of treatment and outcome would a hidden confounder have to explain to change the conclusion?',
+  },
   form: {
     empty: emptyOvbForm,
     normalise: normaliseOvbForm,
@@ -34,6 +39,10 @@ export const regressionMethod: MethodModule<OvbFormInputs, OvbFormOutcome, OvbSu
     readSummary: readOvbSummary,
     // The rows of a file are never saved: a form that reads a file needs it again (the saved summary stands in).
     needsData: (form) => form.source === 'file',
+    summaryFromForm: (form) => {
+      const outcome = evaluateOvbForm(form, null);
+      return outcome.result ? ovbSummary(outcome.result) : null;
+    },
     statement: ovbStatement,
     bottomLine: ovbBottomLine,
   },
