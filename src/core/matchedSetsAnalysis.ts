@@ -232,6 +232,8 @@ function dataProblems(input: MatchedSetsInput, grouping: MatchedSetsGrouping): I
       ),
     );
   }
+  // Rows whose set or role is unknown would make the set-level checks below misleading.
+  if (problems.length > 0 && (grouping.rowsWithoutSetId.length > 0 || grouping.rowsWithBadTreated.length > 0)) return problems;
   if (grouping.setsWithoutControl.length > 0) {
     const ids = grouping.setsWithoutControl;
     problems.push(

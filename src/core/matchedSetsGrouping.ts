@@ -4,9 +4,9 @@ export interface MatchedSetsLayout {
   readonly sets: number;
   /** Offsets into `values`, length `sets + 1`; set s has `start[s + 1] − start[s]` units (≥ 2). */
   readonly start: Int32Array;
-  /** Outcomes: per set the treated unit first, then its controls in row order. */
+  /** Outcomes: per set the treated unit first, then its controls in ascending order. */
   readonly values: Float64Array;
-  /** The set ids, in order of first appearance in the rows. */
+  /** The set ids, sorted (by UTF-16 code units, as JavaScript's default sort). */
   readonly ids: readonly string[];
 }
 
@@ -30,7 +30,7 @@ export interface MatchedSetsGrouping {
   readonly rowsWithoutSetId: readonly number[];
   /** Row indices whose treated value is not 0 or 1. */
   readonly rowsWithBadTreated: readonly number[];
-  /** Row indices whose outcome is neither missing nor a finite number (text, ±Infinity). */
+  /** Row indices whose outcome is neither missing nor a finite number (text, ±Infinity); counted in their set, without an outcome. */
   readonly rowsWithBadOutcome: readonly number[];
   /** Sets with no row marked as control. */
   readonly setsWithoutControl: readonly string[];
@@ -48,11 +48,11 @@ export interface MatchedSetsGrouping {
  * Groups the rows of a matched-sets study (one treated unit and one or more controls per set) into sets.
  *
  * **Method.** One pass over the rows with a map from set id (as text: 1 and "1" are the same set) to its rows;
- * sets are kept in order of first appearance, each with its treated unit first and its controls in row order,
- * so the layout does not depend on the order of the rows within a set beyond the controls' order (and no
- * statistic computed from it depends on that either). Rows with a missing outcome (null, undefined or NaN) are
+ * then the sets are sorted by id and each set holds its treated unit first and its controls in ascending order,
+ * so the layout — and every sum computed from it, to the last bit — does not depend on the order of the rows. Rows with a missing outcome (null, undefined or NaN) are
  * left out and counted; a set that thereby loses its treated unit or all its controls is left out and named.
- * Rows with a bad set id, treated value or outcome are left out and named by index (validation reports them).
+ * Rows with a bad set id or treated value are left out and named by index; a row with a bad outcome (text,
+ * ±Infinity) is named and counts in its set's structure without an outcome (validation reports all of these).
  *
  * **References.** None (bookkeeping).
  *
@@ -90,10 +90,8 @@ export function groupMatchedSets(rows: MatchedSetsRows): MatchedSetsGrouping {
     }
     const y = rows.outcomes[i];
     const missing = y === null || y === undefined || (typeof y === 'number' && Number.isNaN(y));
-    if (!missing && !(typeof y === 'number' && Number.isFinite(y))) {
-      rowsWithBadOutcome.push(i);
-      continue;
-    }
+    const bad = !missing && !(typeof y === 'number' && Number.isFinite(y));
+    if (bad) rowsWithBadOutcome.push(i);
     const id = String(rawId);
     let set = byId.get(id);
     if (!set) {
@@ -103,8 +101,8 @@ export function groupMatchedSets(rows: MatchedSetsRows): MatchedSetsGrouping {
     }
     if (t === 1) set.treatedRows++;
     else set.controlRows++;
-    if (missing) {
-      missingOutcomes++;
+    if (missing || bad) {
+      if (missing) missingOutcomes++;
       continue;
     }
     if (t === 1) set.treatedValue = y as number;
@@ -118,6 +116,7 @@ export function groupMatchedSets(rows: MatchedSetsRows): MatchedSetsGrouping {
   const droppedMissingControlOutcomes: string[] = [];
   const kept: Pending[] = [];
   let units = 0;
+  order.sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
   for (const set of order) {
     if (set.treatedRows > 1) setsWithSeveralTreated.push(set.id);
     else if (set.treatedRows === 0) setsWithoutTreated.push(set.id);
@@ -125,6 +124,7 @@ export function groupMatchedSets(rows: MatchedSetsRows): MatchedSetsGrouping {
     else if (Number.isNaN(set.treatedValue)) droppedMissingTreatedOutcome.push(set.id);
     else if (set.controls.length === 0) droppedMissingControlOutcomes.push(set.id);
     else {
+      set.controls.sort((a, b) => a - b);
       kept.push(set);
       units += 1 + set.controls.length;
     }
