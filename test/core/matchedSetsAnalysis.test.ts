@@ -360,6 +360,12 @@ describe('validation', () => {
     expect(problems[2].message).toMatch(/2 outcomes are not a finite number \(row 5, 6\)/);
   });
 
+  test('non-numeric outcomes alone give one problem with their count, nothing else', () => {
+    const problems = validateMatchedSets({ ...ok, outcomes: [3, 'n/a' as unknown as number, 4, 2, Infinity] });
+    expect(problems.map((p) => p.code)).toEqual(['not-a-number']);
+    expect(problems[0].message).toMatch(/^2 outcomes are not a finite number \(row 2, 5\)/);
+  });
+
   test('a single set, all outcomes equal, and a zero scale are refused with plain reasons', () => {
     expect(codes({ setIds: ['a', 'a'], treated: [1, 0], outcomes: [1, 2] })).toEqual(['too-few-sets']);
     expect(codes({ ...ok, outcomes: [2, 2, 2, 2, 2] })).toEqual(['all-equal']);
