@@ -471,7 +471,7 @@ export function analyseMatchedSets(input: MatchedSetsInput): MatchedSetsResult {
     const oriented = alternative === 'less' ? mapMatchedSetsOutcomes(layout, (y) => -y) : layout;
     const scale = mStatisticScale(layout);
     const test = matchedSetsMStatistic(oriented, scale, trim);
-    const upperAt = (g: number) => mStatisticUpperP(test.at(0, g));
+    const upperAt = (g: number) => mStatisticUpperP(test.at(0, g, 'upper'));
     const tipping = tippingGamma(upperAt, alpha);
     const gammas = input.gammas ? [...input.gammas] : defaultGammaGrid(tipping);
     // Estimates on the original scale (they do not depend on the alternative).
@@ -510,7 +510,7 @@ export function analyseMatchedSets(input: MatchedSetsInput): MatchedSetsResult {
       counts: Object.freeze({ ...baseCounts, informativeSets: null, uninformativeSets: null }),
       scale,
       trim,
-      statistic: test.at(0, 1).statistic,
+      statistic: test.at(0, 1, 'upper').statistic,
       pValue: tipping.pAtOne,
       rows: Object.freeze(rows),
       estimate,

@@ -55,7 +55,7 @@ export function mEstimateBracket(layout: MatchedSetsLayout, scale: number, trim:
  */
 export function mEstimate(statistic: MatchedSetsMStatistic, bracket: readonly [number, number]): number {
   const root = brentRoot((tau) => {
-    const b = statistic.at(tau, 1);
+    const b = statistic.at(tau, 1, 'upper');
     return b.statistic - b.upperExpectation;
   }, bracket[0], bracket[1]);
   return root ?? (bracket[0] + bracket[1]) / 2;
@@ -88,11 +88,12 @@ export function mEstimateUnderBias(
 ): MEstimateUnderBias {
   const z = upperNormalQuantile(alpha / 2);
   const [a, b] = bracket;
-  const solve = (f: (x: MStatisticBounds) => number): number | null => brentRoot((tau) => f(statistic.at(tau, gamma)), a, b);
-  const estimateLow = solve((x) => x.statistic - x.upperExpectation);
-  const estimateHigh = gamma === 1 ? estimateLow : solve((x) => x.statistic - x.lowerExpectation);
-  const intervalLow = solve((x) => x.statistic - x.upperExpectation - z * Math.sqrt(x.upperVariance));
-  const intervalHigh = solve((x) => x.statistic - x.lowerExpectation + z * Math.sqrt(x.lowerVariance));
+  const solve = (side: 'upper' | 'lower', f: (x: MStatisticBounds) => number): number | null =>
+    brentRoot((tau) => f(statistic.at(tau, gamma, side)), a, b);
+  const estimateLow = solve('upper', (x) => x.statistic - x.upperExpectation);
+  const estimateHigh = gamma === 1 ? estimateLow : solve('lower', (x) => x.statistic - x.lowerExpectation);
+  const intervalLow = solve('upper', (x) => x.statistic - x.upperExpectation - z * Math.sqrt(x.upperVariance));
+  const intervalHigh = solve('lower', (x) => x.statistic - x.lowerExpectation + z * Math.sqrt(x.lowerVariance));
   const mid = (a + b) / 2;
   return Object.freeze({ gamma, estimateLow: estimateLow ?? mid, estimateHigh: estimateHigh ?? mid, intervalLow, intervalHigh });
 }

@@ -22,9 +22,9 @@ export interface MatchedSetsMStatistic {
   readonly trim: number;
   /**
    * T and its bounds with every treated outcome shifted by −`shift` (the hypothesis "the effect is `shift`")
-   * under bias at most `gamma`.
+   * under bias at most `gamma`. `sides` limits the work to one bound (the other's fields are then NaN).
    */
-  at(shift: number, gamma: number): MStatisticBounds;
+  at(shift: number, gamma: number, sides?: 'both' | 'upper' | 'lower'): MStatisticBounds;
 }
 
 /** Two means count as tied when they differ by less than this times c (rounding, not substance). */
@@ -118,7 +118,9 @@ export function matchedSetsMStatistic(layout: MatchedSetsLayout, scale: number, 
   const q = new Float64Array(largest);
   const tie = TIE_TOLERANCE * trim;
 
-  function at(shift: number, gamma: number): MStatisticBounds {
+  function at(shift: number, gamma: number, sides: 'both' | 'upper' | 'lower' = 'both'): MStatisticBounds {
+    const wantUpper = sides !== 'lower';
+    const wantLower = sides !== 'upper';
     let statistic = 0;
     let upperExpectation = 0;
     let upperVariance = 0;
@@ -153,7 +155,7 @@ export function matchedSetsMStatistic(layout: MatchedSetsLayout, scale: number, 
       let bestMean = -Infinity;
       let bestVariance = 0;
       let prefix = 0;
-      for (let a = 1; a < n; a++) {
+      for (let a = 1; a < n && wantUpper; a++) {
         prefix += q[a - 1];
         const mean = (prefix + gamma * (total - prefix)) / (a + gamma * (n - a));
         if (mean < bestMean - tie) continue;
@@ -170,7 +172,7 @@ export function matchedSetsMStatistic(layout: MatchedSetsLayout, scale: number, 
       bestMean = Infinity;
       bestVariance = 0;
       prefix = 0;
-      for (let a = 1; a < n; a++) {
+      for (let a = 1; a < n && wantLower; a++) {
         prefix += q[a - 1];
         const mean = (gamma * prefix + (total - prefix)) / (gamma * a + (n - a));
         if (mean > bestMean + tie) continue;
@@ -183,7 +185,11 @@ export function matchedSetsMStatistic(layout: MatchedSetsLayout, scale: number, 
       lowerExpectation += bestMean;
       lowerVariance += bestVariance;
     }
-    return { statistic, upperExpectation, upperVariance, lowerExpectation, lowerVariance };
+    return wantUpper && wantLower
+      ? { statistic, upperExpectation, upperVariance, lowerExpectation, lowerVariance }
+      : wantUpper
+        ? { statistic, upperExpectation, upperVariance, lowerExpectation: NaN, lowerVariance: NaN }
+        : { statistic, upperExpectation: NaN, upperVariance: NaN, lowerExpectation, lowerVariance };
   }
   return Object.freeze({ scale, trim, at });
 }

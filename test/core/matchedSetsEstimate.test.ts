@@ -22,7 +22,7 @@ function layoutOf(sets: number[][]): MatchedSetsLayout {
 }
 
 describe('reference values', () => {
-  test.each(reference.continuous.filter((d: any) => d.alternative === 'greater').map((d: any) => [d.name, d]))(
+  test.each(reference.continuous.filter((d: any) => d.alternative === 'greater').map((d: any) => [d.name, d]) as [string, any][])(
     '%s: estimate, range and interval at each Γ agree with R’s uniroot',
     (_name, ds: any) => {
       // R 4.2.2 base, matched_sets.R: uniroot(tol = 1e-13) on the same equations

@@ -9,7 +9,7 @@ import { readReferenceJson } from '../support/reference';
 const reference = readReferenceJson('matched_sets.json');
 
 describe('reference values', () => {
-  test.each(reference.binary.map((d: any) => [d.name, d]))('%s: T, counts and both tails at each Γ agree with R', (_name, ds: any) => {
+  test.each(reference.binary.map((d: any) => [d.name, d]) as [string, any][])('%s: T, counts and both tails at each Γ agree with R', (_name, ds: any) => {
     // R 4.2.2 base, matched_sets.R: convolution of Bernoullis; pnorm for the normal tail
     const counts = matchedSetsEventCounts(groupMatchedSets(ds).layout);
     expect(counts.statistic).toBe(ds.statistic);

@@ -24,7 +24,7 @@ function layoutOf(sets: number[][]): MatchedSetsLayout {
 }
 
 describe('reference values', () => {
-  test.each(reference.continuous.filter((d: any) => d.alternative === 'greater').map((d: any) => [d.name, d]))(
+  test.each(reference.continuous.filter((d: any) => d.alternative === 'greater').map((d: any) => [d.name, d]) as [string, any][])(
     '%s: σ, T and the bounds at each Γ agree with R',
     (_name, ds: any) => {
       // R 4.2.2 base, matched_sets.R (plain loops)
@@ -147,8 +147,8 @@ describe('invariants', () => {
       fc.property(sets, fc.double({ min: 1, max: 10, noNaN: true }), (s, gamma) => {
         const m = matchedSetsMStatistic(layoutOf(s), 2, 2.5).at(0, gamma);
         const n = matchedSetsMStatistic(layoutOf(s.map((set) => set.map((y) => -y))), 2, 2.5).at(0, gamma);
-        expectClose(n.upperExpectation, -m.lowerExpectation, { rel: 1e-12, abs: 1e-12 });
         // splits whose means tie within 1e-12·c may be chosen differently after negation (rounding)
+        expectClose(n.upperExpectation, -m.lowerExpectation, { rel: 1e-12, abs: 1e-11 });
         expectClose(n.upperVariance, m.lowerVariance, { rel: 1e-10, abs: 1e-9 });
       }),
     );
