@@ -1,11 +1,12 @@
 import type { CliIo } from './cliIo';
 
 import type { LurkCommand } from './defineCommand';
+import { methodCommand } from './methodCommand';
 
 // Each command lives in its own module under ./commands and is loaded only when used.
 const commands: Record<string, () => Promise<LurkCommand>> = {
   evalue: () => import('./commands/evalue').then((m) => m.command),
-  pairs: () => import('./commands/pairs').then((m) => m.command),
+  pairs: () => import('../methods/pairs/method').then((m) => methodCommand(m.pairsMethod)),
   ovb: () => import('./commands/ovb').then((m) => m.command),
   batch: () => import('./commands/batch').then((m) => m.command),
   report: () => import('./commands/report').then((m) => m.command),

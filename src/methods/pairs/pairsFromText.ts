@@ -96,7 +96,11 @@ export function pairsFromPastedText(text: string, field = 'pasted'): PairsRead {
 export function discordantFromText(treatedOnly: string, controlOnly: string): PairsData {
   const reader = fieldReader();
   const read = (text: string, field: string): number => {
-    const v = reader.required(field, text, 'whole', 'a count of pairs, a whole number, 0 or more');
+    if (String(text ?? '').trim() === '') {
+      reader.problems.push(inputProblem(field, 'missing', 'give a count of pairs (a whole number, 0 or more)'));
+      return NaN;
+    }
+    const v = reader.number(field, text, 'whole');
     if (v !== null && v < 0) reader.problems.push(inputProblem(field, 'not-count', `must be a whole number of pairs, 0 or more, got "${String(text).trim()}"`, text));
     return v ?? NaN;
   };
