@@ -1,13 +1,11 @@
 import type { CliIo } from './cliIo';
-
 import type { LurkCommand } from './defineCommand';
+import { METHODS } from '../methods/registry';
 import { methodCommand } from './methodCommand';
 
-// Each command lives in its own module under ./commands and is loaded only when used.
+// Every method of the registry is a command; the workspace commands (batch, report) are loaded only when used.
 const commands: Record<string, () => Promise<LurkCommand>> = {
-  evalue: () => import('../methods/evalue/method').then((m) => methodCommand(m.evalueMethod)),
-  pairs: () => import('./commands/pairs').then((m) => m.command),
-  ovb: () => import('../methods/regression/method').then((m) => methodCommand(m.regressionMethod)),
+  ...Object.fromEntries(METHODS.map((m) => [m.command.name, async () => methodCommand(m)])),
   batch: () => import('./commands/batch').then((m) => m.command),
   report: () => import('./commands/report').then((m) => m.command),
 };
@@ -26,9 +24,9 @@ export async function runLurk(argv: readonly string[], io: CliIo): Promise<numbe
     io.out('lurk 0.1.0\n');
     return 0;
   }
-  const load = commands[name];
+  const load = Object.hasOwn(commands, name) ? commands[name] : undefined;
   if (!load) {
-    io.err(`lurk: "${name}" is not a command. Commands: ${Object.keys(commands).join(', ')}. See lurk --help.\n`);
+    io.err(`lurk: "${printable(name)}" is not a command. Commands: ${Object.keys(commands).join(', ')}. See lurk --help.\n`);
     return 2;
   }
   return (await load()).run(rest, io);
@@ -36,7 +34,13 @@ export async function runLurk(argv: readonly string[], io: CliIo): Promise<numbe
 
 async function overview(): Promise<string> {
   const lines = ['lurk — how strong would a hidden confounder have to be to overturn this finding?', '', 'Commands:'];
-  for (const [name, load] of Object.entries(commands)) lines.push(`  lurk ${name.padEnd(8)} ${(await load()).summary}`);
+  for (const [name, load] of Object.entries(commands)) lines.push(`  lurk ${name.padEnd(10)} ${(await load()).summary}`);
   lines.push('', 'Run lurk COMMAND --help for its options.', '', CAUTION);
   return lines.join('\n');
+}
+
+/** A typed word as it may be echoed: control characters escaped, cut to 60 characters. */
+function printable(text: string): string {
+  const escaped = text.replace(/[\u0000-\u001f\u007f-\u009f]/g, (c) => `\\x${c.charCodeAt(0).toString(16).padStart(2, '0')}`);
+  return escaped.length > 60 ? escaped.slice(0, 59) + '…' : escaped;
 }

@@ -105,6 +105,9 @@ describe('bad input exits 2 with one line naming the option', () => {
     [['pairs', '--discordant', '5,1', '--test', 'median'], /^lurk pairs: --test: must be one of signrank, sign/],
     [['pairs', '--discordant', '5,1', '--frobnicate'], /^lurk pairs: --frobnicate: is not an option/],
     [['pairs'], /^lurk pairs: --file: give a CSV file of pairs/],
+    [['pairs', '--discordant', '5,1', '--diff', 'd'], /^lurk pairs: --discordant: give either --discordant or --diff, not both/],
+    [['pairs', '--file', 'p.csv', '--diff', 'd', '--treated', 't', '--control', 'c'], /^lurk pairs: --diff: give either --diff or --treated and --control, not both/],
+    [['pairs', '--discordant', '5,1', '--alpha', '1,200'], /^lurk pairs: --alpha: "1,200" could be 1\.2 \(decimal comma\) or 1200/],
   ])('%j', async (args, message) => {
     const { code, stderr, stdout } = await lurk(args as string[], file);
     expect(code).toBe(2);

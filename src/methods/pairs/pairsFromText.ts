@@ -1,7 +1,8 @@
-import { InputError, inputProblem, type InputProblem } from '../../core/inputProblem';
+import { InputError, inputProblem } from '../../core/inputProblem';
 import type { PairsData } from '../../core/pairsAnalysis';
 import { isMissingCell } from '../../data/missingCell';
-import { parseNumberText, parseTypedNumber } from '../../data/numberText';
+import { parseNumberText } from '../../data/numberText';
+import { fieldReader } from '../fieldReader';
 import type { PairsRead } from './pairsFromCsv';
 
 /**
@@ -88,19 +89,23 @@ export function pairsFromPastedText(text: string, field = 'pasted'): PairsRead {
 }
 
 /**
- * Reads the two counts of discordant pairs typed by a person (whole numbers, 0 or more).
+ * Reads the two counts of discordant pairs typed by a person (whole numbers, 0 or more; thousands separators
+ * allowed: "1,200" is 1200).
  * @throws InputError with field `treatedOnly` or `controlOnly`
  */
 export function discordantFromText(treatedOnly: string, controlOnly: string): PairsData {
-  const problems: InputProblem[] = [];
+  const reader = fieldReader();
   const read = (text: string, field: string): number => {
-    const v = parseTypedNumber(text);
-    if (text.trim() === '') problems.push(inputProblem(field, 'missing', 'give a count of pairs (a whole number, 0 or more)'));
-    else if (!(Number.isInteger(v) && v >= 0)) problems.push(inputProblem(field, 'not-count', `must be a whole number of pairs, 0 or more, got "${text}"`, text));
-    return v;
+    if (String(text ?? '').trim() === '') {
+      reader.problems.push(inputProblem(field, 'missing', 'give a count of pairs (a whole number, 0 or more)'));
+      return NaN;
+    }
+    const v = reader.number(field, text, 'whole');
+    if (v !== null && v < 0) reader.problems.push(inputProblem(field, 'not-count', `must be a whole number of pairs, 0 or more, got "${String(text).trim()}"`, text));
+    return v ?? NaN;
   };
   const a = read(treatedOnly, 'treatedOnly');
   const b = read(controlOnly, 'controlOnly');
-  if (problems.length > 0) throw new InputError(problems);
+  if (reader.problems.length > 0) throw new InputError(reader.problems);
   return { kind: 'discordant', treatedOnly: a, controlOnly: b };
 }

@@ -1,17 +1,24 @@
 import { inputProblem, InputError, type InputProblem } from '../../core/inputProblem';
 import { validatePairsInput, type PairsData, type PairsInput } from '../../core/pairsAnalysis';
 import type { TailMethod } from '../../core/signedRankBound';
-import { parseTypedNumber } from '../../data/numberText';
+import { fieldReader } from '../fieldReader';
 import type { PairsColumns, PairsRead } from './pairsFromCsv';
 import { discordantFromText, pairsFromPastedText } from './pairsFromText';
 
 /** Where the pairs come from. */
 export type PairsSource = 'file' | 'pasted' | 'discordant';
 
+/** The choices of the analysis, as the request reader accepts them (without regard to case). */
+export const PAIRS_TESTS = ['signrank', 'sign'] as const;
+export const PAIRS_ALTERNATIVES = ['greater', 'less'] as const;
+export const PAIRS_TAIL_METHODS = ['auto', 'exact', 'normal'] as const;
+export const PAIRS_OUTCOME_TYPES = ['auto', 'numeric', 'binary'] as const;
+
 /**
  * Everything the matched-pairs form holds, as the user typed it (text, never parsed numbers), so nothing is
  * lost and the form can be saved and restored. A file's rows are not part of it, only its name and the
- * column choices; pasted numbers are (`pasted`), since the user typed them.
+ * column choices; pasted numbers are (`pasted`), since the user typed them. Choices are text too (an empty
+ * choice means the default), read by the request reader without regard to case.
  */
 export interface PairsFormInputs {
   readonly source: PairsSource;
@@ -21,15 +28,22 @@ export interface PairsFormInputs {
   readonly treatedColumn: string;
   readonly controlColumn: string;
   readonly differenceColumn: string;
+  /** How the file's two outcome columns are read: `auto` (0/1 columns are binary), `numeric` or `binary`. */
+  readonly outcomeType: string;
   readonly pasted: string;
   readonly treatedOnly: string;
   readonly controlOnly: string;
-  readonly test: 'signrank' | 'sign';
-  readonly alternative: 'greater' | 'less';
+  /** `signrank` or `sign` (empty: signed-rank, or the sign test for discordant counts). */
+  readonly test: string;
+  /** `greater` or `less`. */
+  readonly alternative: string;
   readonly alpha: string;
   /** Γ values separated by commas, semicolons or spaces; empty for the automatic grid. */
   readonly gammas: string;
-  readonly method: 'auto' | TailMethod;
+  /** `auto`, `exact` or `normal`. */
+  readonly method: string;
+  /** The ½ continuity correction of the normal approximation. */
+  readonly continuityCorrection: boolean;
 }
 
 export function emptyPairsForm(): PairsFormInputs {
@@ -40,6 +54,7 @@ export function emptyPairsForm(): PairsFormInputs {
     treatedColumn: '',
     controlColumn: '',
     differenceColumn: '',
+    outcomeType: 'auto',
     pasted: '',
     treatedOnly: '',
     controlOnly: '',
@@ -48,16 +63,28 @@ export function emptyPairsForm(): PairsFormInputs {
     alpha: '0.05',
     gammas: '',
     method: 'auto',
+    continuityCorrection: false,
   });
 }
 
-/** Completes a saved or partial form object (unknown keys dropped, wrong types replaced by defaults). */
+/**
+ * Completes a saved or partial form object: unknown keys dropped, numbers taken as their text (3.9 → "3.9"),
+ * choices outside the known ones and other wrong types replaced by defaults.
+ */
 export function normalisePairsForm(saved: unknown): PairsFormInputs {
   const base = emptyPairsForm();
   if (saved === null || typeof saved !== 'object') return base;
   const s = saved as Record<string, unknown>;
-  const text = (key: keyof PairsFormInputs) => (typeof s[key] === 'string' ? (s[key] as string) : (base[key] as string));
-  const pick = <T extends string>(key: keyof PairsFormInputs, choices: readonly T[]) => (choices.includes(s[key] as T) ? (s[key] as T) : (base[key] as T));
+  const text = (key: keyof PairsFormInputs) => {
+    const value = s[key];
+    if (typeof value === 'string') return value;
+    if (typeof value === 'number' && Number.isFinite(value)) return String(value);
+    return base[key] as string;
+  };
+  const pick = <T extends string>(key: keyof PairsFormInputs, choices: readonly T[]): T => {
+    const value = typeof s[key] === 'string' ? (s[key] as string).trim().toLowerCase() : '';
+    return choices.find((c) => c === value) ?? (base[key] as T);
+  };
   return Object.freeze({
     source: pick('source', ['file', 'pasted', 'discordant'] as const),
     fileName: text('fileName'),
@@ -65,22 +92,26 @@ export function normalisePairsForm(saved: unknown): PairsFormInputs {
     treatedColumn: text('treatedColumn'),
     controlColumn: text('controlColumn'),
     differenceColumn: text('differenceColumn'),
+    outcomeType: pick('outcomeType', PAIRS_OUTCOME_TYPES),
     pasted: text('pasted'),
     treatedOnly: text('treatedOnly'),
     controlOnly: text('controlOnly'),
-    test: pick('test', ['signrank', 'sign'] as const),
-    alternative: pick('alternative', ['greater', 'less'] as const),
+    test: pick('test', PAIRS_TESTS),
+    alternative: pick('alternative', PAIRS_ALTERNATIVES),
     alpha: text('alpha'),
     gammas: text('gammas'),
-    method: pick('method', ['auto', 'exact', 'normal'] as const),
+    method: pick('method', PAIRS_TAIL_METHODS),
+    continuityCorrection: s.continuityCorrection === true,
   });
 }
 
-/** The column choice of the form, as the CSV reader takes it. */
+/** The column choice of the form, as the CSV reader takes it (an unknown outcome type reads as `auto`). */
 export function pairsColumnsOf(form: PairsFormInputs): PairsColumns {
+  const typed = String(form.outcomeType ?? '').trim().toLowerCase();
+  const outcome = PAIRS_OUTCOME_TYPES.find((t) => t === typed) ?? 'auto';
   return form.columnsBy === 'difference'
-    ? { difference: form.differenceColumn }
-    : { treated: form.treatedColumn, control: form.controlColumn };
+    ? { difference: form.differenceColumn, outcome }
+    : { treated: form.treatedColumn, control: form.controlColumn, outcome };
 }
 
 /**
@@ -97,30 +128,38 @@ export function guessPairsColumns(columns: readonly string[]): Pick<PairsFormInp
   return { columnsBy: 'outcomes', treatedColumn: '', controlColumn: '', differenceColumn: '' };
 }
 
-/** α and the Γ list as typed, with problems named by the form's fields. */
+/** The analysis settings of the form, read: everything of the analysis input except the data. */
+export interface PairsSettings {
+  readonly test?: 'signrank' | 'sign';
+  readonly alternative?: 'greater' | 'less';
+  readonly method?: 'auto' | TailMethod;
+  readonly outcome?: 'auto' | 'numeric' | 'binary';
+  readonly alpha?: number;
+  readonly gammas?: number[];
+  readonly continuityCorrection: boolean;
+  readonly problems: InputProblem[];
+}
+
+/**
+ * Reads the analysis settings (test, alternative, tail method, outcome type, α, Γ list) with the one field
+ * reader: choices without regard to case, α as a fraction ("5%" = 0.05), Γ as a list of decimals. An empty
+ * choice or number is left undefined (the analysis default).
+ */
+export function readPairsSettings(form: PairsFormInputs): PairsSettings {
+  const reader = fieldReader();
+  const test = reader.choice('test', form.test, PAIRS_TESTS) ?? undefined;
+  const alternative = reader.choice('alternative', form.alternative, PAIRS_ALTERNATIVES) ?? undefined;
+  const method = reader.choice('method', form.method, PAIRS_TAIL_METHODS) ?? undefined;
+  const outcome = reader.choice('outcomeType', form.outcomeType, PAIRS_OUTCOME_TYPES) ?? undefined;
+  const alpha = reader.number('alpha', form.alpha, 'fraction') ?? undefined;
+  const gammas = reader.numberList('gammas', form.gammas, 'decimal') ?? undefined;
+  return { test, alternative, method, outcome, alpha, gammas, continuityCorrection: form.continuityCorrection === true, problems: reader.problems };
+}
+
+/** α and the Γ list as typed, with problems named by the form's fields (see {@link readPairsSettings}). */
 export function readPairsOptions(form: PairsFormInputs): { alpha?: number; gammas?: number[]; problems: InputProblem[] } {
-  const problems: InputProblem[] = [];
-  let alpha: number | undefined;
-  if (form.alpha.trim() === '') alpha = undefined;
-  else {
-    alpha = parseTypedNumber(form.alpha);
-    if (Number.isNaN(alpha)) problems.push(inputProblem('alpha', 'not-a-number', `"${form.alpha}" is not a number; write e.g. 0.05`, form.alpha));
-  }
-  let gammas: number[] | undefined;
-  if (form.gammas.trim() !== '') {
-    // Semicolons separate values; else commas do ("1, 1.5, 2"), unless only spaces separate ("1,5 2,5").
-    const text = form.gammas.trim();
-    const items = (text.includes(';') ? text.split(';') : /,\s|^[^\s]*$/.test(text) ? text.split(',') : text.split(/\s+/))
-      .map((p) => p.trim())
-      .filter((p) => p !== '');
-    gammas = [];
-    items.forEach((item, i) => {
-      const value = parseTypedNumber(item);
-      if (Number.isNaN(value)) problems.push(inputProblem(`gammas[${i}]`, 'not-a-number', `"${item}" is not a number`, item));
-      gammas!.push(value);
-    });
-  }
-  return { alpha, gammas, problems };
+  const settings = readPairsSettings(form);
+  return { alpha: settings.alpha, gammas: settings.gammas, problems: settings.problems.filter((p) => p.field === 'alpha' || p.field.startsWith('gammas')) };
 }
 
 /**
@@ -130,7 +169,7 @@ export function readPairsOptions(form: PairsFormInputs): { alpha?: number; gamma
  */
 export function pairsInputFromForm(form: PairsFormInputs, read: PairsRead | null): { input: PairsInput | null; read: PairsRead | null; problems: InputProblem[] } {
   const problems: InputProblem[] = [];
-  const options = readPairsOptions(form);
+  const options = readPairsSettings(form);
   problems.push(...options.problems);
   let data: PairsData | null = null;
   let used = read;
@@ -149,16 +188,17 @@ export function pairsInputFromForm(form: PairsFormInputs, read: PairsRead | null
   if (!data) return { input: null, read: used, problems };
   const input: PairsInput = {
     data,
-    test: form.test,
-    alternative: form.alternative,
+    test: options.test,
+    alternative: options.alternative,
     alpha: options.alpha,
-    gammas: options.gammas && options.gammas.every((g) => !Number.isNaN(g)) ? options.gammas : undefined,
-    method: form.method,
+    gammas: options.gammas,
+    method: options.method,
+    continuityCorrection: options.continuityCorrection,
     droppedRows: used?.droppedRows ?? 0,
   };
   const field = form.source === 'pasted' ? 'pasted' : form.source === 'file' ? 'file' : 'treatedOnly';
   for (const p of validatePairsInput(input)) {
-    if (options.problems.some((q) => q.field === p.field)) continue;
+    if (options.problems.some((q) => q.field === p.field || (q.field === 'gammas' && p.field.startsWith('gammas')))) continue;
     problems.push(p.field.startsWith('data') ? { ...p, field: p.field === 'data.controlOnly' ? 'controlOnly' : field } : p);
   }
   return { input: problems.length === 0 ? input : null, read: used, problems };

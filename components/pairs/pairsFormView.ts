@@ -1,0 +1,158 @@
+import { html, nothing, type TemplateResult } from 'lit';
+import type { InputProblem } from '../../src/core/inputProblem';
+import type { PairsFormInputs, PairsSource } from '../../src/methods/pairs/request';
+import { sourceChoice } from '../sourceChoice';
+
+/** What the matched-pairs form needs from its element: the form, the file's columns, problems and the edit hooks. */
+export interface PairsFormView {
+  readonly form: PairsFormInputs;
+  readonly columns: readonly string[];
+  /** The name of the file chosen in this session (null when none: a saved form's file must be chosen again). */
+  readonly chosenFile: string | null;
+  /** The message under the file input ("" when none). */
+  readonly fileError: string;
+  problemFor(field: string): InputProblem | undefined;
+  field(field: string, label: string, value: string, change: (text: string) => Partial<PairsFormInputs>, hint?: string, inputMode?: 'decimal' | 'numeric' | 'text'): TemplateResult;
+  edit(change: Partial<PairsFormInputs>): void;
+  onFile(event: Event): void;
+}
+
+const SOURCES: ReadonlyArray<{ id: PairsSource; label: string }> = [
+  { id: 'file', label: 'A CSV file of pairs' },
+  { id: 'pasted', label: 'Numbers pasted in' },
+  { id: 'discordant', label: 'Discordant counts (binary outcome)' },
+];
+
+/** The matched-pairs form: the source of the pairs, its fields, and the analysis settings. */
+export function pairsFormTemplate(v: PairsFormView): TemplateResult {
+  const source = v.form.source;
+  return html`<form @submit=${(e: Event) => e.preventDefault()} novalidate aria-label="Matched-pairs inputs">
+    ${sourceChoice('The pairs', SOURCES, source, (s) => v.edit({ source: s }))}
+    ${source === 'file' ? fileFields(v) : source === 'pasted' ? pastedFields(v) : discordantFields(v)} ${analysisFields(v)}
+  </form>`;
+}
+
+function columnSelect(v: PairsFormView, id: string, label: string, value: string, key: 'treatedColumn' | 'controlColumn' | 'differenceColumn', field: string): TemplateResult {
+  const problem = v.problemFor(field);
+  return html`<div class="field">
+    <label for="column-${id}">${label}</label>
+    <select
+      id="column-${id}"
+      aria-invalid=${problem ? 'true' : 'false'}
+      aria-describedby="column-${id}-error"
+      @change=${(e: Event) => v.edit({ [key]: (e.target as HTMLSelectElement).value })}
+    >
+      <option value="" ?selected=${value === ''}>Choose a column</option>
+      ${v.columns.map((c) => html`<option value=${c} ?selected=${value === c}>${c}</option>`)}
+    </select>
+    <div class="field-error" id="column-${id}-error">${problem ? problem.message : ''}</div>
+  </div>`;
+}
+
+function fileFields(v: PairsFormView): TemplateResult {
+  const f = v.form;
+  return html`
+    <div class="field">
+      <label for="file">CSV file</label>
+      <input
+        id="file"
+        type="file"
+        accept=".csv,.tsv,.txt,text/csv,text/plain"
+        aria-describedby="file-hint file-error"
+        aria-invalid=${v.fileError ? 'true' : 'false'}
+        @change=${(e: Event) => v.onFile(e)}
+      />
+      <div class="hint" id="file-hint">
+        ${v.chosenFile
+          ? `${v.chosenFile}: columns ${v.columns.join(', ')}. It stays in this browser.`
+          : f.fileName
+            ? `Choose ${f.fileName} again: the rows of a file are never saved, only the choices below.`
+            : 'A header row, then one row per pair: the treated and the control outcome, or their difference. It stays in this browser.'}
+      </div>
+      <div class="field-error" id="file-error">${v.fileError}</div>
+    </div>
+    ${v.columns.length > 0
+      ? html`<fieldset>
+          <legend>Columns</legend>
+          <label class="choice"
+            ><input type="radio" name="columns-by" .checked=${f.columnsBy === 'outcomes'} @change=${() => v.edit({ columnsBy: 'outcomes' })} />Treated and control outcomes</label
+          >
+          <label class="choice"
+            ><input type="radio" name="columns-by" .checked=${f.columnsBy === 'difference'} @change=${() => v.edit({ columnsBy: 'difference' })} />One column of differences</label
+          >
+          ${f.columnsBy === 'outcomes'
+            ? html`<div class="pair">
+                ${columnSelect(v, 'treated', 'Treated outcome', f.treatedColumn, 'treatedColumn', 'treated')}
+                ${columnSelect(v, 'control', 'Control outcome', f.controlColumn, 'controlColumn', 'control')}
+              </div>`
+            : columnSelect(v, 'difference', 'Difference (treated − control)', f.differenceColumn, 'differenceColumn', 'difference')}
+          <p class="hint">Two columns holding only 0 and 1 are read as a binary outcome (discordant pairs).</p>
+        </fieldset>`
+      : nothing}
+  `;
+}
+
+function pastedFields(v: PairsFormView): TemplateResult {
+  const problem = v.problemFor('pasted');
+  return html`<div class="field">
+    <label for="pasted">Pairs</label>
+    <textarea
+      id="pasted"
+      spellcheck="false"
+      .value=${v.form.pasted}
+      aria-invalid=${problem ? 'true' : 'false'}
+      aria-describedby="pasted-hint pasted-error"
+      @input=${(e: Event) => v.edit({ pasted: (e.target as HTMLTextAreaElement).value })}
+    ></textarea>
+    <div class="hint" id="pasted-hint">
+      One line per pair: the difference (treated − control), or the treated and the control outcome separated by a tab, space,
+      semicolon or comma. NA marks a missing value.
+    </div>
+    <div class="field-error" id="pasted-error">${problem ? problem.message : ''}</div>
+  </div>`;
+}
+
+function discordantFields(v: PairsFormView): TemplateResult {
+  return html`<fieldset>
+    <legend>Pairs where exactly one unit had the event</legend>
+    <div class="pair">
+      ${v.field('treatedOnly', 'Only the treated unit', v.form.treatedOnly, (t) => ({ treatedOnly: t }), '', 'numeric')}
+      ${v.field('controlOnly', 'Only the control unit', v.form.controlOnly, (t) => ({ controlOnly: t }), '', 'numeric')}
+    </div>
+    <p class="hint">Pairs where both or neither had the event carry no information about the effect (McNemar).</p>
+  </fieldset>`;
+}
+
+function analysisFields(v: PairsFormView): TemplateResult {
+  const f = v.form;
+  const choose = (key: 'test' | 'alternative' | 'method') => (e: Event) => v.edit({ [key]: (e.target as HTMLSelectElement).value });
+  return html`<fieldset>
+    <legend>Analysis</legend>
+    <div class="field">
+      <label for="test">Test</label>
+      <select id="test" @change=${choose('test')}>
+        <option value="signrank" ?selected=${f.test === 'signrank'}>Wilcoxon signed-rank</option>
+        <option value="sign" ?selected=${f.test === 'sign'}>Sign test</option>
+      </select>
+    </div>
+    <div class="field">
+      <label for="alternative">The finding</label>
+      <select id="alternative" @change=${choose('alternative')}>
+        <option value="greater" ?selected=${f.alternative === 'greater'}>Treatment raises the outcome</option>
+        <option value="less" ?selected=${f.alternative === 'less'}>Treatment lowers the outcome</option>
+      </select>
+    </div>
+    <div class="pair">
+      ${v.field('alpha', 'Significance level α', f.alpha, (t) => ({ alpha: t }), 'One-sided, e.g. 0.05')}
+      <div class="field">
+        <label for="method">Tail probabilities</label>
+        <select id="method" @change=${choose('method')}>
+          <option value="auto" ?selected=${f.method === 'auto'}>Automatic</option>
+          <option value="exact" ?selected=${f.method === 'exact'}>Exact</option>
+          <option value="normal" ?selected=${f.method === 'normal'}>Normal approximation</option>
+        </select>
+      </div>
+    </div>
+    ${v.field('gammas', 'Γ values to tabulate', f.gammas, (t) => ({ gammas: t }), 'e.g. 1, 1.5, 2, 3; empty: from 1 to just past the tipping point')}
+  </fieldset>`;
+}

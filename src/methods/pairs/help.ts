@@ -1,0 +1,34 @@
+import { NUMBER_READING_RULE } from '../../data/numberText';
+import { PAIRS_CAUTION } from './text';
+
+/** The text of `lurk pairs --help`. */
+export const PAIRS_HELP = `lurk pairs — Rosenbaum bounds for a matched-pairs study: how large a hidden bias Γ would have to be before
+the finding stops being significant, and how the effect estimate widens with Γ. Γ is the largest factor by which
+two matched units may differ in their odds of treatment because of an unmeasured covariate.
+
+  lurk pairs --file data.csv --treated COLUMN --control COLUMN [options]
+  lurk pairs --file data.csv --diff COLUMN [options]
+  lurk pairs --discordant A,B [options]
+
+Data (one source: a file with its columns, or discordant counts):
+  --file F            a CSV file (comma, semicolon or tab separated) with a header row, one row per pair;
+                      rows with a missing value (empty, NA, ...) are left out and counted
+  --treated, --control  the treated unit's and the control unit's outcome columns (difference = treated − control);
+                      two columns holding only 0 and 1 are read as a binary outcome
+  --diff COLUMN       or one column of treated − control differences
+  --discordant A,B    a binary outcome: A pairs where only the treated unit had the event, B where only the control did
+  --outcome-type T    auto (default), numeric, or binary (insist on 0/1 columns)
+
+Analysis:
+  --test T            signrank (Wilcoxon signed-rank, default) or sign (sign test; McNemar for binary outcomes)
+  --alternative A     greater (treatment raises the outcome, default) or less (lowers it); one-sided
+  --alpha A           significance level, between 0 and 1 (default 0.05; "5%" is 0.05)
+  --gamma G1,G2,...   the Γ values to tabulate, each 1 or more (default: from 1 to just past the tipping point)
+  --method M          exact or normal (default: exact up to 1,000 non-zero pairs, normal beyond)
+  --continuity-correction  subtract ½ from the statistic in the normal approximation
+  --json              print one JSON object (n, sensitivityValue, rows of {gamma, pUpper, pLower}, estimates, ...)
+
+${NUMBER_READING_RULE}
+
+${PAIRS_CAUTION}
+`;

@@ -1,0 +1,69 @@
+import { formatNumber, formatPValue } from '../../format/formatNumber';
+import { exposureLabel, outcomeLabel, type StudyLabels } from '../../format/studyLabels';
+import type { StatementPart } from '../methodModule';
+import type { PairsSummary } from './summary';
+import { formatGamma } from './text';
+
+/** The works the matched-pairs paragraph cites (full citations). */
+export const PAIRS_REFERENCES = {
+  rosenbaum: 'Rosenbaum PR. Observational Studies. 2nd ed. New York: Springer; 2002. Chapter 4.',
+  hodgesLehmann: 'Rosenbaum PR. Hodges–Lehmann point estimates of treatment effect in observational studies. Journal of the American Statistical Association. 1993;88(424):1250–1253.',
+  amplification: 'Rosenbaum PR, Silber JH. Amplification of sensitivity analysis in matched observational studies. Journal of the American Statistical Association. 2009;104(488):1398–1405.',
+} as const;
+
+/**
+ * The matched-pairs paragraph of the robustness statement, with the conventions it relies on; null when the
+ * summary has no p-value. `cite` numbers a reference and gives its marker ("[2]").
+ */
+export function pairsStatement(p: PairsSummary, study: StudyLabels, cite: (reference: string) => string): StatementPart | null {
+  if (p.pValue === null) return null;
+  const exposure = exposureLabel(study);
+  const outcome = outcomeLabel(study);
+  const testName = p.test === 'sign' ? 'sign test' : 'Wilcoxon signed-rank test';
+  const direction = p.alternative === 'less' ? 'lowers' : 'raises';
+  const parts = [
+    `In ${int(p.n)} matched pairs, a one-sided ${testName} of the hypothesis that ${exposure} ${direction} ${outcome} gave p = ${formatPValue(p.pValue)} in the absence of hidden bias.`,
+    `Following Rosenbaum ${cite(PAIRS_REFERENCES.rosenbaum)}, we bounded the p-value under hidden bias Γ, the largest factor by which an unmeasured covariate could make two matched units differ in their odds of ${exposure}.`,
+  ];
+  if (p.sensitivityValue !== null) {
+    parts.push(
+      `The upper bound on the p-value stays at or below α = ${num(p.alpha)} up to Γ = ${formatGamma(p.sensitivityValue)} (${p.tailMethod === 'exact' ? 'exact bounding distribution' : 'normal approximation'}): ` +
+        `the conclusion would hold unless such a covariate changed the odds of ${exposure} within pairs by a factor of more than ${formatGamma(p.sensitivityValue)}.`,
+    );
+    const amp = p.amplification?.find((a) => a.lambda !== null && a.delta !== null);
+    if (amp) {
+      parts.push(
+        `By amplification ${cite(PAIRS_REFERENCES.amplification)}, Γ = ${formatGamma(p.sensitivityValue)} is equivalent, for example, to an unobserved covariate that multiplies the odds of ${exposure} by ${num(amp.lambda)} and the odds of a ${p.alternative === 'less' ? 'lower' : 'higher'} ${outcome} by ${num(amp.delta)}.`,
+      );
+    }
+  } else if (p.sensitivityStatus === 'beyond-range') {
+    parts.push(`The upper bound on the p-value stays at or below α = ${num(p.alpha)} for every Γ up to ${formatGamma(p.searchedUpTo)}, the largest value examined.`);
+  } else {
+    parts.push(`The finding is not significant at α = ${num(p.alpha)} even without hidden bias, so no sensitivity value is reported.`);
+  }
+  const unit = study.units.trim() ? ` ${study.units.trim()}` : '';
+  if (p.estimate !== null) {
+    let sentence = `The Hodges–Lehmann estimate of the effect is ${num(p.estimate)}${unit}`;
+    if (p.rangeAt && p.rangeAt.gamma !== null && p.rangeAt.gamma > 1) {
+      sentence += `; under hidden bias up to Γ = ${num(p.rangeAt.gamma)} the possible estimates range from ${num(p.rangeAt.estimateLow)} to ${num(p.rangeAt.estimateHigh)}${unit}`;
+      if (p.rangeAt.intervalLow !== null && p.rangeAt.intervalHigh !== null) {
+        sentence += `, and the ${num((1 - (p.alpha ?? 0.05)) * 100)}% sensitivity interval is ${num(p.rangeAt.intervalLow)} to ${num(p.rangeAt.intervalHigh)}${unit}`;
+      }
+    }
+    parts.push(`${sentence} ${cite(PAIRS_REFERENCES.hodgesLehmann)}.`);
+  }
+  const assumptions = [
+    'The matched-pairs analysis assumes that pairs were matched on the measured covariates and that, within pairs, only an unmeasured covariate could change the odds of treatment.',
+  ];
+  if (p.estimate !== null) assumptions.push('The Hodges–Lehmann estimates and sensitivity intervals further assume an additive, constant effect.');
+  return Object.freeze({ paragraph: parts.join(' '), assumptions: Object.freeze(assumptions) });
+}
+
+function num(value: number | null | undefined): string {
+  const text = formatNumber(value, { significant: 3 });
+  return /^-?\d+\.\d+$/.test(text) ? text.replace(/\.?0+$/, '') : text;
+}
+
+function int(value: number | null | undefined): string {
+  return value === null || value === undefined || !Number.isFinite(value) ? formatNumber(value) : String(Math.round(value));
+}
