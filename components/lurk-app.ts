@@ -1,20 +1,20 @@
-import { LitElement, css, html, nothing, type TemplateResult } from 'lit';
+import { LitElement, html, nothing, type TemplateResult } from 'lit';
+import { html as staticHtml, unsafeStatic } from 'lit/static-html.js';
 import { customElement, property, state } from 'lit/decorators.js';
 import { emptyStudy, type StudyLabels } from '../src/format/studyLabels';
 import { createAppraisal, readAppraisal, type Appraisal, type CalculatorEntry, type CalculatorName, type CalculatorSummary } from '../src/workspace/appraisal';
 import { encodeShareFragment } from '../src/workspace/shareLink';
 import { downloadBlob } from '../src/plot/figureExport.browser';
 import { baseStyles } from './styles/base';
+import { appStyles } from './styles/app';
+import { METHODS } from '../src/methods/registry';
 import './lurk-study';
 import './lurk-statement';
 import './lurk-bottom-line';
 import './lurk-batch';
 
-/** The views of the workspace, in tab order. */
-export type WorkspaceView = 'evalue' | 'pairs' | 'regression' | 'statement' | 'bottom-line' | 'batch';
-
-/** The calculators among the views, keyed as in an appraisal file. */
-const CALCULATOR_OF: Partial<Record<WorkspaceView, CalculatorName>> = { evalue: 'evalue', pairs: 'pairs', regression: 'regression' };
+/** The views of the workspace, in tab order: a tab per method of the registry, then the workspace's own. */
+export type WorkspaceView = string;
 
 /** What a calculator element offers the workspace besides its events. */
 interface CalculatorElement extends HTMLElement {
@@ -28,27 +28,12 @@ interface ViewInfo {
   readonly tab: string;
   readonly heading: string;
   readonly intro: string;
+  /** The calculator element of a method's view. */
+  readonly element?: string;
 }
 
 const VIEWS: readonly ViewInfo[] = [
-  {
-    id: 'evalue',
-    tab: 'Reported estimate',
-    heading: 'E-value: from a reported estimate or a 2×2 table',
-    intro: 'How strongly would a hidden confounder have to be associated with both the exposure and the outcome to explain the finding away?',
-  },
-  {
-    id: 'pairs',
-    tab: 'Matched pairs',
-    heading: 'Rosenbaum bounds for matched pairs',
-    intro: 'How much could hidden bias change the odds of treatment within a matched pair before the finding stops being significant?',
-  },
-  {
-    id: 'regression',
-    tab: 'Regression',
-    heading: 'Omitted-variable bias in a linear regression',
-    intro: 'How much of the residual variance of treatment and outcome would a hidden confounder have to explain to change the conclusion?',
-  },
+  ...METHODS.map((m) => ({ id: m.id, tab: m.title, heading: m.view.heading, intro: m.view.intro, element: m.view.element })),
   {
     id: 'statement',
     tab: 'Robustness statement',
@@ -68,6 +53,9 @@ const VIEWS: readonly ViewInfo[] = [
     intro: 'For reviewers and evidence synthesis: E-values and robustness values for a table of reported estimates.',
   },
 ];
+
+/** The calculators among the views, keyed as in an appraisal file (a method's view id is its id). */
+const isCalculator = (view: WorkspaceView) => METHODS.some((m) => m.id === view);
 
 /** What the workspace keeps of each calculator: the raw inputs as typed (never lost) and the last result. */
 export interface CalculatorState {
@@ -100,99 +88,7 @@ export interface CalculatorState {
  */
 @customElement('lurk-app')
 export class LurkApp extends LitElement {
-  static override styles = [
-    baseStyles,
-    css`
-      :host {
-        max-width: 1180px;
-        margin: 0 auto;
-        padding: 0 1rem 3rem;
-      }
-      header.app {
-        display: flex;
-        flex-wrap: wrap;
-        align-items: baseline;
-        gap: 0.25rem 1rem;
-        padding: 1rem 0 0.5rem;
-      }
-      header.app h1 {
-        margin: 0;
-        font-size: 1.6rem;
-        letter-spacing: 0.02em;
-      }
-      header.app p {
-        margin: 0;
-        color: var(--_muted);
-      }
-      .privacy {
-        font-size: 0.85rem;
-        color: var(--_muted);
-        margin: 0 0 0.75rem;
-      }
-      [role='tablist'] {
-        display: flex;
-        flex-wrap: wrap;
-        gap: 0.25rem;
-        border-bottom: 2px solid var(--_border);
-        margin-top: 0.75rem;
-      }
-      [role='tab'] {
-        background: var(--_surface);
-        color: var(--_text);
-        border: 1px solid var(--_border);
-        border-bottom: none;
-        border-radius: var(--_radius) var(--_radius) 0 0;
-        padding: 0.5rem 0.9rem;
-      }
-      [role='tab'][aria-selected='true'] {
-        background: var(--_accent);
-        color: var(--_accent-text);
-        border-color: var(--_accent);
-      }
-      [role='tabpanel'] {
-        padding-top: 0.5rem;
-      }
-      .toolbar {
-        display: flex;
-        flex-wrap: wrap;
-        gap: 0.4rem;
-        align-items: center;
-        margin-bottom: 0.5rem;
-      }
-      .toolbar button,
-      .file-button {
-        padding: 0.3rem 0.7rem;
-        font-size: 0.9rem;
-        min-height: 2.1rem;
-      }
-      .file-button {
-        display: inline-flex;
-        align-items: center;
-        margin: 0;
-        font-weight: normal;
-        border: 1px solid var(--_accent);
-        border-radius: var(--_radius);
-        color: var(--_accent);
-        background: var(--_bg);
-        cursor: pointer;
-      }
-      #open-appraisal:focus-visible + .file-button,
-      .file-button:focus-within {
-        outline: 3px solid var(--_focus);
-      }
-      .notice {
-        font-size: 0.9rem;
-        color: var(--_muted);
-      }
-      .demo-banner {
-        background: var(--_warning-bg);
-        border-radius: var(--_radius);
-        padding: 0.5rem 0.75rem;
-        margin: 0.5rem 0;
-        font-size: 0.9rem;
-      }
-    `,
-  ];
+  static override styles = [baseStyles, appStyles];
 
   @property({ attribute: false }) study: StudyLabels = emptyStudy;
   @property({ reflect: true }) view: WorkspaceView = 'evalue';
@@ -216,7 +112,7 @@ export class LurkApp extends LitElement {
   /** The appraisal as it stands: study labels, inputs as typed, and the summaries of the results. */
   get appraisal(): Appraisal {
     const calculators: Partial<Record<CalculatorName, CalculatorEntry>> = {};
-    for (const name of ['evalue', 'pairs', 'regression'] as const) {
+    for (const { id: name } of METHODS) {
       const inputs = this.inputs[name];
       const summary = this.summaryOf(name);
       if (inputs || summary) calculators[name] = { inputs: (inputs ?? {}) as Record<string, unknown>, summary };
@@ -240,8 +136,7 @@ export class LurkApp extends LitElement {
 
   /** A calculator's current summary: from its element when it has a result, else the one loaded with the file. */
   private summaryOf(name: CalculatorName): CalculatorSummary | null {
-    const view = (Object.entries(CALCULATOR_OF) as [WorkspaceView, CalculatorName][]).find(([, n]) => n === name)?.[0];
-    const element = this.renderRoot?.querySelector<CalculatorElement>(`#panel-${view} [data-calculator]`);
+    const element = this.renderRoot?.querySelector<CalculatorElement>(`#panel-${name} [data-calculator]`);
     return element?.summary ?? this.loadedSummaries[name] ?? null;
   }
 
@@ -289,13 +184,12 @@ export class LurkApp extends LitElement {
   private calculator(view: WorkspaceView): TemplateResult {
     const inputs = this.inputs[view] ?? null;
     const record = (e: CustomEvent<{ inputs?: Record<string, unknown> }>) => this.onCalculatorEvent(view, e);
+    const element = VIEWS.find((v) => v.id === view)?.element;
+    if (element) {
+      const tag = unsafeStatic(element);
+      return staticHtml`<${tag} data-calculator .study=${this.study} .inputs=${inputs} @lurk-inputs-change=${record} @lurk-result=${record}></${tag}>`;
+    }
     switch (view) {
-      case 'evalue':
-        return html`<lurk-evalue data-calculator .study=${this.study} .inputs=${inputs} @lurk-inputs-change=${record} @lurk-result=${record}></lurk-evalue>`;
-      case 'pairs':
-        return html`<lurk-pairs data-calculator .study=${this.study} .inputs=${inputs} @lurk-inputs-change=${record} @lurk-result=${record}></lurk-pairs>`;
-      case 'regression':
-        return html`<lurk-ovb data-calculator .study=${this.study} .inputs=${inputs} @lurk-inputs-change=${record} @lurk-result=${record}></lurk-ovb>`;
       case 'statement':
         return html`<lurk-statement .appraisal=${this.view === 'statement' ? this.appraisal : null}></lurk-statement>`;
       case 'bottom-line':
@@ -309,12 +203,14 @@ export class LurkApp extends LitElement {
             this.batchAlpha = e.detail.alpha;
           }}
         ></lurk-batch>`;
+      default:
+        return html``;
     }
   }
 
   private onCalculatorEvent(view: WorkspaceView, event: CustomEvent<{ inputs?: Record<string, unknown> }>): void {
-    const name = CALCULATOR_OF[view];
-    if (!name) return;
+    if (!isCalculator(view)) return;
+    const name = view;
     if (event.type === 'lurk-inputs-change' && event.detail.inputs) {
       this.inputs = { ...this.inputs, [view]: event.detail.inputs };
     }

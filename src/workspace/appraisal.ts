@@ -1,9 +1,10 @@
 import { inputProblem, type InputProblem } from '../core/inputProblem';
 import type { StudyLabels } from '../format/studyLabels';
+import { METHODS } from '../methods/registry';
 
-/** The calculators whose inputs an appraisal carries. */
-export const CALCULATORS = ['evalue', 'pairs', 'regression'] as const;
-export type CalculatorName = (typeof CALCULATORS)[number];
+/** The calculators whose inputs an appraisal carries: every method of the registry, by its id. */
+export const CALCULATORS: readonly string[] = Object.freeze(METHODS.map((m) => m.id));
+export type CalculatorName = string;
 
 export const APPRAISAL_FORMAT = 'lurk-appraisal';
 /** Bump when the shape changes; `readAppraisal` says plainly when a file is from another version. */
@@ -102,6 +103,8 @@ export function readAppraisal(json: unknown): { appraisal: Appraisal; problems: 
       if (!isRecord(entry.inputs)) problems.push(inputProblem(`${field}.inputs`, 'not-an-object', 'must be an object'));
       else checkPlainJson(entry.inputs, `${field}.inputs`, problems, 0);
       if (entry.summary !== null && !isRecord(entry.summary)) problems.push(inputProblem(`${field}.summary`, 'not-an-object', 'must be an object or null'));
+      // A saved summary is plain JSON here; it reaches sentences only through its method's `readSummary`, which
+      // checks every field (see currentSummaries), so an older or damaged summary is set aside, never shown.
       else if (entry.summary) checkSummary(entry.summary, `${field}.summary`, problems);
       for (const key of Object.keys(entry)) {
         if (key !== 'inputs' && key !== 'summary') problems.push(inputProblem(`${field}.${key}`, 'unknown-field', 'is not part of a calculator entry'));

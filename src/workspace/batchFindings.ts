@@ -1,26 +1,32 @@
-import { analyseEValue, type EValueInput } from '../core/eValueAnalysis';
-import { EFFECT_MEASURES, type EffectMeasure, type OutcomePrevalence } from '../core/riskRatioScale';
-import { robustnessValue, robustnessValueAtLevel } from '../core/robustnessValue';
 import { InputError } from '../core/inputProblem';
+import type { InputProblem } from '../core/inputProblem';
 import { columnIndex, readCsvText, type CsvTable } from '../data/csv';
-import { parseNumberText } from '../data/numberText';
+import { emptyEValueForm, evaluateEValueForm, type EValueFormInputs } from '../methods/evalue/request';
+import { emptyOvbForm, evaluateOvbForm, type OvbFormInputs } from '../methods/regression/request';
 
 /**
- * Batch appraisal: one reported finding per CSV row → its E-values and, where a standard error and residual
- * degrees of freedom are given, its robustness values. For reviewers and evidence synthesis.
+ * Batch appraisal: one reported finding per CSV row → its E-values and, for a linear-regression coefficient
+ * (measure `coef`) with its standard error and residual degrees of freedom, its robustness values. For
+ * reviewers and evidence synthesis.
  *
- * Columns (header names, any order, case-insensitive): `label`, `measure` (rr, or, hr, smd, md, or `coef` for a
- * linear-regression coefficient, which has robustness values but no E-value), `estimate`, and optionally
- * `lower`, `upper`, `se`, `df`, `level` (default 0.95), `outcome_prevalence` (rare/common; required for or/hr),
- * `sd` (required for md), `target`.
+ * Each row is read by the same request readers as the E-value and regression calculators (a row's cells are
+ * the forms' typed text), so a cell gives the same value or the same message as the page and the command line.
  *
- * Robustness values use t = estimate/SE on the scale the SE is on: the log ratio for rr/or/hr, d for smd, the
- * raw difference for md and coef. They are exact for a linear-regression coefficient (Cinelli & Hazlett 2020);
- * for other measures they are a rough guide, and the table says which scale was used.
+ * Columns (header names, any order, case-insensitive): `label`, `measure` (rr, or, hr, smd, md, or `coef`),
+ * `estimate`, and optionally `lower`, `upper`, `se`, `df`, `level` (default 95%), `outcome_prevalence`
+ * (rare/common; required for or/hr), `sd` (required for md), `target`.
+ *
+ * Robustness values are computed for regression coefficients only: they are defined for the t-statistic of a
+ * coefficient in a linear regression (Cinelli & Hazlett 2020) and have no such meaning for a log risk, odds or
+ * hazard ratio, so ratio rows get E-values only.
  */
 export const BATCH_COLUMNS = ['label', 'measure', 'estimate', 'lower', 'upper', 'se', 'df', 'level', 'outcome_prevalence', 'sd', 'target'] as const;
-export type BatchMeasure = EffectMeasure | 'coef';
-export const BATCH_MEASURES: readonly BatchMeasure[] = Object.freeze([...EFFECT_MEASURES, 'coef']);
+type BatchColumn = (typeof BATCH_COLUMNS)[number];
+export const BATCH_MEASURES = Object.freeze(['rr', 'or', 'hr', 'smd', 'md', 'coef'] as const);
+export type BatchMeasure = (typeof BATCH_MEASURES)[number];
+
+/** The rule behind the batch table's robustness-value columns, for its help text and notes. */
+export const BATCH_RV_RULE = 'Robustness values are given for regression coefficients (measure coef, with se and df) only; ratio measures get E-values only.';
 
 export interface BatchRow {
   /** 1-based data row number in the file. */
@@ -34,7 +40,7 @@ export interface BatchRow {
   readonly df: number | null;
   readonly eValueEstimate: number | null;
   readonly eValueInterval: number | null;
-  /** t = estimate/SE on the SE's scale (see above), when an SE is given. */
+  /** The coefficient's t = estimate/SE (coef rows). */
   readonly t: number | null;
   readonly partialR2: number | null;
   readonly rv: number | null;
@@ -45,7 +51,7 @@ export interface BatchRow {
 
 export interface BatchResult {
   readonly rows: readonly BatchRow[];
-  /** Rows that gave an E-value. */
+  /** Rows that gave an E-value or a robustness value. */
   readonly computed: number;
   /** Rows with a problem. */
   readonly withProblems: number;
@@ -58,122 +64,102 @@ export interface BatchResult {
  * message. Problems with the file itself (empty, no `measure`/`estimate` column) throw InputError.
  */
 export function appraiseBatchCsv(text: string, alpha = 0.05): BatchResult {
-  const table = readCsvText(text, 'file');
-  return appraiseBatchTable(table, alpha);
+  return appraiseBatchTable(readCsvText(text, 'file'), alpha);
 }
 
 export function appraiseBatchTable(table: CsvTable, alpha = 0.05): BatchResult {
-  const find = (name: string): number => {
-    const wanted = name.toLowerCase();
-    return table.columns.findIndex((c) => c.trim().toLowerCase().replace(/[\s.-]+/g, '_') === wanted);
-  };
+  const normal = (c: string) => c.trim().toLowerCase().replace(/[\s.-]+/g, '_');
+  const find = (name: string): number => table.columns.findIndex((c) => normal(c) === name);
   for (const required of ['measure', 'estimate']) if (find(required) < 0) columnIndex(table, required, 'file');
-  const at = Object.fromEntries(BATCH_COLUMNS.map((c) => [c, find(c)])) as Record<(typeof BATCH_COLUMNS)[number], number>;
-  const unknown = table.columns.filter((c) => !BATCH_COLUMNS.includes(c.trim().toLowerCase().replace(/[\s.-]+/g, '_') as never));
+  const at = Object.fromEntries(BATCH_COLUMNS.map((c) => [c, find(c)])) as Record<BatchColumn, number>;
+  const unknown = table.columns.filter((c) => !BATCH_COLUMNS.includes(normal(c) as BatchColumn));
   const warnings = [...table.warnings];
   if (unknown.length > 0) warnings.push(`columns not used: ${unknown.join(', ')}`);
-  const rows = table.rows.map((cells, i) => appraiseRow(cells, at, i + 1, table.decimalComma, alpha));
+  const rows = table.rows.map((cells, i) => appraiseRow((column) => (at[column] >= 0 ? (cells[at[column]] ?? '') : ''), i + 1, alpha));
+  if (rows.some((r) => r.measure !== 'coef' && r.measure !== '' && r.se !== null && r.df !== null)) warnings.push(BATCH_RV_RULE);
   return Object.freeze({
     rows: Object.freeze(rows),
-    computed: rows.filter((r) => r.eValueEstimate !== null).length,
+    computed: rows.filter((r) => r.eValueEstimate !== null || r.rv !== null).length,
     withProblems: rows.filter((r) => r.problem !== '').length,
     alpha,
     warnings: Object.freeze(warnings),
   });
 }
 
-function appraiseRow(
-  cells: ReadonlyArray<string | null>,
-  at: Record<(typeof BATCH_COLUMNS)[number], number>,
-  row: number,
-  decimalComma: boolean,
-  alpha: number,
-): BatchRow {
-  const text = (column: (typeof BATCH_COLUMNS)[number]): string | null => (at[column] >= 0 ? cells[at[column]] : null);
-  const problems: string[] = [];
-  const number = (column: (typeof BATCH_COLUMNS)[number]): number | null => {
-    const cell = text(column);
-    if (cell === null) return null;
-    const value = parseNumberText(cell, decimalComma);
-    if (Number.isNaN(value)) {
-      problems.push(`${column}: "${cell}" is not a number`);
-      return null;
-    }
-    return value;
-  };
-  const label = text('label') ?? `row ${row}`;
-  const measure = (text('measure') ?? '').toLowerCase();
-  const estimate = number('estimate');
-  const lower = number('lower');
-  const upper = number('upper');
-  const se = number('se');
-  const df = number('df');
-  const level = number('level');
-  const sd = number('sd');
-  const target = number('target');
-  const prevalenceText = text('outcome_prevalence')?.toLowerCase() ?? null;
-  const base = { row, label, measure, estimate, lower, upper, se, df };
-  const empty = { eValueEstimate: null, eValueInterval: null, t: null, partialR2: null, rv: null, rvAlpha: null };
-
+function appraiseRow(cell: (column: BatchColumn) => string, row: number, alpha: number): BatchRow {
+  const label = cell('label').trim() || `row ${row}`;
+  const measure = cell('measure').trim().toLowerCase();
+  const empty = { estimate: null, lower: null, upper: null, se: null, df: null, eValueEstimate: null, eValueInterval: null, t: null, partialR2: null, rv: null, rvAlpha: null };
   if (!BATCH_MEASURES.includes(measure as BatchMeasure)) {
-    problems.unshift(`measure: must be one of ${BATCH_MEASURES.join(', ')}${measure ? `, got "${measure}"` : ' (empty)'}`);
-    return Object.freeze({ ...base, ...empty, problem: problems.join('; ') });
+    const problem = `measure: must be one of ${BATCH_MEASURES.join(', ')}${measure ? `, got "${cell('measure').trim()}"` : ' (empty)'}`;
+    return Object.freeze({ row, label, measure, ...empty, problem });
   }
-  if (estimate === null && problems.length === 0) problems.push('estimate: is missing');
-  if (problems.length > 0) return Object.freeze({ ...base, ...empty, problem: problems.join('; ') });
-  if (prevalenceText !== null && prevalenceText !== 'rare' && prevalenceText !== 'common') {
-    return Object.freeze({ ...base, ...empty, problem: `outcome_prevalence: must be rare or common, got "${prevalenceText}"` });
+  if (measure === 'coef') return coefficientRow(cell, row, label, alpha);
+  const hasLimits = cell('lower').trim() !== '' || cell('upper').trim() !== '';
+  const form: EValueFormInputs = {
+    ...emptyEValueForm(),
+    source: 'reported',
+    measure: measure as EValueFormInputs['measure'],
+    estimate: cell('estimate'),
+    intervalBy: hasLimits || cell('se').trim() === '' ? 'limits' : 'se',
+    lower: cell('lower'),
+    upper: cell('upper'),
+    se: cell('se'),
+    level: cell('level').trim() === '' ? '95' : cell('level'),
+    outcomePrevalence: (cell('outcome_prevalence').trim().toLowerCase() as EValueFormInputs['outcomePrevalence']),
+    sd: cell('sd'),
+    target: cell('target'),
+  };
+  const outcome = evaluateEValueForm(form, null);
+  const result = outcome.result;
+  const problems = [...outcome.problems];
+  if (!['', 'rare', 'common'].includes(form.outcomePrevalence)) {
+    problems.unshift({ field: 'outcomePrevalence', code: 'not-a-choice', message: `must be rare or common, got "${cell('outcome_prevalence').trim()}"` });
   }
-
-  let eValueEstimate: number | null = null;
-  let eValueInterval: number | null = null;
-  if (measure !== 'coef') {
-    const input: EValueInput = {
-      measure: measure as EffectMeasure,
-      estimate: estimate as number,
-      lower,
-      upper,
-      // With limits given, the SE is for the robustness value only.
-      se: lower === null && upper === null ? se : null,
-      level,
-      outcomePrevalence: prevalenceText as OutcomePrevalence | null,
-      sd,
-      target,
-    };
-    try {
-      const result = analyseEValue(input);
-      eValueEstimate = result.eValueEstimate;
-      eValueInterval = result.eValueInterval;
-    } catch (error) {
-      if (!(error instanceof InputError)) throw error;
-      problems.push(...error.problems.map((p) => `${columnOf(p.field)}: ${p.message}`));
-    }
-  }
-
-  let t: number | null = null;
-  let partialR2: number | null = null;
-  let rv: number | null = null;
-  let rvAlpha: number | null = null;
-  if (se !== null && df !== null) {
-    if (!(se > 0)) problems.push('se: must be positive');
-    else if (!(df > 1) || !Number.isFinite(df)) problems.push('df: must be more than 1');
-    else {
-      const onScale = measure === 'rr' || measure === 'or' || measure === 'hr' ? Math.log(estimate as number) : (estimate as number);
-      if (!Number.isFinite(onScale)) problems.push('estimate: a ratio must be positive for its t-statistic');
-      else {
-        t = onScale / se;
-        partialR2 = (t * t) / (t * t + df);
-        rv = robustnessValue(t, df, 1);
-        rvAlpha = robustnessValueAtLevel(t, df, 1, alpha);
-      }
-    }
-  } else if (measure === 'coef') {
-    problems.push('se and df: a regression coefficient needs both for its robustness value');
-  }
-  return Object.freeze({ ...base, eValueEstimate, eValueInterval, t, partialR2, rv, rvAlpha, problem: problems.join('; ') });
+  return Object.freeze({
+    row,
+    label,
+    measure,
+    ...empty,
+    estimate: result ? result.input.estimate : null,
+    lower: result?.interval?.lower ?? null,
+    upper: result?.interval?.upper ?? null,
+    eValueEstimate: result ? result.eValueEstimate : null,
+    eValueInterval: result ? result.eValueInterval : null,
+    problem: problemText(problems),
+  });
 }
 
-/** Input-object fields map to batch columns of the same name, except outcomePrevalence. */
-function columnOf(field: string): string {
-  return field === 'outcomePrevalence' ? 'outcome_prevalence' : field;
+function coefficientRow(cell: (column: BatchColumn) => string, row: number, label: string, alpha: number): BatchRow {
+  const form: OvbFormInputs = { ...emptyOvbForm(), source: 'reported', estimate: cell('estimate'), se: cell('se'), dfBy: 'df', df: cell('df'), alpha: String(alpha) };
+  const outcome = evaluateOvbForm(form, null);
+  const r = outcome.result;
+  const problems = outcome.problems.length > 0 && (cell('se').trim() === '' || cell('df').trim() === '')
+    ? [{ field: 'se and df', code: 'required', message: 'a regression coefficient needs both for its robustness value' } as InputProblem]
+    : outcome.problems;
+  return Object.freeze({
+    row,
+    label,
+    measure: 'coef',
+    estimate: r ? r.estimate : null,
+    lower: null,
+    upper: null,
+    se: r ? r.se : null,
+    df: r ? r.df : null,
+    eValueEstimate: null,
+    eValueInterval: null,
+    t: r ? r.t : null,
+    partialR2: r ? r.partialR2 : null,
+    rv: r ? r.rv : null,
+    rvAlpha: r ? r.rvAlpha : null,
+    problem: problemText(problems),
+  });
 }
+
+/** Problems of a row, each naming its column, joined by "; ". */
+function problemText(problems: readonly InputProblem[]): string {
+  const column = (field: string) => (field === 'outcomePrevalence' ? 'outcome_prevalence' : field);
+  return problems.map((p) => `${column(p.field)}: ${p.message.replace(/\.$/, '')}`).join('; ');
+}
+
+export { InputError };

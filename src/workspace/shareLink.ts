@@ -1,6 +1,7 @@
 import { inputProblem, type InputProblem } from '../core/inputProblem';
 import { APPRAISAL_VERSION, readAppraisal, type Appraisal, type CalculatorName } from './appraisal';
 import { crc32 } from '../data/crc32';
+import { methodById } from '../methods/registry';
 
 /**
  * Share links carry an appraisal's inputs in the URL fragment (never sent to any server by the browser):
@@ -9,19 +10,17 @@ import { crc32 } from '../data/crc32';
  */
 export const SHARE_PARAMETER = 'appraisal';
 
-/** Input fields that hold raw data rows (pasted numbers, file contents): a share link never carries them. */
-export const RAW_DATA_FIELDS: Readonly<Record<CalculatorName, readonly string[]>> = Object.freeze({
-  evalue: ['csvText', 'fileText', 'data'],
-  pairs: ['pasted', 'pastedText', 'csvText', 'fileText', 'data'],
-  regression: ['csvText', 'fileText', 'data', 'crossProducts'],
-});
+/** Input fields that hold raw data rows (pasted numbers): a share link never carries them. */
+export function rawDataFields(calculator: string): readonly string[] {
+  return methodById(calculator)?.form.rawDataFields ?? [];
+}
 
 /** The appraisal without raw data rows, as carried by a share link. */
 export function withoutRawData(appraisal: Appraisal): Appraisal {
   const calculators: Appraisal['calculators'] = {};
   for (const [name, entry] of Object.entries(appraisal.calculators) as [CalculatorName, NonNullable<Appraisal['calculators'][CalculatorName]>][]) {
     const inputs = { ...entry.inputs };
-    for (const key of RAW_DATA_FIELDS[name]) delete inputs[key];
+    for (const key of rawDataFields(name)) delete inputs[key];
     calculators[name] = { inputs, summary: entry.summary };
   }
   return { ...appraisal, calculators };

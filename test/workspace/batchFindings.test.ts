@@ -35,9 +35,10 @@ describe('appraiseBatchCsv', () => {
 
   it('keeps going past a bad row and says what is wrong with it, naming the column', () => {
     expect(result.rows[4].problem).toMatch(/^outcome_prevalence: /);
-    expect(result.rows[6].problem).toBe('estimate: "abc" is not a number');
+    // The same message as the page and the command line give for the same text (one number reader).
+    expect(result.rows[6].problem).toBe('estimate: must be a number, got "abc"');
     expect(result.rows[5].eValueEstimate).not.toBeNull();
-    expect(result.computed).toBe(4);
+    expect(result.computed).toBe(5); // four E-values and the coefficient's robustness values
     expect(result.withProblems).toBe(2);
   });
 

@@ -1,10 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { analyseEValue } from '../../src/core/eValueAnalysis';
-import { analysePairs } from '../../src/core/pairsAnalysis';
-import { analyseOvb } from '../../src/core/ovbAnalysis';
 import { createAppraisal, type Appraisal } from '../../src/workspace/appraisal';
-import { eValueSummary, ovbSummary, pairsSummary } from '../../src/workspace/calculatorSummaries';
-import { buildRobustnessStatement, latex, renderRobustnessStatement } from '../../src/workspace/robustnessStatement';
+import { buildRobustnessStatement, renderRobustnessStatement } from '../../src/workspace/robustnessStatement';
+import { escapeLatex as latex } from '../../src/format/markup';
+import { eValueSummary } from '../../src/methods/evalue/summary';
+import { analyseEValue } from '../../src/core/eValueAnalysis';
 import { buildBottomLine } from '../../src/workspace/bottomLine';
 import { readReferenceJson } from '../support/reference';
 
@@ -12,16 +11,17 @@ const rosenbaum = readReferenceJson('rosenbaum.json');
 const study = { finding: 'A fictional finding', exposure: 'cycling to work', outcome: 'blood pressure', units: 'mmHg', source: 'invented' };
 
 function appraisal(): Appraisal {
+  // The statement is written from the inputs as typed (never from a stored summary).
   // VanderWeele & Ding 2017 worked example: RR 3.9 (95% CI 1.8–8.7) → E-values 7.26 and 3.00
-  const e = analyseEValue({ measure: 'rr', estimate: 3.9, lower: 1.8, upper: 8.7 });
+  const e = { source: 'reported', measure: 'rr', estimate: '3.9', lower: '1.8', upper: '8.7' };
   // R 4.2.2 (rosenbaum.json, small_n15): signed-rank sensitivity value 1.6118… (exact), shown floored to 1.611
-  const p = analysePairs({ data: { kind: 'differences', differences: rosenbaum.datasets.small_n15.differences }, method: 'exact' });
+  const p = { source: 'pasted', pasted: rosenbaum.datasets.small_n15.differences.join('\n'), method: 'exact' };
   // Cinelli & Hazlett 2020 published example: t = 4.18, df = 783 → partial R² 2.2%, RV 13.9%, RV(α = 0.05) 7.6%
-  const r = analyseOvb({ estimate: 4.18, se: 1, df: 783 });
+  const r = { source: 'reported', estimate: '4.18', se: '1', df: '783' };
   return createAppraisal(study, {
-    evalue: { inputs: {}, summary: eValueSummary(e) },
-    pairs: { inputs: {}, summary: pairsSummary(p) },
-    regression: { inputs: {}, summary: ovbSummary(r) },
+    evalue: { inputs: e, summary: null },
+    pairs: { inputs: p, summary: null },
+    regression: { inputs: r, summary: null },
   });
 }
 
@@ -52,6 +52,19 @@ describe('buildRobustnessStatement', () => {
 
   it('never shows NaN, undefined or Infinity', () => {
     for (const format of ['md', 'tex', 'html'] as const) expect(renderRobustnessStatement(statement, format)).not.toMatch(/NaN|undefined|Infinity/);
+  });
+
+  it('is written from the inputs, never from a stale stored summary (empty forms say nothing)', () => {
+    // A summary left over from earlier work (RR 3.9 → 7.26) beside empty inputs must not reach the statement.
+    const stale = eValueSummary(analyseEValue({ measure: 'rr', estimate: 3.9, lower: 1.8, upper: 8.7 }));
+    const appraisalWithStale = createAppraisal(study, { evalue: { inputs: {}, summary: stale } });
+    expect(buildRobustnessStatement(appraisalWithStale).paragraphs.join(' ')).not.toContain('7.26');
+    expect(buildBottomLine(appraisalWithStale).empty).toBe(true);
+  });
+
+  it('lists the assumptions and conventions of the analyses shown', () => {
+    expect(statement.assumptions.length).toBeGreaterThan(0);
+    expect(renderRobustnessStatement(statement, 'md')).toContain('### Assumptions and conventions');
   });
 
   it('says when nothing has been computed', () => {
