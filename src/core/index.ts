@@ -24,6 +24,7 @@ export * from './binomialUpperTail';
 export * from './signTestBound';
 export * from './tippingGamma';
 export * from './walshAverages';
+export * from './decimalFraction';
 export * from './hodgesLehmannRange';
 export * from './amplification';
 export * from './pairsAnalysis';
