@@ -383,6 +383,11 @@ function buildResult(input: EValueInput, extraWarnings: readonly string[]): EVal
   });
 }
 
+/** A level as a percentage for prose: 0.95 → "95%", 0.9500001 → "95.00001%". */
+function levelText(level: number): string {
+  return `${Number((level * 100).toPrecision(12))}%`;
+}
+
 /** x, or 1/x when x < 1: the size of a ratio regardless of its direction. */
 function foldAtOne(x: number): number {
   return x >= 1 ? x : 1 / x;
@@ -402,7 +407,7 @@ function ignoredFieldWarnings(input: EValueInput): string[] {
 function conversionNote(kind: RiskRatioConversion, input: EValueInput, level: number): string {
   const seMultiplier = (measureText: string) =>
     isGiven(input.se)
-      ? ` The interval is exp(0.91·${measureText} ± m·SE) with m = ${level === 0.95 ? '1.78, the published value for 95%' : '0.91·z for the chosen level'}.`
+      ? ` The interval is exp(0.91·${measureText} ± 0.91·z·SE) with z = ${confidenceZ(level).toFixed(4)} for the ${levelText(level)} level${level === 0.95 ? ' (0.91·z = 1.7836, printed as 1.78 by VanderWeele & Ding 2017)' : ''}.`
       : '';
   switch (kind) {
     case 'none':
