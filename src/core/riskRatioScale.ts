@@ -37,7 +37,7 @@ export function nullValue(measure: EffectMeasure): number {
  * RR ≈ √OR, the square-root transform.
  *
  * **References.** VanderWeele TJ (2017). On a square-root transformation of the odds ratio for a common
- * outcome. Epidemiology 28(6):e58–e60. VanderWeele TJ, Ding P (2017). Sensitivity analysis in observational
+ * outcome. Epidemiology 28(6):e58–e60 (recalled from memory). VanderWeele TJ, Ding P (2017). Sensitivity analysis in observational
  * research: introducing the E-value. Annals of Internal Medicine 167(4):268–274, Table 2.
  *
  * **Special cases.** NaN or a negative ratio → NaN; 0 → 0; +Infinity → +Infinity.

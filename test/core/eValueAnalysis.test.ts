@@ -380,9 +380,40 @@ describe('analyseEValueFromCounts', () => {
     expect(validateEValueCountsInput({ counts: { a: 10, b: 90, c: 5, d: 95 }, measure: 'or' }).map((p) => p.field)).toEqual([
       'outcomePrevalence',
     ]);
-    // hand computation: OR = 19/9, common outcome → √(19/9)
-    const result = analyseEValueFromCounts({ counts: { a: 10, b: 90, c: 5, d: 95 }, measure: 'or', outcomePrevalence: 'common' });
+    // hand computation: OR = 19/9; a case-control table with a common outcome → √(19/9) (VanderWeele 2017, Epidemiology 28(6):e58–e60)
+    const result = analyseEValueFromCounts({ counts: { a: 10, b: 90, c: 5, d: 95 }, measure: 'or', outcomePrevalence: 'common', design: 'case-control' });
     expectClose(result.riskRatioScale.estimate, Math.sqrt(19 / 9), { rel: 1e-15 });
+    expect(result.design).toBe('case-control');
+    expect(result.table.measure).toBe('or');
+    expect(result.conventions.find((c) => c.id === 'study-design')!.text).toMatch(/only its odds ratio is meaningful/);
+    // rare outcome: the odds ratio is used as it is, whatever the design
+    const rare = analyseEValueFromCounts({ counts: { a: 10, b: 90, c: 5, d: 95 }, measure: 'or', outcomePrevalence: 'rare', design: 'case-control' });
+    expectClose(rare.riskRatioScale.estimate, 19 / 9, { rel: 1e-15 });
+  });
+
+  it('a cohort table with a common outcome uses its own risk ratio, not √OR of its odds ratio', () => {
+    // hand computation: RR = (10/100)/(5/100) = 2; √OR = √(19/9) = 1.453 would understate it
+    // (VanderWeele 2017: √OR approximates the risk ratio only when the risk ratio cannot be computed)
+    const result = analyseEValueFromCounts({ counts: { a: 10, b: 90, c: 5, d: 95 }, measure: 'or', outcomePrevalence: 'common' });
+    expect(result.design).toBe('cohort');
+    expect(result.requestedMeasure).toBe('or');
+    expect(result.measure).toBe('rr');
+    expect(result.table.measure).toBe('rr');
+    expectClose(result.riskRatioScale.estimate, 2, { rel: 1e-15 });
+    expectClose(result.eValueEstimate, 2 + Math.SQRT2, { rel: 1e-15 });
+    expect(result.warnings.join(' ')).toMatch(/own risk ratio was used rather than converting its odds ratio by √OR/);
+    expect(result.warnings.join(' ')).not.toMatch(/prevalence applies only/);
+    expect(result.conventions.find((c) => c.id === 'study-design')!.text).toMatch(/not the √OR approximation/);
+  });
+
+  it('a case-control table refuses the risk ratio, on the field design', () => {
+    const problems = validateEValueCountsInput({ counts: { a: 10, b: 90, c: 5, d: 95 }, measure: 'rr', design: 'case-control' });
+    expect(problems.map((p) => [p.field, p.code])).toEqual([['design', 'risk-ratio-case-control']]);
+    expect(problems[0].message).toMatch(/odds ratio/);
+    expect(() => analyseEValueFromCounts({ counts: { a: 10, b: 90, c: 5, d: 95 }, measure: 'rr', design: 'case-control' })).toThrow(InputError);
+    expect(validateEValueCountsInput({ counts: { a: 1, b: 2, c: 3, d: 4 }, measure: 'rr', design: 'trial' as never }).map((p) => [p.field, p.code])).toEqual([
+      ['design', 'unknown-choice'],
+    ]);
   });
 
   it('a zero cell carries the correction warning into the result', () => {
@@ -413,5 +444,35 @@ describe('non-mutation', () => {
     const tableInput = Object.freeze({ counts, measure: 'rr' } as const);
     analyseEValueFromCounts(tableInput);
     expect(counts).toEqual({ a: 0, b: 20, c: 5, d: 15 });
+  });
+});
+
+describe('analyseEValue: the direction of the target and the conventions', () => {
+  it('a target beyond the estimate refers to confounding that pushed the estimate toward the null', () => {
+    // VanderWeele & Ding 2017: E-values against a non-null true value; the direction is ours, stated in words
+    const beyond = analyseEValue({ measure: 'rr', estimate: 1.5, lower: 1.2, upper: 1.9, target: 2 });
+    expect(beyond.targetDirection).toBe('away-from-null');
+    expect(beyond.conventions.find((c) => c.id === 'target-direction')!.text).toMatch(/pushed the estimate toward the null/);
+    const between = analyseEValue({ measure: 'rr', estimate: 2, lower: 1.5, upper: 2.6, target: 1.2 });
+    expect(between.targetDirection).toBe('toward-null');
+    expect(between.conventions.find((c) => c.id === 'target-direction')!.text).toMatch(/pushed the estimate away from the null/);
+    expect(analyseEValue({ measure: 'rr', estimate: 0.5 }).targetDirection).toBe('toward-null');
+    expect(analyseEValue({ measure: 'rr', estimate: 0.8, target: 0.5 }).targetDirection).toBe('away-from-null');
+    expect(analyseEValue({ measure: 'rr', estimate: 1, target: 1.5 }).targetDirection).toBe('away-from-null');
+    expect(analyseEValue({ measure: 'rr', estimate: 2, target: 0.5 }).targetDirection).toBe('toward-null');
+    const at = analyseEValue({ measure: 'rr', estimate: 1.5, target: 1.5 });
+    expect(at.targetDirection).toBeNull();
+    expect(at.conventions.map((c) => c.id)).not.toContain('target-direction');
+  });
+
+  it('names the conversion conventions: 0.91·d with 0.91·z·SE, √OR for a common outcome', () => {
+    const smd = analyseEValue({ measure: 'smd', estimate: 0.5, se: 0.1 });
+    expect(smd.conventions.map((c) => c.id)).toEqual(['confounder-strength', 'interval-limit', 'target-direction', 'standardized-mean-difference']);
+    expect(smd.conventions[3].text).toMatch(/exp\(0\.91·d\).*0\.91·z·SE\) at every level/);
+    const or = analyseEValue({ measure: 'or', estimate: 2.5, lower: 1.6, upper: 3.9, outcomePrevalence: 'common' });
+    expect(or.conventions.find((c) => c.id === 'odds-ratio-square-root')!.text).toMatch(/RR ≈ √OR/);
+    expect(or.references.join(' ')).toMatch(/square-root transformation of the odds ratio.*Epidemiology 28\(6\):e58–e60/);
+    expect(Object.isFrozen(or.conventions)).toBe(true);
+    for (const r of [smd, or]) for (const c of r.conventions) expect(c.text).not.toMatch(/NaN|undefined|Infinity/);
   });
 });
