@@ -33,6 +33,12 @@ export interface AdjustedEstimate {
   readonly t: number;
   /** df − 1: the regression that includes Z has one more coefficient. */
   readonly df: number;
+  /**
+   * Whether the adjusted t is a finite number. False when R²yz = 1 (the confounder explains all of the
+   * outcome's residual variance: adjusted se 0) or R²dz = 1, or for invalid input: say in words that the
+   * adjusted t is not available rather than showing it.
+   */
+  readonly tAvailable: boolean;
 }
 
 /**
@@ -76,7 +82,7 @@ export function omittedVariableBias(se: number, df: number, strength: Confounder
  *
  * **Special cases.** Any NaN, se < 0, df ≤ 1, or partial R² outside [0, 1] → every field NaN. R²dz = 1 →
  * infinite bias (estimate ∓Infinity, se Infinity·0 → NaN when R²yz = 1). R²yz = 1 (and R²dz < 1) → se 0 and
- * t = ±Infinity (NaN if the adjusted estimate is exactly 0).
+ * t = ±Infinity (NaN if the adjusted estimate is exactly 0); `tAvailable` is false in all these cases.
  *
  * @param reported the estimate, its se and df (df > 1)
  * @param strength the confounder's R²dz and R²yz, each in [0, 1]
@@ -90,14 +96,15 @@ export function adjustForConfounder(
   const { estimate, se, df } = reported;
   const { r2dz, r2yz } = strength;
   if (!Number.isFinite(estimate) || !(se >= 0) || !(df > 1) || !inUnit(r2dz) || !inUnit(r2yz)) {
-    return { bias: NaN, estimate: NaN, se: NaN, t: NaN, df: NaN };
+    return { bias: NaN, estimate: NaN, se: NaN, t: NaN, df: NaN, tAvailable: false };
   }
   const bias = omittedVariableBias(se, df, strength);
   const sign = estimate < 0 ? -1 : 1;
   const magnitude = direction === 'toward-zero' ? Math.abs(estimate) - bias : Math.abs(estimate) + bias;
   const adjustedEstimate = sign * magnitude;
   const adjustedSe = se * Math.sqrt((1 - r2yz) / (1 - r2dz)) * Math.sqrt(df / (df - 1));
-  return { bias, estimate: adjustedEstimate, se: adjustedSe, t: adjustedEstimate / adjustedSe, df: df - 1 };
+  const t = adjustedEstimate / adjustedSe;
+  return { bias, estimate: adjustedEstimate, se: adjustedSe, t, df: df - 1, tAvailable: Number.isFinite(t) && adjustedSe > 0 };
 }
 
 function inUnit(x: number): boolean {

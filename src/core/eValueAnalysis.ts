@@ -3,6 +3,7 @@ import { eValue, intervalEValue } from './eValue';
 import type { IntervalLimitUsed } from './eValue';
 import type { InputProblem } from './inputProblem';
 import { inputProblem, throwIfProblems } from './inputProblem';
+import { conventionList, type AnalysisConvention } from './analysisConvention';
 import {
   EFFECT_MEASURES,
   EFFECT_MEASURE_NAMES,
@@ -76,13 +77,38 @@ export interface EValueResult {
   readonly ratioToTarget: number;
   /** The same for the interval limit used (1 when the interval contains the target), or null. */
   readonly intervalRatioToTarget: number | null;
+  /**
+   * Where the target lies as seen from the estimate: `toward-null` when moving the estimate to the target
+   * brings it toward (or past) the null, so the E-values refer to confounding that pushed the estimate away
+   * from the null (the usual case, including target = null); `away-from-null` when the target lies beyond the
+   * estimate, farther from the null, so the E-values refer to confounding that pushed the estimate toward the
+   * null (hiding a larger effect); null when the estimate is at the target.
+   */
+  readonly targetDirection: 'toward-null' | 'away-from-null' | null;
+  /** Every convention this analysis follows, in plain words. */
+  readonly conventions: readonly AnalysisConvention[];
   readonly warnings: readonly string[];
 }
+
+/**
+ * How the 2×2 table was sampled. `cohort` (or a trial, or a cross-sectional sample): exposure groups followed
+ * up, so the table gives risks and the risk ratio directly. `case-control`: sampled by outcome, so only the
+ * odds ratio is meaningful.
+ */
+export type StudyDesign = 'cohort' | 'case-control';
+
+export const STUDY_DESIGNS: readonly StudyDesign[] = Object.freeze(['cohort', 'case-control']);
 
 /** A 2×2 table of counts as the source of the estimate. */
 export interface EValueCountsInput {
   readonly counts: TwoByTwoCounts;
   readonly measure: TwoByTwoMeasure;
+  /**
+   * How the table was sampled; default `cohort`. A cohort table with a common outcome analysed on the
+   * odds-ratio scale uses the table's own risk ratio (no √OR approximation); a case-control table allows only
+   * the odds ratio.
+   */
+  readonly design?: StudyDesign | null;
   readonly level?: number | null;
   /** Required for an odds ratio. */
   readonly outcomePrevalence?: OutcomePrevalence | null;
@@ -91,7 +117,12 @@ export interface EValueCountsInput {
 
 /** The analysis of a 2×2 table: the E-value result plus the table's ratio and interval. */
 export interface EValueCountsResult extends EValueResult {
+  /** The ratio actually analysed, with its interval (the risk ratio for a cohort table with a common outcome). */
   readonly table: TwoByTwoEstimate;
+  /** The design as given (default `cohort`). */
+  readonly design: StudyDesign;
+  /** The measure asked for in the input (may differ from `measure` when a cohort table's risk ratio was used). */
+  readonly requestedMeasure: TwoByTwoMeasure;
 }
 
 const DEFAULT_LEVEL = 0.95;
@@ -103,9 +134,13 @@ export const E_VALUE_REFERENCES: readonly string[] = Object.freeze([
 
 const CONVERSION_REFERENCES: Partial<Record<RiskRatioConversion, string>> = {
   'odds-ratio-square-root':
-    'VanderWeele TJ (2017). On a square-root transformation of the odds ratio for a common outcome. Epidemiology 28(6):e58–e60.',
+    'VanderWeele TJ (2017). On a square-root transformation of the odds ratio for a common outcome. Epidemiology 28(6):e58–e60 (recalled from memory).',
   'hazard-ratio-common-outcome':
     'VanderWeele TJ (2020). Optimal approximate conversions of odds ratios and hazard ratios to risk ratios. Biometrics 76(3):746–752.',
+  'standardized-mean-difference':
+    'Hasselblad V, Hedges LV (1995). Meta-analysis of screening and diagnostic tests. Psychological Bulletin 117(1):167–178 (the logistic approximation behind 0.91·d; recalled from memory).',
+  'mean-difference-via-sd':
+    'Hasselblad V, Hedges LV (1995). Meta-analysis of screening and diagnostic tests. Psychological Bulletin 117(1):167–178 (the logistic approximation behind 0.91·d; recalled from memory).',
 };
 
 const MEASURE_NAMES = EFFECT_MEASURE_NAMES;
@@ -236,7 +271,10 @@ export function analyseEValue(input: EValueInput): EValueResult {
   return buildResult(input, []);
 }
 
-/** Checks a 2×2-table input: the counts, the measure, the level, the prevalence (odds ratio) and the target. */
+/**
+ * Checks a 2×2-table input: the counts, the measure, the design (a case-control table cannot give a risk
+ * ratio), the level, the prevalence (odds ratio) and the target.
+ */
 export function validateEValueCountsInput(input: EValueCountsInput): InputProblem[] {
   if (input === null || typeof input !== 'object') {
     return [inputProblem('input', 'required', 'needs an object with counts and measure', input)];
@@ -245,6 +283,18 @@ export function validateEValueCountsInput(input: EValueCountsInput): InputProble
   if (input.measure !== 'rr' && input.measure !== 'or') {
     problems.push(inputProblem('measure', 'unknown-choice', 'must be rr or or for a table of counts', input.measure));
     return problems;
+  }
+  if (isGiven(input.design) && !STUDY_DESIGNS.includes(input.design as StudyDesign)) {
+    problems.push(inputProblem('design', 'unknown-choice', 'must be cohort or case-control', input.design));
+  } else if (input.design === 'case-control' && input.measure === 'rr') {
+    problems.push(
+      inputProblem(
+        'design',
+        'risk-ratio-case-control',
+        'a case-control table is sampled by outcome, so its risk ratio means nothing: analyse its odds ratio (measure or) instead',
+        input.design,
+      ),
+    );
   }
   // The remaining fields follow the rules of a reported estimate; the estimate itself comes from the table.
   const reportedProblems = validateEValueInput({
@@ -261,29 +311,66 @@ export function validateEValueCountsInput(input: EValueCountsInput): InputProble
  * The E-value analysis of a 2×2 table: the risk ratio or odds ratio with its log-scale Wald interval
  * ({@link twoByTwoRatio}, 0.5 added to every cell when one is zero, with a warning), then {@link analyseEValue}.
  *
+ * **Method.** The design decides the measure. A cohort table gives risks, hence the risk ratio directly: asked
+ * for its odds ratio with a common outcome, the analysis uses the table's own risk ratio instead of the √OR
+ * approximation (said in a warning and in the conventions); with a rare outcome the odds ratio is used as a
+ * risk ratio. A case-control table gives only the odds ratio (measure `rr` is refused): rare outcome → OR ≈ RR,
+ * common → RR ≈ √OR.
+ *
+ * **References.** VanderWeele TJ, Ding P (2017), Ann Intern Med 167(4):268–274; VanderWeele TJ (2017), On a
+ * square-root transformation of the odds ratio for a common outcome, Epidemiology 28(6):e58–e60 (recalled
+ * from memory); Rothman KJ, Greenland S, Lash TL (2008) Modern Epidemiology, 3rd ed., ch. 14 (the table's
+ * ratios and Wald intervals).
+ *
+ * **Special cases.** As {@link analyseEValue}; an unbounded interval (e.g. a single event) is refused on `counts`.
+ *
  * @throws InputError carrying every problem found by {@link validateEValueCountsInput}
  */
 export function analyseEValueFromCounts(input: EValueCountsInput): EValueCountsResult {
   throwIfProblems(validateEValueCountsInput(input));
   const level = input.level ?? DEFAULT_LEVEL;
-  const table = twoByTwoRatio(input.counts, input.measure, level);
+  const design: StudyDesign = (input.design as StudyDesign | null | undefined) ?? 'cohort';
+  const useCohortRiskRatio = design === 'cohort' && input.measure === 'or' && input.outcomePrevalence === 'common';
+  const measure: TwoByTwoMeasure = useCohortRiskRatio ? 'rr' : input.measure;
+  const table = twoByTwoRatio(input.counts, measure, level);
   const reported: EValueInput = {
-    measure: input.measure,
+    measure,
     estimate: table.estimate,
     lower: table.lower,
     upper: table.upper,
     level,
-    outcomePrevalence: input.outcomePrevalence ?? null,
-    target: input.target ?? null,
+    outcomePrevalence: useCohortRiskRatio ? null : (input.outcomePrevalence ?? null),
+    target: useCohortRiskRatio && isGiven(input.target) ? Math.sqrt(input.target as number) : (input.target ?? null),
   };
   // A table's interval can be unbounded (e.g. a single event); check it like a reported one.
   throwIfProblems(validateEValueInput(reported).map((p) => ({ ...p, field: 'counts' })));
-  const result = buildResult(reported, table.warnings);
+  const extraWarnings = [...table.warnings];
+  if (useCohortRiskRatio) {
+    extraWarnings.push(
+      'A cohort table gives the risk ratio directly, so with a common outcome its own risk ratio was used rather than converting its odds ratio by √OR (an approximation for when the risk ratio is not available).' +
+        (isGiven(input.target) ? ' The target odds ratio was put on the risk-ratio scale by its square root.' : ''),
+    );
+  }
+  const result = buildResult(reported, extraWarnings);
+  const conventions = conventionList();
+  for (const c of result.conventions) conventions.add(c.id, c.text);
+  conventions.add(
+    'study-design',
+    design === 'cohort'
+      ? useCohortRiskRatio
+        ? 'The table is from a cohort (exposure groups followed up), so it gives risks: with a common outcome the table’s own risk ratio is used, not the √OR approximation.'
+        : 'The table is from a cohort (exposure groups followed up), so it gives risks and the risk ratio directly.'
+      : 'The table is from a case-control study (sampled by outcome), so only its odds ratio is meaningful; it is put on the risk-ratio scale as the outcome is rare (OR ≈ RR) or common (RR ≈ √OR).',
+  );
+  conventions.add('table-interval', 'The interval is the log-scale Wald interval of the table’s ratio; when a cell is zero, 0.5 is added to every cell.');
   return Object.freeze({
     ...result,
-    method: `${MEASURE_NAMES[input.measure]} from a 2×2 table with a log-scale Wald interval; then ${result.method}`,
+    method: `${MEASURE_NAMES[measure]} from a 2×2 table (${design}) with a log-scale Wald interval; then ${result.method}`,
     references: Object.freeze([...result.references, TWO_BY_TWO_REFERENCE]),
     table,
+    design,
+    requestedMeasure: input.measure,
+    conventions: conventions.list(),
   });
 }
 
@@ -354,6 +441,7 @@ function buildResult(input: EValueInput, extraWarnings: readonly string[]): EVal
   const references = [...E_VALUE_REFERENCES];
   const conversionReference = CONVERSION_REFERENCES[kind];
   if (conversionReference) references.push(conversionReference);
+  const targetDirection = directionOfTarget(rrEstimate, rrTarget);
 
   return Object.freeze({
     method: `E-value for the ${MEASURE_NAMES[measure]}${kind === 'none' ? '' : ' converted to the risk-ratio scale'}, against ${targetIsNull ? 'the null' : 'a named target'}`,
@@ -379,8 +467,84 @@ function buildResult(input: EValueInput, extraWarnings: readonly string[]): EVal
     direction: rrEstimate > rrTarget ? 'above-target' : rrEstimate < rrTarget ? 'below-target' : 'at-target',
     ratioToTarget,
     intervalRatioToTarget,
+    targetDirection,
+    conventions: eValueConventions(kind, targetDirection, targetIsNull, isGiven(input.se)),
     warnings: Object.freeze(warnings),
   });
+}
+
+/**
+ * Where the target lies as seen from the estimate, on the log-risk-ratio scale (e = log estimate, t = log
+ * target): `away-from-null` when t is on the same side of the null as e (or e is the null) and |t| > |e|;
+ * `toward-null` otherwise (the target between the estimate and the null, at the null, or past it); null at
+ * the target.
+ */
+function directionOfTarget(rrEstimate: number, rrTarget: number): 'toward-null' | 'away-from-null' | null {
+  const e = Math.log(rrEstimate);
+  const t = Math.log(rrTarget);
+  if (e === t) return null;
+  const sameSide = e === 0 || Math.sign(e) === Math.sign(t);
+  return sameSide && Math.abs(t) > Math.abs(e) ? 'away-from-null' : 'toward-null';
+}
+
+/** The conventions of an E-value analysis, in plain words (frozen). */
+function eValueConventions(
+  kind: RiskRatioConversion,
+  targetDirection: 'toward-null' | 'away-from-null' | null,
+  targetIsNull: boolean,
+  fromSe: boolean,
+): readonly AnalysisConvention[] {
+  const c = conventionList();
+  c.add(
+    'confounder-strength',
+    'The E-value is the smallest strength of association, on the risk-ratio scale, that an unmeasured confounder would need with both the treatment and the outcome (beyond the measured covariates) to move the estimate to the target.',
+  );
+  c.add('interval-limit', 'The interval E-value uses the limit nearer the target; when the interval contains the target (a limit equal to it counts), it is 1.');
+  if (targetDirection === 'away-from-null') {
+    c.add(
+      'target-direction',
+      'The target lies beyond the estimate, farther from the null: the E-values refer to confounding that pushed the estimate toward the null (hiding a larger effect).',
+    );
+  } else if (targetDirection === 'toward-null') {
+    c.add(
+      'target-direction',
+      targetIsNull
+        ? 'The target is the null: the E-values refer to confounding that pushed the estimate away from the null.'
+        : 'The target lies between the estimate and the null (or past the null): the E-values refer to confounding that pushed the estimate away from the null.',
+    );
+  }
+  switch (kind) {
+    case 'odds-ratio-rare-outcome':
+      c.add('rare-outcome', 'With a rare outcome (under about 15%) the odds ratio is used as a risk ratio.');
+      break;
+    case 'odds-ratio-square-root':
+      c.add('odds-ratio-square-root', 'With a common outcome the odds ratio is put on the risk-ratio scale by its square root, RR ≈ √OR (VanderWeele 2017), for the estimate, the limits and the target alike.');
+      break;
+    case 'hazard-ratio-rare-outcome':
+      c.add('rare-outcome', 'With a rare outcome (under about 15%) the hazard ratio is used as a risk ratio.');
+      break;
+    case 'hazard-ratio-common-outcome':
+      c.add('hazard-ratio-common-outcome', 'With a common outcome the hazard ratio is converted by RR ≈ (1 − 0.5^√HR)/(1 − 0.5^√(1/HR)) (VanderWeele 2020).');
+      break;
+    case 'standardized-mean-difference':
+    case 'mean-difference-via-sd':
+      c.add(
+        'standardized-mean-difference',
+        (kind === 'mean-difference-via-sd' ? 'The mean difference is divided by the outcome’s SD to give d; then ' : 'The standardized mean difference d is ') +
+          (kind === 'mean-difference-via-sd' ? 'it is ' : '') +
+          'put on the risk-ratio scale by RR ≈ exp(0.91·d) (VanderWeele & Ding 2017)' +
+          (fromSe ? ', and its interval by exp(0.91·d ± 0.91·z·SE) at every level (0.91·1.96 ≈ 1.78 at 95%).' : '.'),
+      );
+      break;
+    case 'none':
+      break;
+  }
+  return c.list();
+}
+
+/** A level as a percentage for prose: 0.95 → "95%", 0.9500001 → "95.00001%". */
+function levelText(level: number): string {
+  return `${Number((level * 100).toPrecision(12))}%`;
 }
 
 /** x, or 1/x when x < 1: the size of a ratio regardless of its direction. */
@@ -402,7 +566,7 @@ function ignoredFieldWarnings(input: EValueInput): string[] {
 function conversionNote(kind: RiskRatioConversion, input: EValueInput, level: number): string {
   const seMultiplier = (measureText: string) =>
     isGiven(input.se)
-      ? ` The interval is exp(0.91·${measureText} ± m·SE) with m = ${level === 0.95 ? '1.78, the published value for 95%' : '0.91·z for the chosen level'}.`
+      ? ` The interval is exp(0.91·${measureText} ± 0.91·z·SE) with z = ${confidenceZ(level).toFixed(4)} for the ${levelText(level)} level${level === 0.95 ? ' (0.91·z = 1.7836, printed as 1.78 by VanderWeele & Ding 2017)' : ''}.`
       : '';
   switch (kind) {
     case 'none':

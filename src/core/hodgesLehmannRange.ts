@@ -1,5 +1,6 @@
 import type { TailMethod } from './signedRankBound';
 import { biasProbabilities, boundingLowerTailTable } from './signedRankBound';
+import { decimalFraction } from './decimalFraction';
 import { upperNormalQuantile } from './upperNormalTail';
 import { walshMean, type WalshAverages } from './walshAverages';
 
@@ -28,7 +29,10 @@ export interface EffectUnderBias {
  * T(τ) = #{Walsh averages > τ} (Tukey's identity), a non-increasing step function. Under bias at most Γ its
  * expectation lies between μ⁻ = N/(1 + Γ) and μ⁺ = N·Γ/(1 + Γ), N = n(n + 1)/2. The estimate range is
  * [τ̂(μ⁺), τ̂(μ⁻)] with τ̂(μ) = ½(sup{τ: T(τ) > μ} + inf{τ: T(τ) < μ}), i.e. the average of the ⌈μ⌉-th and
- * (⌊μ⌋ + 1)-th largest Walsh averages; at Γ = 1 this is the median of the Walsh averages. The sensitivity
+ * (⌊μ⌋ + 1)-th largest Walsh averages; at Γ = 1 this is the median of the Walsh averages. Whether μ is a
+ * whole number decides between one Walsh average and the mean of two, so ⌊μ⌋ and ⌈μ⌉ are decided exactly
+ * ({@link biasedExpectationParts}: Γ taken as the decimal it prints as, integer arithmetic), never from a
+ * floating-point μ such as 820/2.05 = 400.00000000000006. The sensitivity
  * interval keeps every τ that neither one-sided bounding test rejects at level α/2: with c the smallest
  * integer such that P(Σᵢ i·Bᵢ ≥ c) ≤ α/2, Bᵢ ~ Bernoulli(Γ/(1 + Γ)), the interval runs from the c-th largest
  * to the c-th smallest Walsh average. c comes from the exact bounding distribution (one dynamic program per
@@ -74,13 +78,14 @@ export function effectUnderBias(
   if (Number.isNaN(gamma) || !(alpha > 0 && alpha < 1) || N === 0) return nan;
 
   const kthLargest = (k: number) => walsh.smallest(N - k + 1);
-  const estimateAt = (mu: number) => {
-    const a = kthLargest(Math.ceil(mu));
-    const b = Math.floor(mu) + 1 > N ? -Infinity : kthLargest(Math.floor(mu) + 1);
+  const estimateAt = (mu: WholePart) => {
+    const a = kthLargest(mu.ceil);
+    const b = mu.floor + 1 > N ? -Infinity : kthLargest(mu.floor + 1);
     return walshMean(a, b);
   };
-  const estimateLow = estimateAt(plus * N);
-  const estimateHigh = estimateAt(minus * N);
+  const expectations = biasedExpectationParts(N, gamma);
+  const estimateLow = estimateAt(expectations.plus);
+  const estimateHigh = estimateAt(expectations.minus);
 
   const c =
     options.criticalValue ??
@@ -148,4 +153,41 @@ export function normalCriticalValue(n: number, p: number, q: number, level: numb
   const sd = Math.sqrt(p * q * ((n * (n + 1) * (2 * n + 1)) / 6));
   const c = Math.ceil(mean + (continuityCorrection ? 0.5 : 0) + upperNormalQuantile(level) * sd - 1e-9);
   return Math.min(Math.max(c, 0), N + 1);
+}
+
+/** ⌊μ⌋ and ⌈μ⌉ of an expectation μ. */
+export interface WholePart {
+  readonly floor: number;
+  readonly ceil: number;
+}
+
+/**
+ * ⌊μ⌋ and ⌈μ⌉ of μ⁺ = N·Γ/(1 + Γ) and μ⁻ = N/(1 + Γ), decided exactly.
+ *
+ * **Method.** Γ is taken as the decimal number it prints as ({@link decimalFraction}: Γ = p/q), so
+ * μ⁺ = N·p/(p + q) and μ⁻ = N·q/(p + q); the floor is the BigInt quotient and the ceiling adds one when the
+ * remainder is not 0. This is the same as finding the largest k with (1 + Γ)·k ≤ Γ·N (respectively ≤ N) in
+ * exact rational arithmetic.
+ *
+ * **References.** Rosenbaum PR (1993) Hodges–Lehmann point estimates of treatment effect in observational
+ * studies. JASA 88(424):1250–1253 (the estimate at the expectations μ⁺ and μ⁻).
+ *
+ * **Special cases.** Γ = Infinity → μ⁺ = N, μ⁻ = 0. NaN or Γ < 0 → NaN parts.
+ *
+ * @param count N, a whole number ≥ 0 (the number of Walsh averages, n(n + 1)/2)
+ * @param gamma Γ ≥ 1
+ */
+export function biasedExpectationParts(count: number, gamma: number): { plus: WholePart; minus: WholePart } {
+  const nan = { floor: NaN, ceil: NaN };
+  if (gamma === Infinity) return { plus: { floor: count, ceil: count }, minus: { floor: 0, ceil: 0 } };
+  const fraction = decimalFraction(gamma);
+  if (!fraction || !Number.isInteger(count) || count < 0) return { plus: nan, minus: nan };
+  const N = BigInt(count);
+  const total = fraction.numerator + fraction.denominator;
+  const parts = (numerator: bigint): WholePart => {
+    const scaled = N * numerator;
+    const floor = scaled / total;
+    return { floor: Number(floor), ceil: Number(floor + (scaled % total === 0n ? 0n : 1n)) };
+  };
+  return { plus: parts(fraction.numerator), minus: parts(fraction.denominator) };
 }

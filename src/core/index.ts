@@ -1,5 +1,6 @@
 // The numerical core of Lurk: pure functions, no DOM, no I/O. One concept per file.
 export * from './inputProblem';
+export * from './analysisConvention';
 export * from './streamingQr';
 export * from './linearModel';
 export * from './confidenceZ';
@@ -24,6 +25,7 @@ export * from './binomialUpperTail';
 export * from './signTestBound';
 export * from './tippingGamma';
 export * from './walshAverages';
+export * from './decimalFraction';
 export * from './hodgesLehmannRange';
 export * from './amplification';
 export * from './pairsAnalysis';

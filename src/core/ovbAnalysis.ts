@@ -1,8 +1,10 @@
 import { type InputProblem, inputProblem, throwIfProblems } from './inputProblem';
+import { conventionList, type AnalysisConvention } from './analysisConvention';
 import { partialR2FromT } from './linearModel';
 import { robustnessValue, robustnessValueAtLevel, criticalF } from './robustnessValue';
 import { type BiasDirection, type ConfounderStrength, adjustForConfounder } from './confounderAdjustment';
-import { benchmarkBound } from './benchmarkBounds';
+import { benchmarkBound, CAPPED_BOUND_REASON } from './benchmarkBounds';
+import { omittedVariableBias } from './confounderAdjustment';
 import { estimateBoundaryR2dz } from './flipBoundary';
 
 /** An observed covariate (or group of covariates) used as a yardstick for the hidden confounder. */
@@ -37,12 +39,31 @@ export interface OvbInput {
   readonly alpha?: number;
   /** Which way the confounder moves the estimate (default `toward-zero`). */
   readonly direction?: BiasDirection;
-  /** Multiples k for the benchmark bounds (default 1, 2, 3). */
+  /**
+   * Multiples k for the benchmark bounds (default 1, 2, 3): the confounder is k_D = k times as strongly
+   * associated with the treatment as the covariate, and k_Y = k times with the outcome unless `kOutcome` says
+   * otherwise.
+   */
   readonly k?: readonly number[];
+  /**
+   * Outcome-side multiples k_Y, one per entry of `k` (same length; k then gives k_D). Default: k_Y = k_D.
+   */
+  readonly kOutcome?: readonly number[];
+  /**
+   * How the reported standard error was computed. The bias and adjusted-SE formulas assume the classical OLS
+   * standard error; `robust`, `clustered` or `unknown` give a warning (the adjusted standard error and t are
+   * then wrong, the adjusted estimate is not). Default `classical`.
+   */
+  readonly seKind?: StandardErrorKind;
   readonly benchmarks?: readonly OvbBenchmarkInput[];
   /** A confounder strength to evaluate (e.g. chosen on the plot). */
   readonly scenario?: ConfounderStrength;
 }
+
+/** How a regression's standard error was computed. */
+export type StandardErrorKind = 'classical' | 'robust' | 'clustered' | 'unknown';
+
+export const STANDARD_ERROR_KINDS: readonly StandardErrorKind[] = Object.freeze(['classical', 'robust', 'clustered', 'unknown']);
 
 /** The estimate adjusted for one confounder strength. */
 export interface OvbAdjustedRow {
@@ -58,13 +79,25 @@ export interface OvbAdjustedRow {
 /** One benchmark bound: a confounder k times as strong as the covariate. NaN fields when unavailable. */
 export interface OvbBenchmarkRow extends OvbAdjustedRow {
   readonly covariate: string;
+  /** k_D, the treatment-side multiple (the k of the input). */
   readonly k: number;
+  /** k_D again, named for its side. */
+  readonly kTreatment: number;
+  /** k_Y, the outcome-side multiple (equal to k unless `kOutcome` was given). */
+  readonly kOutcome: number;
   readonly r2dxj: number;
   readonly r2yxj: number;
   /** R²yz was capped at 1. */
   readonly capped: boolean;
   /** Null when available; otherwise why not. */
   readonly unavailable: string | null;
+  /**
+   * False when the bound is not available, or reaches 100% of the outcome's residual variance (R²yz capped at
+   * 1: adjusted SE 0, adjusted t not available); a report should then say so in words instead of numbers.
+   */
+  readonly informative: boolean;
+  /** Null when informative; otherwise why not, in plain words. */
+  readonly reason: string | null;
 }
 
 /** The extreme scenario: the confounder explains this share of the outcome's residual variance. */
@@ -95,9 +128,21 @@ export interface OvbResult {
   /** (1 − q)·estimate: the value the confounder is asked to bring the estimate to. */
   readonly threshold: number;
   readonly k: readonly number[];
+  /** The outcome-side multiples k_Y, one per entry of `k` (equal to `k` unless given separately). */
+  readonly kOutcome: readonly number[];
   readonly benchmarks: readonly OvbBenchmarkRow[];
+  /**
+   * The strongest measured covariate, by one rule: among the benchmarks with an available bound at
+   * k_D = k_Y = 1, the one whose bound gives the largest |bias| (se·√df·√(R²yz·R²dz/(1 − R²dz))); ties broken by
+   * name (code-unit order). Null when no benchmark has such a bound.
+   */
+  readonly strongestCovariate: string | null;
   readonly extremeScenarios: readonly OvbExtremeScenario[];
   readonly scenario: OvbAdjustedRow | null;
+  /** How the reported standard error was computed (as given; default `classical`). */
+  readonly seKind: StandardErrorKind;
+  /** Every convention this analysis follows, in plain words. */
+  readonly conventions: readonly AnalysisConvention[];
   readonly warnings: readonly string[];
 }
 
@@ -112,13 +157,18 @@ export const OVB_REFERENCES: readonly string[] = Object.freeze([
   'Cinelli C, Hazlett C (2020). Making sense of sensitivity: extending omitted variable bias. Journal of the Royal Statistical Society, Series B 82(1):39–67.',
 ]);
 
+/** The rule that names the strongest measured covariate (also in the result's conventions). */
+export const STRONGEST_COVARIATE_RULE =
+  'The strongest measured covariate is the benchmark whose bound at k_D = k_Y = 1 (a confounder as strong as that covariate) gives the largest bias; ties are broken by name.';
+
 export const DEFAULT_BENCHMARK_MULTIPLES: readonly number[] = Object.freeze([1, 2, 3]);
 /** The outcome shares of the extreme-scenario plot (all, three quarters, half of the residual variance). */
 export const EXTREME_SCENARIO_R2YZ: readonly number[] = Object.freeze([1, 0.75, 0.5]);
 
 /**
  * Checks the input of {@link analyseOvb}; returns every problem (empty when valid).
- * Fields: estimate, se, df, n, parameters, q, alpha, direction, k[i], scenario.r2dz, scenario.r2yz,
+ * Fields: estimate, se, df, n, parameters, q, alpha, direction, k[i], kOutcome / kOutcome[i], seKind,
+ * scenario.r2dz, scenario.r2yz,
  * benchmarks[i].covariate/r2yxj/outcomeT/r2dxj/treatmentT.
  */
 export function validateOvbInput(input: OvbInput): InputProblem[] {
@@ -177,6 +227,21 @@ export function validateOvbInput(input: OvbInput): InputProblem[] {
   (input.k ?? []).forEach((k, i) => {
     if (finite(`k[${i}]`, k) && !(k > 0)) problems.push(inputProblem(`k[${i}]`, 'not-positive', 'must be greater than 0.', k));
   });
+  if (input.kOutcome !== undefined) {
+    const kLength = (input.k ?? DEFAULT_BENCHMARK_MULTIPLES).length;
+    if (!Array.isArray(input.kOutcome) || input.kOutcome.length !== kLength) {
+      problems.push(
+        inputProblem('kOutcome', 'unequal-length', `needs one outcome-side multiple per treatment-side multiple k (${kLength}).`, input.kOutcome),
+      );
+    } else {
+      input.kOutcome.forEach((k, i) => {
+        if (finite(`kOutcome[${i}]`, k) && !(k > 0)) problems.push(inputProblem(`kOutcome[${i}]`, 'not-positive', 'must be greater than 0.', k));
+      });
+    }
+  }
+  if (input.seKind !== undefined && !STANDARD_ERROR_KINDS.includes(input.seKind)) {
+    problems.push(inputProblem('seKind', 'not-a-choice', 'must be classical, robust, clustered or unknown.', input.seKind));
+  }
   if (input.scenario !== undefined) {
     partialR2Problem(problems, 'scenario.r2dz', input.scenario.r2dz);
     partialR2Problem(problems, 'scenario.r2yz', input.scenario.r2yz);
@@ -217,12 +282,14 @@ export function validateOvbInput(input: OvbInput): InputProblem[] {
  * **Method.** R²(Y~D|X) = t²/(t² + df) with t = estimate/se; RV_q and RV_{q,α} in closed form
  * ({@link robustnessValue}, {@link robustnessValueAtLevel}); a benchmark's R²yxj from its partial R² or its
  * t in the outcome regression (df), its R²dxj from its partial R² or its t in the treatment regression
- * (df + 1: that regression lacks the treatment); bounds by {@link benchmarkBound} with k_D = k_Y = k;
- * adjusted values by {@link adjustForConfounder}.
+ * (df + 1: that regression lacks the treatment); bounds by {@link benchmarkBound} with k_D = k and k_Y =
+ * `kOutcome` (default k); adjusted values by {@link adjustForConfounder}. A bound with R²yz = 1 is flagged
+ * not informative. The strongest measured covariate: {@link STRONGEST_COVARIATE_RULE}. `conventions` lists
+ * every convention in words (degrees of freedom, classical SE, multiples, direction).
  *
  * **References.** Cinelli C, Hazlett C (2020). Making sense of sensitivity: extending omitted variable bias.
  * JRSS-B 82(1):39–67, §3 (bias in partial R²s), §4 (robustness values), §5 (extreme scenarios), §6 (bounds
- * from observed covariates).
+ * from observed covariates; §6.1 with separate k_D and k_Y, recalled from memory).
  *
  * **Special cases.** An estimate of 0 has RV 0. A reported t that is not significant at α has RV_{q,α} = 0
  * (and a warning). A benchmark without its association with the treatment has no bound (a row per k with
@@ -238,6 +305,8 @@ export function analyseOvb(input: OvbInput): OvbResult {
   const alpha = input.alpha ?? 0.05;
   const direction = input.direction ?? 'toward-zero';
   const kList = [...(input.k ?? DEFAULT_BENCHMARK_MULTIPLES)];
+  const kOutcomeList = input.kOutcome ? [...input.kOutcome] : [...kList];
+  const seKind = input.seKind ?? 'classical';
   const { estimate, se } = input;
   const t = estimate / se;
   const warnings: string[] = [];
@@ -252,6 +321,11 @@ export function analyseOvb(input: OvbInput): OvbResult {
         : `Even without confounding, the data do not reject an effect of ${1 - q} times the estimate at level ${alpha}.`,
     );
   }
+  if (seKind !== 'classical') {
+    warnings.push(
+      `The standard error is ${seKind === 'unknown' ? 'of unknown kind' : seKind}; the bias formula assumes the classical OLS standard error, so the adjusted standard errors and t-statistics shown are not right for it (the adjusted estimates are).`,
+    );
+  }
   if (direction === 'away-from-zero') {
     warnings.push('A confounder that pushes the estimate away from zero cannot explain it away; the robustness values describe confounding toward zero.');
   }
@@ -261,6 +335,8 @@ export function analyseOvb(input: OvbInput): OvbResult {
     return { r2dz: strength.r2dz, r2yz: strength.r2yz, bias: a.bias, correctedEstimate: a.estimate, correctedSe: a.se, correctedT: a.t, correctedDf: a.df };
   };
   const benchmarks: OvbBenchmarkRow[] = [];
+  let strongest: string | null = null;
+  let strongestBias = -Infinity;
   for (const b of input.benchmarks ?? []) {
     const r2yxj = b.r2yxj ?? partialR2OfT(b.outcomeT!, df);
     const r2dxj = b.r2dxj ?? (b.treatmentT !== undefined ? partialR2OfT(b.treatmentT, df + 1) : NaN);
@@ -269,21 +345,48 @@ export function analyseOvb(input: OvbInput): OvbResult {
         `No bound for ${b.covariate}: it needs the covariate’s association with the treatment (its t in the regression of the treatment on the covariates), which papers rarely print.`,
       );
     }
-    for (const k of kList) {
-      if (Number.isNaN(r2dxj) || !(r2yxj < 1) || !(r2dxj < 1)) {
+    const usable = !Number.isNaN(r2dxj) && r2yxj < 1 && r2dxj < 1;
+    kList.forEach((k, i) => {
+      const kOutcome = kOutcomeList[i];
+      if (!usable) {
         const reason = Number.isNaN(r2dxj)
           ? 'its association with the treatment is not known'
           : 'the covariate explains all of the residual variance';
-        benchmarks.push(unavailableRow(b.covariate, k, r2dxj, r2yxj, reason));
-        continue;
+        benchmarks.push(unavailableRow(b.covariate, k, kOutcome, r2dxj, r2yxj, reason));
+        return;
       }
-      const bound = benchmarkBound(r2dxj, r2yxj, k, k);
+      const bound = benchmarkBound(r2dxj, r2yxj, k, kOutcome);
       if (bound.unavailable !== null) {
-        benchmarks.push(unavailableRow(b.covariate, k, r2dxj, r2yxj, bound.unavailable));
-        continue;
+        benchmarks.push(unavailableRow(b.covariate, k, kOutcome, r2dxj, r2yxj, bound.unavailable));
+        return;
       }
-      if (bound.capped) warnings.push(`For ${k} × ${b.covariate} the bound on R²(Y~Z|D,X) reached 1 and was capped there.`);
-      benchmarks.push({ covariate: b.covariate, k, r2dxj, r2yxj, capped: bound.capped, unavailable: null, ...adjust({ r2dz: bound.r2dz, r2yz: bound.r2yz }) });
+      const multiple = k === kOutcome ? `${k} ×` : `k_D = ${k}, k_Y = ${kOutcome} ×`;
+      if (!bound.informative) {
+        warnings.push(`For ${multiple} ${b.covariate} the bound on R²(Y~Z|D,X) reached 1 (100% of the outcome’s residual variance) and was capped there: the bound is not informative (adjusted standard error 0, adjusted t not available).`);
+      }
+      benchmarks.push({
+        covariate: b.covariate,
+        k,
+        kTreatment: k,
+        kOutcome,
+        r2dxj,
+        r2yxj,
+        capped: bound.capped,
+        unavailable: null,
+        informative: bound.informative,
+        reason: bound.reason,
+        ...adjust({ r2dz: bound.r2dz, r2yz: bound.r2yz }),
+      });
+    });
+    if (usable) {
+      const one = benchmarkBound(r2dxj, r2yxj, 1, 1);
+      if (one.unavailable === null) {
+        const bias = omittedVariableBias(se, df, { r2dz: one.r2dz, r2yz: one.r2yz });
+        if (bias > strongestBias || (bias === strongestBias && strongest !== null && b.covariate < strongest)) {
+          strongest = b.covariate;
+          strongestBias = bias;
+        }
+      }
     }
   }
   const setting = { t, df, q, alpha, direction };
@@ -304,9 +407,20 @@ export function analyseOvb(input: OvbInput): OvbResult {
     criticalT,
     threshold: (1 - q) * estimate,
     k: kList,
+    kOutcome: kOutcomeList,
     benchmarks,
+    strongestCovariate: strongest,
     extremeScenarios,
     scenario: input.scenario ? adjust(input.scenario) : null,
+    seKind,
+    conventions: ovbConventions({
+      seKind,
+      direction,
+      hasBenchmarks: (input.benchmarks ?? []).length > 0,
+      outcomeT: (input.benchmarks ?? []).some((b) => b.outcomeT !== undefined),
+      treatmentT: (input.benchmarks ?? []).some((b) => b.treatmentT !== undefined),
+      sameMultiples: kList.every((k, i) => k === kOutcomeList[i]),
+    }),
     warnings,
   });
 }
@@ -318,14 +432,61 @@ function partialR2OfT(t: number, df: number): number {
   return t2 < df ? partialR2FromT(t, df) : 1 / (1 + df / t2);
 }
 
-function unavailableRow(covariate: string, k: number, r2dxj: number, r2yxj: number, reason: string): OvbBenchmarkRow {
+/** The conventions of an omitted-variable-bias analysis, in plain words (frozen). */
+function ovbConventions(settings: {
+  seKind: StandardErrorKind;
+  direction: BiasDirection;
+  hasBenchmarks: boolean;
+  outcomeT: boolean;
+  treatmentT: boolean;
+  sameMultiples: boolean;
+}): readonly AnalysisConvention[] {
+  const c = conventionList();
+  c.add(
+    'degrees-of-freedom',
+    'The partial R² of the treatment and the robustness value RV_q use the regression’s residual degrees of freedom df; the significance threshold (RV_q,α and the adjusted t) uses Student’s t with df − 1, because the regression that includes the confounder has one more coefficient.',
+  );
+  c.add(
+    'classical-standard-error',
+    settings.seKind === 'classical'
+      ? 'The bias formula assumes the classical OLS standard error; with a robust or clustered standard error the adjusted standard error and t would be wrong.'
+      : `The bias formula assumes the classical OLS standard error, but this one is ${settings.seKind === 'unknown' ? 'of unknown kind' : settings.seKind}: the adjusted standard errors and t-statistics are not right for it; the adjusted estimates are.`,
+  );
+  c.add(
+    'bias-direction',
+    settings.direction === 'toward-zero'
+      ? 'The confounder is assumed to have pushed the estimate away from zero, so adjusting for it moves the estimate toward zero.'
+      : 'The confounder is assumed to have pushed the estimate toward zero, so adjusting for it moves the estimate away from zero.',
+  );
+  if (settings.hasBenchmarks) {
+    if (settings.outcomeT) c.add('outcome-t-df', 'A covariate’s t in the outcome regression is converted to a partial R² with df degrees of freedom.');
+    if (settings.treatmentT) {
+      c.add('treatment-t-df', 'A covariate’s t in the regression of the treatment on the covariates is converted to a partial R² with df + 1 degrees of freedom (that regression lacks the treatment).');
+    }
+    c.add(
+      'benchmark-multiples',
+      settings.sameMultiples
+        ? 'Benchmarks bound a confounder k times as strongly associated with the treatment and k times with the outcome as the covariate (k_D = k_Y = k), with the confounder unrelated to the measured covariates.'
+        : 'Benchmarks bound a confounder k_D times as strongly associated with the treatment and k_Y times with the outcome as the covariate (different multiples for the two sides), with the confounder unrelated to the measured covariates.',
+    );
+    c.add('capped-bounds', `A bound on the outcome side is capped at 100% of the outcome’s residual variance; where it is capped, ${CAPPED_BOUND_REASON.replace(/^the bound reaches 100% of the outcome’s residual variance \(R²yz capped at 1\), so /, '')}, and the bound is marked not informative.`);
+    c.add('strongest-covariate', STRONGEST_COVARIATE_RULE);
+  }
+  return c.list();
+}
+
+function unavailableRow(covariate: string, k: number, kOutcome: number, r2dxj: number, r2yxj: number, reason: string): OvbBenchmarkRow {
   return {
     covariate,
     k,
+    kTreatment: k,
+    kOutcome,
     r2dxj,
     r2yxj,
     capped: false,
     unavailable: reason,
+    informative: false,
+    reason,
     r2dz: NaN,
     r2yz: NaN,
     bias: NaN,

@@ -1,5 +1,6 @@
 import { inputProblem, throwIfProblems, type InputProblem } from './inputProblem';
-import { signedRanks, type SignedRanks } from './signedRanks';
+import { conventionList, type AnalysisConvention } from './analysisConvention';
+import { RANK_TIE_TOLERANCE, signedRanks, type SignedRanks, type ZeroRule } from './signedRanks';
 import { biasProbabilities, signedRankBound, signedRankUpperP, type TailMethod } from './signedRankBound';
 import { signTestBound } from './signTestBound';
 import { tippingGamma, type TippingGamma } from './tippingGamma';
@@ -41,7 +42,14 @@ export interface PairsInput {
   readonly continuityCorrection?: boolean;
   /** Rows the reader dropped because a value was missing (reported back; not used in the computation). */
   readonly droppedRows?: number;
+  /**
+   * Signed-rank test only: how pairs with a zero difference enter the ranking. `wilcoxon` (default): left out of
+   * the test; `pratt`: ranked with the others (mid-ranks) and scored 0. Both keep every pair in the
+   * Hodges–Lehmann estimate and interval.
+   */
+  readonly zeroRule?: ZeroRule;
 }
+
 
 /** One row of the sensitivity table. */
 export interface PairsRow {
@@ -63,8 +71,17 @@ export interface PairsResult {
   /** Pairs used (after dropped rows). */
   readonly n: number;
   readonly droppedRows: number;
-  /** Pairs with zero difference (ties), left out of both tests. */
+  /**
+   * Pairs with zero difference: left out of the sign test, and of the signed-rank test under Wilcoxon's rule;
+   * ranked with score 0 under Pratt's rule (see `zeroRule`).
+   */
   readonly zeroDifferences: number;
+  /** The zero rule used by the signed-rank test (`wilcoxon` for the sign test, where zeros always drop out). */
+  readonly zeroRule: ZeroRule;
+  /** The relative tolerance within which two |differences| tie (0 for discordant counts). */
+  readonly tieTolerance: number;
+  /** Every convention this analysis follows, in plain words. */
+  readonly conventions: readonly AnalysisConvention[];
   /** Pairs that count in the test: non-zero differences (signed-rank), discordant pairs (sign). */
   readonly nonZero: number;
   /** Pairs in the direction of the alternative (treated better for `greater`). */
@@ -108,7 +125,12 @@ const REFERENCES = Object.freeze([
   'Rosenbaum PR (1987) Sensitivity analysis for certain permutation inferences in matched observational studies. Biometrika 74(1):13–26.',
   'Rosenbaum PR (1993) Hodges–Lehmann point estimates of treatment effect in observational studies. JASA 88(424):1250–1253.',
   'Rosenbaum PR, Silber JH (2009) Amplification of sensitivity analysis in matched observational studies. JASA 104(488):1398–1405.',
+  'Zhao Q (2019) On sensitivity value of pair-matched observational studies. JASA 114(526):713–722 (the name sensitivity value; recalled from memory).',
+  'Wilcoxon F (1945) Individual comparisons by ranking methods. Biometrics Bulletin 1(6):80–83.',
 ]);
+
+const PRATT_REFERENCE =
+  'Pratt JW (1959) Remarks on zeros and ties in the Wilcoxon signed rank procedures. JASA 54(287):655–667 (recalled from memory).';
 
 /**
  * Checks a matched-pairs input and lists every problem (field, rule, value); an empty list means valid.
@@ -165,6 +187,9 @@ export function validatePairsInput(input: PairsInput): InputProblem[] {
   if (input?.alternative !== undefined && input.alternative !== 'greater' && input.alternative !== 'less') {
     problems.push(inputProblem('alternative', 'not-a-choice', 'must be greater or less', input.alternative));
   }
+  if (input?.zeroRule !== undefined && input.zeroRule !== 'wilcoxon' && input.zeroRule !== 'pratt') {
+    problems.push(inputProblem('zeroRule', 'not-a-choice', 'must be wilcoxon (zero differences left out of the test) or pratt (ranked, scored 0)', input.zeroRule));
+  }
   if (input?.method !== undefined && !['auto', 'exact', 'normal'].includes(input.method)) {
     problems.push(inputProblem('method', 'not-a-choice', 'must be auto, exact or normal', input.method));
   }
@@ -216,9 +241,10 @@ function checkNonZero(differences: ArrayLike<number>, field: string, problems: I
 }
 
 /**
- * treated − control, pair by pair, rounded to 12 significant digits: binary floating point turns equal
- * differences of decimal numbers into unequal ones (1.3 − 1.2 ≠ 2.3 − 2.2), which would break ties that are
- * ties on paper and so change the ranks. 12 digits keep far more precision than any measured outcome has.
+ * treated − control, pair by pair, rounded to 12 significant digits (kept for callers that want tidy
+ * differences; {@link analysePairs} no longer rounds: it ranks the exact differences with the relative tie
+ * tolerance {@link RANK_TIE_TOLERANCE}, which also catches near-equal differences on either side of a
+ * rounding boundary, such as 100000.3 − 100000.2 and 0.1).
  */
 export function outcomeDifferences(treated: ArrayLike<number>, control: ArrayLike<number>): Float64Array {
   const d = new Float64Array(Math.min(treated.length, control.length));
@@ -246,8 +272,17 @@ export function roundSignificant(x: number, digits: number): number {
  * swapping treated and control), so both alternatives share one computation. Default Γ grid: from 1 in round
  * steps to the first step past the sensitivity value (about 6–12 rows).
  *
+ * Zero differences: Wilcoxon's rule (default) leaves them out of the signed-rank test; Pratt's rule
+ * (`zeroRule: 'pratt'`) ranks them with the others and scores them 0, and the bounds under Γ then use those
+ * ranks. Either way every pair enters the Hodges–Lehmann estimate and interval. Ties: |d| within the relative
+ * tolerance {@link RANK_TIE_TOLERANCE} share their average rank. `conventions` lists all of this in words.
+ *
  * **References.** Rosenbaum PR (2002) Observational Studies, 2nd ed., Springer, ch. 4; Rosenbaum 1987,
- * Biometrika 74:13–26; Rosenbaum 1993, JASA 88:1250–1253; Rosenbaum & Silber 2009, JASA 104:1398–1405.
+ * Biometrika 74:13–26; Rosenbaum 1993, JASA 88:1250–1253; Rosenbaum & Silber 2009, JASA 104:1398–1405;
+ * Wilcoxon F (1945) Biometrics Bulletin 1(6):80–83 (zeros dropped); Pratt JW (1959) JASA 54(287):655–667
+ * (zeros ranked, scored 0; recalled from memory); Zhao Q (2019) On sensitivity value of pair-matched
+ * observational studies, JASA 114(526):713–722 (the term sensitivity value for the tipping Γ; recalled from
+ * memory).
  *
  * **Special cases.** A binary outcome given as discordant counts uses the sign test (McNemar); asking for the
  * signed-rank test there gives the sign test and a warning. No estimate range without numeric outcomes.
@@ -263,19 +298,24 @@ export function analysePairs(input: PairsInput): PairsResult {
   const warnings: string[] = [];
   const data = input.data;
   const direction = alternative === 'greater' ? 1 : -1;
+  const requestedZeroRule: ZeroRule = input.zeroRule ?? 'wilcoxon';
 
   // The study's differences (treated − control), when there are numeric outcomes.
   const differences: Float64Array | null =
     data.kind === 'differences'
       ? Float64Array.from(data.differences as ArrayLike<number>)
       : data.kind === 'outcomes'
-        ? outcomeDifferences(data.treated, data.control)
+        ? Float64Array.from({ length: data.treated.length }, (_, i) => data.treated[i] - data.control[i])
         : null;
 
   let test: PairsTest = input.test ?? (differences ? 'signrank' : 'sign');
   if (!differences && test === 'signrank') {
     warnings.push('With a binary outcome (discordant counts) the signed-rank test is the sign test; the sign test was used.');
     test = 'sign';
+  }
+  const zeroRule: ZeroRule = test === 'signrank' ? requestedZeroRule : 'wilcoxon';
+  if (test === 'sign' && requestedZeroRule === 'pratt') {
+    warnings.push("Pratt's rule for zero differences applies to the signed-rank test only; the sign test leaves them out.");
   }
 
   let n: number;
@@ -285,7 +325,7 @@ export function analysePairs(input: PairsInput): PairsResult {
   let ranks: SignedRanks | null = null;
   if (differences) {
     const oriented = direction === 1 ? differences : differences.map((d) => -d);
-    ranks = signedRanks(oriented);
+    ranks = signedRanks(oriented, { zeroRule: test === 'signrank' ? zeroRule : 'wilcoxon', tieTolerance: RANK_TIE_TOLERANCE });
     n = ranks.pairs;
     zeros = ranks.zeros;
     nonZero = ranks.nonZero;
@@ -298,6 +338,7 @@ export function analysePairs(input: PairsInput): PairsResult {
     zeros = d.concordant ?? 0;
   }
   if (zeros > 0 && !differences) warnings.push(`${zeros} concordant ${zeros === 1 ? 'pair' : 'pairs'} (both or neither had the event) carry no information and ${zeros === 1 ? 'was' : 'were'} left out of the test.`);
+  else if (zeros > 0 && zeroRule === 'pratt') warnings.push(`${zeros} ${zeros === 1 ? 'pair has' : 'pairs have'} a difference of zero; by Pratt's rule ${zeros === 1 ? 'it was' : 'they were'} ranked with the others and scored 0.`);
   else if (zeros > 0) warnings.push(`${zeros} ${zeros === 1 ? 'pair has' : 'pairs have'} a difference of zero and ${zeros === 1 ? 'was' : 'were'} left out of the test.`);
   if (ranks?.tiedMagnitudes) warnings.push('Some differences have equal sizes; they share average ranks (handled exactly).');
 
@@ -400,7 +441,7 @@ export function analysePairs(input: PairsInput): PairsResult {
       test === 'signrank'
         ? 'Rosenbaum bounds for the Wilcoxon signed-rank test in matched pairs'
         : 'Rosenbaum bounds for the sign test in matched pairs (McNemar for a binary outcome)',
-    references: REFERENCES,
+    references: zeroRule === 'pratt' ? Object.freeze([...REFERENCES, PRATT_REFERENCE]) : REFERENCES,
     test,
     alternative,
     alpha,
@@ -410,6 +451,9 @@ export function analysePairs(input: PairsInput): PairsResult {
     n,
     droppedRows: input.droppedRows ?? 0,
     zeroDifferences: zeros,
+    zeroRule,
+    tieTolerance: differences ? RANK_TIE_TOLERANCE : 0,
+    conventions: pairsConventions({ test, zeroRule, withEstimates, numeric: differences !== null, tailMethod, continuityCorrection, alpha }),
     nonZero,
     favourable,
     statistic: test === 'sign' || !ranks ? favourable : ranks.statistic,
@@ -426,6 +470,44 @@ export function analysePairs(input: PairsInput): PairsResult {
     amplification: Object.freeze(tipping.gamma !== null ? readableAmplifications(tipping.gamma) : []),
     warnings: Object.freeze(warnings),
   });
+}
+
+/** The conventions of a matched-pairs analysis, in plain words (frozen). */
+function pairsConventions(settings: {
+  test: PairsTest;
+  zeroRule: ZeroRule;
+  withEstimates: boolean;
+  numeric: boolean;
+  tailMethod: TailMethod;
+  continuityCorrection: boolean;
+  alpha: number;
+}): readonly AnalysisConvention[] {
+  const conventions = conventionList();
+  const add = conventions.add;
+  if (settings.test === 'signrank') {
+    add(
+      'zero-differences',
+      settings.zeroRule === 'pratt'
+        ? "Pairs with a difference of exactly zero are ranked together with the others by the size of their difference and score 0 in the test (Pratt's rule); they also count in the Hodges–Lehmann estimate and interval."
+        : "Pairs with a difference of exactly zero are left out of the signed-rank test (Wilcoxon's rule) but count in the Hodges–Lehmann estimate and interval.",
+    );
+    add('tied-differences', `Differences whose sizes agree within a relative ${RANK_TIE_TOLERANCE} (about 10 significant digits) count as tied and share the average of their ranks, so that differences equal on paper but not in binary arithmetic (1.3 − 1.2 and 2.3 − 2.2) tie.`);
+  } else {
+    add('zero-differences', settings.numeric
+      ? 'Pairs with a difference of exactly zero are left out of the sign test.'
+      : 'Concordant pairs (both or neither had the event) are left out of the sign test.');
+  }
+  add('one-sided-bounds', `The p-value bounds are one-sided, compared with α = ${settings.alpha}; the sensitivity value is the largest Γ at which the upper bound is still at most α (the name follows Zhao 2019).`);
+  if (settings.tailMethod === 'normal') {
+    add('normal-approximation', settings.continuityCorrection
+      ? 'Tails come from the normal approximation with a continuity correction of ½.'
+      : 'Tails come from the normal approximation without a continuity correction.');
+  }
+  if (settings.withEstimates) {
+    add('interval-two-sided', `The sensitivity interval is two-sided at level ${1 - settings.alpha} (α/2 on each side), while the p-value bounds are one-sided at α.`);
+    add('estimate-whole-number', 'Under bias Γ the estimate range uses the expectations N·Γ/(1 + Γ) and N/(1 + Γ) of the signed-rank statistic (N = n(n + 1)/2), with Γ taken as the decimal number it is written as; when one is a whole number the estimate is the mean of two Walsh averages.');
+  }
+  return conventions.list();
 }
 
 /**

@@ -37,7 +37,7 @@ export function nullValue(measure: EffectMeasure): number {
  * RR ≈ √OR, the square-root transform.
  *
  * **References.** VanderWeele TJ (2017). On a square-root transformation of the odds ratio for a common
- * outcome. Epidemiology 28(6):e58–e60. VanderWeele TJ, Ding P (2017). Sensitivity analysis in observational
+ * outcome. Epidemiology 28(6):e58–e60 (recalled from memory). VanderWeele TJ, Ding P (2017). Sensitivity analysis in observational
  * research: introducing the E-value. Annals of Internal Medicine 167(4):268–274, Table 2.
  *
  * **Special cases.** NaN or a negative ratio → NaN; 0 → 0; +Infinity → +Infinity.
@@ -79,9 +79,6 @@ export function hazardRatioToRiskRatio(hazardRatio: number, prevalence: OutcomeP
 /** The slope linking a standardized mean difference to the log risk ratio: log RR ≈ 0.91·d. */
 export const SMD_LOG_RISK_RATIO_SLOPE = 0.91;
 
-/** The published multiplier of the SE of d for a 95% interval on the log-risk-ratio scale (0.91 × 1.96, rounded). */
-export const SMD_PUBLISHED_95_MULTIPLIER = 1.78;
-
 /**
  * A standardized mean difference on the risk-ratio scale.
  *
@@ -104,22 +101,28 @@ export function smdToRiskRatio(d: number): number {
 }
 
 /**
+ * The multiplier of the SE of d printed for a 95% interval on the log-risk-ratio scale: 0.91 × 1.96 = 1.7836,
+ * rounded to 1.78 in print. Kept for reference only: {@link smdIntervalMultiplier} uses 0.91·z at every level
+ * (1.78 at exactly 95% would make the interval E-value jump between the levels 0.95 and 0.9500001).
+ */
+export const SMD_PUBLISHED_95_MULTIPLIER = 1.78;
+
+/**
  * The multiplier m of SE(d) in the interval exp(0.91·d ± m·SE(d)) for a standardized mean difference.
  *
- * **Method.** On the log-risk-ratio scale the interval d ± z·SE becomes 0.91·d ± 0.91·z·SE, so in general
- * m = 0.91·z with z the two-sided normal critical value for the level. At exactly 95% the published constant
- * 1.78 is used instead (VanderWeele & Ding print 1.78 for 0.91 × 1.96 = 1.7836), so that published 95% results
- * are reproduced digit for digit; the two differ by 0.2%, which moves a limit by a factor exp(0.0036·SE).
+ * **Method.** On the log-risk-ratio scale the interval d ± z·SE becomes 0.91·d ± 0.91·z·SE, so m = 0.91·z with
+ * z the two-sided normal critical value for the level, at every level (continuous in the level). At 95% this
+ * is 1.7836; the published table prints it rounded as 1.78 (0.91 × 1.96), which agrees to the printed
+ * precision.
  *
  * **References.** VanderWeele TJ, Ding P (2017). Sensitivity analysis in observational research: introducing
- * the E-value. Annals of Internal Medicine 167(4):268–274, Table 2.
+ * the E-value. Annals of Internal Medicine 167(4):268–274, Table 2 (1.78 = 0.91 × 1.96 rounded).
  *
  * **Special cases.** A level outside (0, 1) or NaN → NaN.
  *
  * @param level the confidence level, in (0, 1)
  */
 export function smdIntervalMultiplier(level: number): number {
-  if (level === 0.95) return SMD_PUBLISHED_95_MULTIPLIER;
   return SMD_LOG_RISK_RATIO_SLOPE * confidenceZ(level);
 }
 

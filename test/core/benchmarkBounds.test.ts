@@ -56,6 +56,21 @@ describe('benchmarkBound', () => {
     expect(capped.capped).toBe(true);
   });
 
+  it('a bound capped at 100% of the outcome’s residual variance is flagged not informative, with the reason', () => {
+    // R 4.2.2 swiss (ovb.json): Catholic at k = 3 reaches R²yz = 1 (r2yz_capped_at_1)
+    const b = swiss.benchmarks.Catholic;
+    const capped = benchmarkBound(b.R2dxj, b.R2yxj, 3, 3);
+    expect(b.bounds.find((x: any) => x.kd === 3).r2yz_capped_at_1).toBe(true);
+    expect(capped.informative).toBe(false);
+    expect(capped.reason).toMatch(/100% of the outcome’s residual variance.*standard error is 0.*t is not available/);
+    const fine = benchmarkBound(b.R2dxj, b.R2yxj, 1, 1);
+    expect(fine.informative).toBe(true);
+    expect(fine.reason).toBeNull();
+    const unavailable = benchmarkBound(0.5, 0.1, 1);
+    expect(unavailable.informative).toBe(false);
+    expect(unavailable.reason).toBe(unavailable.unavailable);
+  });
+
   it('grows with k (fast-check)', () => {
     fc.assert(
       fc.property(

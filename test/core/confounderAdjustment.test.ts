@@ -52,6 +52,10 @@ describe('adjustForConfounder', () => {
     const full = adjustForConfounder(reported, { r2dz: 0.2, r2yz: 1 });
     expect(full.se).toBe(0);
     expect(Math.abs(full.t)).toBe(Infinity);
+    // a confounder explaining all of the outcome's residual variance: the adjusted t is flagged not available
+    expect(full.tAvailable).toBe(false);
+    expect(none.tAvailable).toBe(true);
+    expect(adjustForConfounder({ estimate: NaN, se: 1, df: 9 }, { r2dz: 0.1, r2yz: 0.1 }).tAvailable).toBe(false);
     expect(adjustForConfounder({ estimate: 1, se: 1, df: 1 }, { r2dz: 0.1, r2yz: 0.1 }).estimate).toBeNaN();
     expect(adjustForConfounder({ estimate: NaN, se: 1, df: 9 }, { r2dz: 0.1, r2yz: 0.1 }).t).toBeNaN();
   });

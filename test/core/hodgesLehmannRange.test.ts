@@ -1,7 +1,8 @@
 import { describe, expect, test } from 'vitest';
 import fc from 'fast-check';
 import { walshAverages, countWalshAtMost } from '../../src/core/walshAverages';
-import { effectUnderBias, exactCriticalValue, normalCriticalValue } from '../../src/core/hodgesLehmannRange';
+import { biasedExpectationParts, effectUnderBias, exactCriticalValue, normalCriticalValue } from '../../src/core/hodgesLehmannRange';
+import { defaultGammaGrid } from '../../src/core/pairsAnalysis';
 import { signedRanks } from '../../src/core/signedRanks';
 import { signedRankUpperP } from '../../src/core/signedRankBound';
 import { expectClose } from '../support/expectClose';
@@ -78,6 +79,100 @@ describe('the interval and the estimate range invert the bounding tests (any Γ)
       expect(statisticAt(d, effect.estimateHigh + eps).statistic).toBeLessThanOrEqual(muMinus);
     });
   }
+});
+
+/** Every Γ the default grids can hold: the grid for tipping values from 1.001 to 1e6, and the fallback grid. */
+function defaultGridGammas(): number[] {
+  const all = new Set<number>(defaultGammaGrid({ gamma: null, status: 'not-significant', searchedUpTo: 1e6 }));
+  for (const g of defaultGammaGrid({ gamma: null, status: 'beyond-range', searchedUpTo: 1e6 })) all.add(g);
+  for (let e = -3; e <= 6; e += 0.01) {
+    for (const g of defaultGammaGrid({ gamma: 1 + 10 ** e, status: 'found', searchedUpTo: 1e6 })) all.add(g);
+  }
+  return [...all].sort((a, b) => a - b);
+}
+
+/**
+ * Γ as a fraction p/q with small integers, found independently of the code under test: every default-grid Γ
+ * is a multiple of 0.05 or a whole number, so p = Γ·20 rounded, q = 20, and the double must read back exactly.
+ */
+function gridFraction(gamma: number): { p: number; q: number } {
+  const p = Math.round(gamma * 20);
+  expect(p / 20).toBe(gamma);
+  return { p, q: 20 };
+}
+
+/** Brute force: the largest whole k with (p + q)·k ≤ numerator·N, stepping k up one at a time (exact integers). */
+function bruteFloor(N: number, numerator: number, p: number, q: number, start = 0): number {
+  if (!Number.isSafeInteger(numerator * N) || !Number.isSafeInteger((p + q) * (N + 1))) throw new Error('not exact');
+  let k = start;
+  if ((p + q) * k > numerator * N) throw new Error('start too high');
+  while ((p + q) * (k + 1) <= numerator * N) k++;
+  return k;
+}
+
+describe('the estimate range decides whole-number expectations exactly', () => {
+  test('40 pairs at Γ = 1.05: the high estimate is the mean of the 400th and 401st largest Walsh averages', () => {
+    // N = 820, μ⁻ = 820/2.05 = 400 exactly (in floating point 400.00000000000006). Rosenbaum 1993, JASA
+    // 88:1250–1253: at a whole-number μ the estimate is the average of the μ-th and (μ + 1)-th largest averages.
+    const d: number[] = reference.datasets.n40.differences;
+    const sorted = bruteWalsh(d);
+    const largest = (k: number) => sorted[sorted.length - k];
+    const effect = effectUnderBias(walshAverages(d), 40, 1.05, 0.05, { method: 'exact' });
+    expect(effect.estimateHigh).toBe((largest(400) + largest(401)) / 2);
+    // μ⁺ = 820·1.05/2.05 = 420 exactly too.
+    expect(effect.estimateLow).toBe((largest(420) + largest(421)) / 2);
+  });
+
+  const gammas = defaultGridGammas();
+  test('the default grids hold the Γ values the check below needs', () => {
+    expect(gammas).toContain(1.05);
+    expect(gammas).toContain(1.25);
+    expect(gammas.length).toBeGreaterThan(50);
+  });
+
+  test('every default-grid Γ and every Walsh count N ≤ 1,000: ⌊μ⌋ and ⌈μ⌉ equal a brute-force rational count', () => {
+    // Reference: exact integer arithmetic on Γ = p/q (no floating-point μ): ⌊μ⁺⌋ is the largest k with
+    // (p + q)·k ≤ p·N, ⌊μ⁻⌋ the largest with (p + q)·k ≤ q·N; ⌈μ⌉ = ⌊μ⌋ + [not equal].
+    for (const gamma of gammas) {
+      const { p, q } = gridFraction(gamma);
+      for (let N = 0; N <= 1000; N++) {
+        const parts = biasedExpectationParts(N, gamma);
+        for (const [part, numerator] of [
+          [parts.plus, p],
+          [parts.minus, q],
+        ] as const) {
+          const floor = bruteFloor(N, numerator, p, q);
+          const ceil = (p + q) * floor === numerator * N ? floor : floor + 1;
+          if (part.floor !== floor || part.ceil !== ceil) expect({ gamma, N, ...part }).toEqual({ gamma, N, floor, ceil });
+        }
+      }
+    }
+  }, 60_000);
+
+  test('every default-grid Γ and every number of pairs n ≤ 1,000 (N = n(n + 1)/2): the same exact parts', () => {
+    for (const gamma of gammas) {
+      const { p, q } = gridFraction(gamma);
+      for (let n = 1; n <= 1000; n++) {
+        const N = (n * (n + 1)) / 2;
+        const parts = biasedExpectationParts(N, gamma);
+        for (const [part, numerator] of [
+          [parts.plus, p],
+          [parts.minus, q],
+        ] as const) {
+          // Brute force from a start safely below the answer (a rough floating-point guess minus 2).
+          const floor = bruteFloor(N, numerator, p, q, Math.max(0, Math.floor((numerator * N) / (p + q)) - 2));
+          const ceil = (p + q) * floor === numerator * N ? floor : floor + 1;
+          if (part.floor !== floor || part.ceil !== ceil) expect({ gamma, n, ...part }).toEqual({ gamma, n, floor, ceil });
+        }
+      }
+    }
+  }, 60_000);
+
+  test('Γ = Infinity and invalid arguments', () => {
+    expect(biasedExpectationParts(10, Infinity)).toEqual({ plus: { floor: 10, ceil: 10 }, minus: { floor: 0, ceil: 0 } });
+    expect(Number.isNaN(biasedExpectationParts(10, NaN).plus.floor)).toBe(true);
+    expect(Number.isNaN(biasedExpectationParts(10.5, 2).minus.ceil)).toBe(true);
+  });
 });
 
 describe('critical values', () => {

@@ -154,3 +154,115 @@ describe('analyseOvb', () => {
     expect(r.benchmarks).toHaveLength(8);
   });
 });
+
+describe('analyseOvb: separate multiples for the treatment and the outcome side', () => {
+  it('without kOutcome the rows are the single-k rows of before (k_Y = k_D)', () => {
+    // R 4.2.2 swiss bounds with kd = ky (ovb.json), formulas from memory, re-derived
+    const r = analyseOvb(swissInput());
+    expect(r.kOutcome).toEqual([1, 2, 3]);
+    for (const row of r.benchmarks) {
+      expect(row.kTreatment).toBe(row.k);
+      expect(row.kOutcome).toBe(row.k);
+      const ref = swiss.benchmarks[row.covariate].bounds.find((x: any) => x.kd === row.k);
+      if (ref.valid) expectClose(row.r2yz, ref.r2yz, { rel: 1e-12 }, `${row.covariate} k=${row.k}`);
+    }
+    const explicit = analyseOvb({ ...swissInput(), kOutcome: [1, 2, 3] });
+    expect(explicit.benchmarks).toEqual(r.benchmarks);
+  });
+
+  it('with k_D ≠ k_Y the bound matches a confounder constructed in R and refitted with lm', () => {
+    // R 4.2.2 lm on datasets::swiss with Z built orthogonal to the covariates at the chosen k_D and k_Y
+    // (ovb.json swiss.check_benchmark_algebra): R²dz is exact; R²yz is an upper bound, attained for
+    // Examination and Infant.Mortality (formulas recalled from memory and re-derived).
+    for (const [covariate, c] of Object.entries<any>(swiss.check_benchmark_algebra)) {
+      const input = swissInput();
+      const r = analyseOvb({ ...input, benchmarks: input.benchmarks!.filter((b) => b.covariate === covariate), k: [c.kd], kOutcome: [c.ky] });
+      const [row] = r.benchmarks;
+      expect(row.kTreatment).toBe(c.kd);
+      expect(row.kOutcome).toBe(c.ky);
+      expectClose(row.r2dz, c.actual_r2dz, { rel: 1e-10 }, covariate);
+      expectClose(row.r2yz, c.formula_r2yz_upper_bound, { rel: 1e-10 }, covariate);
+      expect(row.r2yz * (1 + 1e-12)).toBeGreaterThanOrEqual(c.actual_r2yz);
+      if (covariate === 'Examination' || covariate === 'Infant.Mortality') expectClose(row.r2yz, c.actual_r2yz, { rel: 1e-10 }, `${covariate} attained`);
+      expect(r.conventions.find((x) => x.id === 'benchmark-multiples')!.text).toMatch(/k_D times .* k_Y times/);
+    }
+  });
+
+  it('kOutcome must match k in length and be positive', () => {
+    const fields = (input: Partial<OvbInput>) => validateOvbInput({ estimate: 1, se: 0.2, df: 50, ...input } as OvbInput).map((p) => [p.field, p.code]);
+    expect(fields({ k: [1, 2], kOutcome: [1] })).toEqual([['kOutcome', 'unequal-length']]);
+    expect(fields({ kOutcome: [1, 0, 2] })).toEqual([['kOutcome[1]', 'not-positive']]);
+    expect(fields({ kOutcome: [1, 2, 3] })).toEqual([]);
+  });
+});
+
+describe('analyseOvb: bounds that are not informative', () => {
+  it('a bound capped at 100% of the outcome’s residual variance is flagged, with a reason and a warning', () => {
+    // R 4.2.2 swiss (ovb.json): Catholic at k = 3 has r2yz_capped_at_1
+    const r = analyseOvb(swissInput());
+    const row = r.benchmarks.find((b) => b.covariate === 'Catholic' && b.k === 3)!;
+    expect(row.capped).toBe(true);
+    expect(row.informative).toBe(false);
+    expect(row.reason).toMatch(/100% of the outcome’s residual variance/);
+    expect(r.warnings.join(' ')).toMatch(/Catholic the bound .* not informative/);
+    const fine = r.benchmarks.find((b) => b.covariate === 'Catholic' && b.k === 1)!;
+    expect(fine.informative).toBe(true);
+    expect(fine.reason).toBeNull();
+    const missing = r.benchmarks.find((b) => b.covariate === 'Examination' && b.k === 2)!;
+    expect(missing.informative).toBe(false);
+    expect(missing.reason).toBe(missing.unavailable);
+  });
+});
+
+describe('analyseOvb: the strongest measured covariate', () => {
+  it('is the benchmark whose k = 1 bound gives the largest bias (swiss: Catholic)', () => {
+    // R 4.2.2 swiss (ovb.json): bias_abs at kd = ky = 1 is largest for Catholic (0.4427)
+    const biggest = Object.entries<any>(swiss.benchmarks)
+      .map(([name, b]) => [name, b.bounds.find((x: any) => x.kd === 1).bias_abs] as const)
+      .sort((a, b) => b[1] - a[1])[0][0];
+    const r = analyseOvb({ ...swissInput(), k: [2, 3] });
+    expect(r.strongestCovariate).toBe(biggest);
+    expect(biggest).toBe('Catholic');
+    expect(r.conventions.find((c) => c.id === 'strongest-covariate')!.text).toMatch(/largest bias; ties are broken by name/);
+  });
+
+  it('breaks ties by name and is null without usable benchmarks', () => {
+    const same = { r2yxj: 0.1, r2dxj: 0.05 };
+    const r = analyseOvb({ estimate: 1, se: 0.2, df: 50, benchmarks: [{ covariate: 'b', ...same }, { covariate: 'a', ...same }] });
+    expect(r.strongestCovariate).toBe('a');
+    expect(analyseOvb({ estimate: 1, se: 0.2, df: 50 }).strongestCovariate).toBeNull();
+    expect(analyseOvb({ estimate: 1, se: 0.2, df: 50, benchmarks: [{ covariate: 'x', r2yxj: 0.1 }] }).strongestCovariate).toBeNull();
+  });
+});
+
+describe('analyseOvb: conventions and the kind of standard error', () => {
+  it('lists the degrees-of-freedom, standard-error and benchmark conventions', () => {
+    const r = analyseOvb(swissInput());
+    expect(r.seKind).toBe('classical');
+    expect(r.conventions.map((c) => c.id)).toEqual([
+      'degrees-of-freedom',
+      'classical-standard-error',
+      'bias-direction',
+      'outcome-t-df',
+      'treatment-t-df',
+      'benchmark-multiples',
+      'capped-bounds',
+      'strongest-covariate',
+    ]);
+    expect(r.conventions[0].text).toMatch(/df − 1/);
+    expect(r.conventions.find((c) => c.id === 'treatment-t-df')!.text).toMatch(/df \+ 1/);
+    expect(Object.isFrozen(r.conventions)).toBe(true);
+    for (const c of r.conventions) expect(c.text).not.toMatch(/NaN|undefined|Infinity/);
+    expect(r.warnings.join(' ')).not.toMatch(/classical OLS/);
+  });
+
+  it('a robust, clustered or unknown standard error gives a warning; other kinds are refused', () => {
+    for (const seKind of ['robust', 'clustered', 'unknown'] as const) {
+      const r = analyseOvb({ estimate: 1, se: 0.2, df: 50, seKind });
+      expect(r.seKind).toBe(seKind);
+      expect(r.warnings.join(' ')).toMatch(/assumes the classical OLS standard error/);
+      expect(r.conventions.find((c) => c.id === 'classical-standard-error')!.text).toMatch(/not right for it/);
+    }
+    expect(validateOvbInput({ estimate: 1, se: 0.2, df: 50, seKind: 'sandwich' as never }).map((p) => [p.field, p.code])).toEqual([['seKind', 'not-a-choice']]);
+  });
+});

@@ -256,3 +256,118 @@ describe('decimal differences', () => {
     expect(result.warnings.join(' ')).toMatch(/equal sizes/);
   });
 });
+
+describe('ranking tolerance', () => {
+  test('near-equal differences on either side of a 12-digit rounding boundary tie (100000.3 − 100000.2 and 0.1)', () => {
+    // 100000.3 − 100000.2 = 0.10000000000582077 in binary arithmetic; rounded to 12 significant digits it is
+    // 0.100000000006 ≠ 0.1, so rounding did not make it tie; the relative tolerance 1e-10 does (hand computation).
+    const result = analysePairs({ data: { kind: 'outcomes', treated: [100000.3, 1.1, 5, 7, 9], control: [100000.2, 1, 1, 1, 1] }, gammas: [1] });
+    const same = analysePairs({ data: { kind: 'differences', differences: [0.1, 0.1, 4, 6, 8] }, gammas: [1] });
+    expect(result.statistic).toBe(same.statistic);
+    expect(result.rows).toEqual(same.rows);
+    expect(result.tieTolerance).toBe(1e-10);
+  });
+});
+
+const pratt = readReferenceJson('pratt_signed_rank.json');
+
+describe("zero differences: Wilcoxon's and Pratt's rules against R base enumeration", () => {
+  for (const [name, ds] of Object.entries<any>(pratt.datasets)) {
+    for (const rule of ['wilcoxon', 'pratt'] as const) {
+      for (const alternative of ['greater', 'less'] as const) {
+        test(`${name}, ${rule}, ${alternative}: statistic and exact bounds at Γ = 1, 1.5, 2, 3`, () => {
+          // R 4.2.2 base: full enumeration of the sign patterns with rank(abs(d)) (Pratt: over all pairs, zeros
+          // included; Wilcoxon: over the non-zero pairs), test/reference/pratt_signed_rank.json
+          const expected = ds[rule];
+          const result = analysePairs({
+            data: { kind: 'differences', differences: ds.differences },
+            zeroRule: rule,
+            alternative,
+            method: 'exact',
+            gammas: expected.by_gamma.map((r: any) => r.gamma),
+          });
+          expect(result.zeroRule).toBe(rule);
+          expect(result.statistic).toBe(expected[`statistic_${alternative}`]);
+          result.rows.forEach((row, i) => {
+            const r = expected.by_gamma[i];
+            expectClose(row.pUpper, r[`${alternative}_upper`], { rel: 1e-12 }, `upper Γ=${row.gamma}`);
+            expectClose(row.pLower, r[`${alternative}_lower`], { rel: 1e-12 }, `lower Γ=${row.gamma}`);
+          });
+          expectClose(result.pValue, expected.by_gamma[0][`${alternative}_upper`], { rel: 1e-12 }, 'p at Γ = 1');
+          if (ds.psignrank_upper !== undefined && alternative === 'greater') {
+            // R 4.2.2: psignrank(T − 1, n, lower.tail = FALSE) (no zeros, no ties: both rules are Wilcoxon's)
+            expectClose(result.pValue, ds.psignrank_upper, { rel: 1e-12 });
+          }
+        });
+      }
+    }
+    test(`${name}: the Hodges–Lehmann estimate and intervals do not depend on the zero rule`, () => {
+      const base = { data: { kind: 'differences' as const, differences: ds.differences }, gammas: [1, 2] };
+      const w = analysePairs({ ...base, zeroRule: 'wilcoxon' });
+      const p = analysePairs({ ...base, zeroRule: 'pratt' });
+      expect(p.estimates).toEqual(w.estimates);
+      expect(p.estimate).toBe(w.estimate);
+    });
+  }
+
+  test("Pratt's rule: the normal approximation uses the Pratt ranks' mean and variance", () => {
+    // Rosenbaum 2002 §4.3.3: mean p·ΣRᵢ and variance p(1 − p)·ΣRᵢ² over the scored pairs; ΣRᵢ from R (pratt_signed_rank.json)
+    const ds = pratt.datasets.zeros_and_ties;
+    const ranks = signedRanks(ds.differences, { zeroRule: 'pratt' });
+    expect(Array.from(ranks.ranks)).toEqual([...ds.pratt.ranks_of_nonzero].sort((a: number, b: number) => a - b));
+    expect(ranks.sumRanks).toBe(ds.pratt.sum_ranks);
+    const result = analysePairs({ data: { kind: 'differences', differences: ds.differences }, zeroRule: 'pratt', method: 'normal', gammas: [1] });
+    const z = (ds.pratt.statistic_greater - 0.5 * ds.pratt.sum_ranks) / Math.sqrt(0.25 * ranks.sumSquaredRanks);
+    expect(result.pValue).toBeCloseTo(0.5 * (1 - erf(z / Math.SQRT2)), 6);
+  });
+
+  test("Pratt's rule is named in the warnings, conventions and references", () => {
+    const ds = pratt.datasets.zeros_and_ties;
+    const result = analysePairs({ data: { kind: 'differences', differences: ds.differences }, zeroRule: 'pratt' });
+    expect(result.warnings.join(' ')).toMatch(/Pratt's rule/);
+    expect(result.conventions.find((c) => c.id === 'zero-differences')!.text).toMatch(/Pratt's rule/);
+    expect(result.references.join(' ')).toMatch(/Pratt JW \(1959\)/);
+    const wilcoxon = analysePairs({ data: { kind: 'differences', differences: ds.differences } });
+    expect(wilcoxon.zeroRule).toBe('wilcoxon');
+    expect(wilcoxon.conventions.find((c) => c.id === 'zero-differences')!.text).toMatch(/left out of the signed-rank test \(Wilcoxon's rule\) but count in the Hodges–Lehmann/);
+    expect(wilcoxon.references.join(' ')).toMatch(/Wilcoxon F \(1945\)/);
+    expect(wilcoxon.references.join(' ')).toMatch(/Zhao Q \(2019\)/);
+  });
+
+  test("the sign test ignores Pratt's rule and says so", () => {
+    const result = analysePairs({ data: { kind: 'differences', differences: [1, 2, 0, -1, 3, 4] }, test: 'sign', zeroRule: 'pratt' });
+    expect(result.zeroRule).toBe('wilcoxon');
+    expect(result.warnings.join(' ')).toMatch(/signed-rank test only/);
+  });
+
+  test('an unknown zero rule is refused on the field zeroRule', () => {
+    const problems = validatePairsInput({ data: { kind: 'differences', differences: [1, 2, 3] }, zeroRule: 'keep' as never });
+    expect(problems.map((p) => [p.field, p.code])).toEqual([['zeroRule', 'not-a-choice']]);
+  });
+});
+
+describe('conventions', () => {
+  test('every result carries a frozen list of conventions with ids and plain text', () => {
+    const result = analysePairs({ data: { kind: 'differences', differences: reference.datasets.small_n15.differences } });
+    expect(Object.isFrozen(result.conventions)).toBe(true);
+    expect(result.conventions.map((c) => c.id)).toEqual(['zero-differences', 'tied-differences', 'one-sided-bounds', 'interval-two-sided', 'estimate-whole-number']);
+    for (const c of result.conventions) {
+      expect(Object.isFrozen(c)).toBe(true);
+      expect(c.text).not.toMatch(/NaN|undefined|Infinity/);
+    }
+    const counts = analysePairs({ data: { kind: 'discordant', treatedOnly: 12, controlOnly: 3, concordant: 5 }, method: 'normal' });
+    expect(counts.conventions.map((c) => c.id)).toEqual(['zero-differences', 'one-sided-bounds', 'normal-approximation']);
+    expect(counts.tieTolerance).toBe(0);
+  });
+});
+
+/** erf by its Maclaurin series (enough terms for |x| < 3), for the hand check above. */
+function erf(x: number): number {
+  let sum = 0;
+  let term = x;
+  for (let n = 0; n < 200; n++) {
+    sum += term / (2 * n + 1);
+    term *= (-x * x) / (n + 1);
+  }
+  return (2 / Math.sqrt(Math.PI)) * sum;
+}

@@ -50,10 +50,12 @@ describe('conversions: hand computations', () => {
     expectClose(toRiskRatioScale(3, { measure: 'md', sd: 6 }), Math.exp(0.455), { rel: 1e-15 });
   });
 
-  it('the SMD interval multiplier is the published 1.78 at 95% and 0.91·z otherwise', () => {
-    // VanderWeele & Ding 2017, Table 2: exp(0.91·d ± 1.78·SE) for a 95% interval
-    expect(smdIntervalMultiplier(0.95)).toBe(SMD_PUBLISHED_95_MULTIPLIER);
-    expect(SMD_PUBLISHED_95_MULTIPLIER).toBe(1.78);
+  it('the SMD interval multiplier is 0.91·z at every level, 95% included (the printed 1.78 is 0.91 × 1.96 rounded)', () => {
+    // VanderWeele & Ding 2017, Table 2: exp(0.91·d ± 1.78·SE) for a 95% interval, 1.78 printed to 2 decimals
+    expectClose(smdIntervalMultiplier(0.95), SMD_PUBLISHED_95_MULTIPLIER, { abs: 0.005 });
+    expectClose(smdIntervalMultiplier(0.95), 0.91 * confidenceZ(0.95), { rel: 1e-15 });
+    // continuous in the level: no jump at exactly 0.95
+    expectClose(smdIntervalMultiplier(0.9500001), smdIntervalMultiplier(0.95), { rel: 1e-5 });
     // R 4.2.2: 0.91*qnorm(0.995) = 2.344004666229499 (qnorm recalled from memory)
     expectClose(smdIntervalMultiplier(0.99), 0.91 * 2.5758293035489004, { rel: 1e-14 });
     expectClose(smdIntervalMultiplier(0.9), 0.91 * confidenceZ(0.9), { rel: 1e-15 });

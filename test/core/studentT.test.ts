@@ -60,3 +60,35 @@ describe('studentTQuantile', () => {
     expectClose(studentTQuantile(0.975, 1e12), 1.959963984540054, { rel: 1e-9 });
   });
 });
+
+const studentT = readReferenceJson('student_t.json');
+
+describe('accuracy against R base pt and qt (test/reference/student_t.json)', () => {
+  it('upper tails: within 1e-12 relative everywhere, 1e-13 for df ≤ 1000 or df ≥ 9e5', () => {
+    // R 4.2.2: pt(t, df, lower.tail = FALSE), checked in R against pbeta(t²/(df + t²), 1/2, df/2, lower.tail = FALSE)/2
+    for (const c of studentT.tails) {
+      const rel = c.df <= 1000 || c.df >= 9e5 ? 1e-13 : 1e-12;
+      expectClose(studentTUpperTail(c.t, c.df), c.upper, { rel }, `t ${c.t} df ${c.df}`);
+    }
+  });
+
+  it('beyond 1e6 degrees of freedom the tail keeps its relative accuracy far out (t = 8: was 2% off)', () => {
+    // R 4.2.2: pt(8, 1000001, lower.tail = FALSE) = 6.2275317100…e-16 (student_t.json); the normal tail of the
+    // deviate used to come from an erfc with only absolute accuracy
+    const c = studentT.tails.find((x: any) => x.t === 8 && x.df === 1000001);
+    expectClose(studentTUpperTail(8, 1000001), c.upper, { rel: 4e-14 });
+  });
+
+  it('quantiles: within 4e-14 relative (the small tail given as p)', () => {
+    // R 4.2.2: qt(tail, df, lower.tail = FALSE)
+    for (const c of studentT.quantiles) {
+      expectClose(-studentTQuantile(c.tail, c.df), c.quantile, { rel: 4e-14 }, `tail ${c.tail} df ${c.df}`);
+    }
+  });
+
+  it('near df = 1e6 the quantile is accurate to 1e-15, not 8.5e-12', () => {
+    // R 4.2.2: qt(0.025, 999999, lower.tail = FALSE) (student_t.json)
+    const c = studentT.quantiles.find((x: any) => x.tail === 0.025 && x.df === 999999);
+    expectClose(studentTQuantile(0.975, 999999), c.quantile, { rel: 1e-15 });
+  });
+});
