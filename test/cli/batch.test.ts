@@ -14,7 +14,7 @@ describe('lurk batch', () => {
     expect(io.stdout).toMatch(/Fictional finding A.*7\.26\s+3\.00/);
     // Cinelli & Hazlett 2020 published example: RV 13.9%, RV(α = 0.05) 7.6%
     expect(io.stdout).toMatch(/Fictional finding D.*13\.9%\s+7\.6%/);
-    expect(io.stdout).toContain('row 7: estimate: "abc" is not a number');
+    expect(io.stdout).toContain('row 7: estimate: must be a number, got "abc"');
     expect(io.stdout).not.toMatch(/NaN|Infinity|undefined/);
   });
 

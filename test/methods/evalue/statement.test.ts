@@ -26,16 +26,11 @@ describe('eValueStatement', () => {
     expect(part?.assumptions.length).toBeGreaterThan(0);
   });
 
-  it('is the workspace’s E-value paragraph, with its closing convention moved to the assumptions', () => {
-    for (const input of [
-      { measure: 'rr', estimate: 3.9, lower: 1.8, upper: 8.7 },
-      { measure: 'or', estimate: 2.5, lower: 1.6, upper: 3.9, outcomePrevalence: 'common' },
-      { measure: 'smd', estimate: 0.5, se: 0.1 },
-    ] as EValueInput[]) {
-      const { part } = statementOf(input);
-      const old = buildRobustnessStatement(createAppraisal(study, { evalue: { inputs: {}, summary: eValueSummary(analyseEValue(input)) } })).paragraphs[0];
-      expect(old).toBe(`${part?.paragraph} ${part?.assumptions[0]}`);
-    }
+  it('is the workspace statement’s E-value paragraph when the calculator has inputs', () => {
+    const { part } = statementOf({ measure: 'rr', estimate: 3.9, lower: 1.8, upper: 8.7 });
+    const statement = buildRobustnessStatement(createAppraisal(study, { evalue: { inputs: { source: 'reported', measure: 'rr', estimate: '3.9', lower: '1.8', upper: '8.7' }, summary: null } }));
+    expect(statement.paragraphs[0]).toBe(part?.paragraph);
+    for (const a of part?.assumptions ?? []) expect(statement.assumptions).toContain(a);
   });
 
   it('names the conversion as an assumption', () => {

@@ -106,7 +106,8 @@ describe('the regression form', () => {
     const twice = evaluateOvbForm({ ...f, summaryColumns: 'a, d', summaryResult: '{}' }, null);
     expect(twice.problems.map((p) => `${p.field}:${p.code}`)).toEqual(['summaryColumns:chosen-twice']);
     const missing = evaluateOvbForm({ ...f, summaryResult: '{"n": 10}' }, null);
-    expect(missing.problems[0].field).toBe('s_1');
+    // The centred summary query's first per-variable column is m_1 (the mean).
+    expect(missing.problems[0].field).toBe('m_1');
   });
 
   it('completes saved inputs from older or partial objects, keeping what was typed', () => {
