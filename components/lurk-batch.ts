@@ -1,6 +1,6 @@
 import { LitElement, css, html, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import { InputError } from '../src/core/inputProblem';
+import { InputError } from '../src/methods/problems';
 import { appraiseBatchCsv, BATCH_COLUMNS, type BatchResult, type BatchRow } from '../src/workspace/batchFindings';
 import { batchCsvText } from '../src/workspace/batchCsv';
 import { formatNumber, formatPercent } from '../src/format/formatNumber';

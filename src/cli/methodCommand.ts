@@ -1,4 +1,4 @@
-import { InputError, inputProblem } from '../core/inputProblem';
+import { InputError, inputProblem } from '../methods/problems';
 import type { MethodModule } from '../methods/methodModule';
 import type { CliIo } from './cliIo';
 import { defineCommand, type LurkCommand } from './defineCommand';

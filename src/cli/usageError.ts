@@ -1,5 +1,5 @@
-import type { InputProblem } from '../core/inputProblem';
-import { InputError } from '../core/inputProblem';
+import type { InputProblem } from '../methods/problems';
+import { InputError } from '../methods/problems';
 import type { CliIo } from './cliIo';
 
 /** Exit status for bad input (a usage error), as is usual for command-line tools. */

@@ -1,7 +1,7 @@
 import { readAppraisal } from '../../workspace/appraisal';
 import { buildRobustnessStatement, renderRobustnessStatement, type StatementFormat } from '../../workspace/robustnessStatement';
 import { buildBottomLine } from '../../workspace/bottomLine';
-import { InputError, inputProblem } from '../../core/inputProblem';
+import { InputError, inputProblem } from '../../methods/problems';
 import type { LurkCommand } from '../defineCommand';
 import { choiceOption, type OptionKinds } from '../parseOptions';
 import { UsageError } from '../usageError';
