@@ -1,5 +1,5 @@
 import { usolve } from 'mathjs';
-import { StreamingQr } from './streamingQr';
+import { absorbBlock } from './streamingQr';
 import { DEFAULT_COLLINEARITY_TOLERANCE } from './linearModel';
 
 /** Options of {@link fitLogisticRegression}. */
@@ -39,6 +39,8 @@ export interface LogisticFit {
 }
 
 const EPSILON = 2.220446049250313e-16;
+/** Rows per Householder block update. */
+const BLOCK_ROWS = 512;
 /** |η| beyond which R's logistic inverse link is clamped to ε or 1 − ε (−log ε). */
 const ETA_LIMIT = 36.04365338911715;
 
@@ -48,7 +50,7 @@ const ETA_LIMIT = 36.04365338911715;
  * **Method.** Newton's method in its iteratively reweighted least-squares form (Fisher scoring, which is
  * Newton's method for the canonical logit link): from η = Xβ, μ = 1/(1 + e^(−η)), working weights
  * W = w·μ(1 − μ) and working response z = η + (y − μ)/(μ(1 − μ)), each step solves the weighted least-squares
- * problem min ‖W^½(z − Xβ)‖ by Householder QR of [W^½X, W^½z] ({@link StreamingQr}) and back substitution
+ * problem min ‖W^½(z − Xβ)‖ by Householder QR of [W^½X, W^½z] (blocks of rows absorbed as in `StreamingQr`) and back substitution
  * (mathjs `usolve`) — never the normal equations. It stops when |D − D_old|/(|D| + 0.1) < tolerance, D the
  * deviance, or after `maxIterations`; the start and stopping rule, the clamping of μ to [ε, 1 − ε] beyond
  * |η| > −log ε and the boundary rule for fitted values follow R's `glm.fit`, so iteration counts agree with
@@ -87,7 +89,7 @@ export function fitLogisticRegression(
 
   const eta = new Float64Array(n);
   if (options.start !== undefined) {
-    linearPredictor(design, p, options.start, eta);
+    linearPredictor(design, p, options.start, eta, weights);
   } else {
     for (let i = 0; i < n; i++) {
       const w = weights === undefined ? 1 : weights[i];
@@ -97,14 +99,17 @@ export function fitLogisticRegression(
   }
   let devOld = deviance(eta, response, weights);
   const beta = new Float64Array(p);
-  const row = new Float64Array(p + 1);
   const q = p + 1;
+  const r = new Float64Array(q * q);
+  const block = new Float64Array(BLOCK_ROWS * q);
   let iterations = 0;
   let converged = false;
   let dev = devOld;
   for (let iter = 1; iter <= maxIterations; iter++) {
     iterations = iter;
-    const qr = new StreamingQr(q);
+    // Rows of [W^½X, W^½z] go straight into a column-major block absorbed by Householder QR (as StreamingQr).
+    r.fill(0);
+    let filled = 0;
     for (let i = 0; i < n; i++) {
       const w = weights === undefined ? 1 : weights[i];
       if (!(w > 0)) continue;
@@ -115,11 +120,14 @@ export function fitLogisticRegression(
       const z = eta[i] + (response[i] - mu) / dmu;
       const s = Math.sqrt((w * dmu * dmu) / variance);
       const base = i * p;
-      for (let k = 0; k < p; k++) row[k] = s * design[base + k];
-      row[p] = s * z;
-      qr.addRow(row);
+      for (let k = 0, at = filled; k < p; k++, at += BLOCK_ROWS) block[at] = s * design[base + k];
+      block[p * BLOCK_ROWS + filled] = s * z;
+      if (++filled === BLOCK_ROWS) {
+        absorbBlock(r, block, BLOCK_ROWS, BLOCK_ROWS, q);
+        filled = 0;
+      }
     }
-    const r = qr.triangle();
+    if (filled > 0) absorbBlock(r, block, filled, BLOCK_ROWS, q);
     const dependent = dependentColumn(r, q, p, rankTolerance);
     if (dependent >= 0) {
       beta.fill(NaN);
@@ -135,7 +143,7 @@ export function fitLogisticRegression(
     }
     const solution = usolve(u, b) as unknown as number[][];
     for (let k = 0; k < p; k++) beta[k] = Number(solution[k][0]);
-    linearPredictor(design, p, beta, eta);
+    linearPredictor(design, p, beta, eta, weights);
     dev = deviance(eta, response, weights);
     if (Math.abs(dev - devOld) / (Math.abs(dev) + 0.1) < tolerance) {
       converged = true;
@@ -189,9 +197,11 @@ export function logisticProbabilities(
   return out;
 }
 
-function linearPredictor(design: ArrayLike<number>, p: number, beta: ArrayLike<number>, out: Float64Array): void {
+/** η = Xβ; rows with weight 0 (when weights are given) are skipped and left as they were. */
+function linearPredictor(design: ArrayLike<number>, p: number, beta: ArrayLike<number>, out: Float64Array, weights?: ArrayLike<number>): void {
   const n = out.length;
   for (let i = 0, base = 0; i < n; i++, base += p) {
+    if (weights !== undefined && !(weights[i] > 0)) continue;
     let s = 0;
     for (let k = 0; k < p; k++) s += design[base + k] * beta[k];
     out[i] = s;

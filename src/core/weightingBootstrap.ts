@@ -139,6 +139,7 @@ export function runBootstrapChunk(prepared: PreparedWeighting, request: Bootstra
       const beta = fit.coefficients;
       const x = prepared.design;
       for (let i = 0, base = 0; i < n; i++, base += p) {
+        if (weights[i] === 0) continue; // not drawn: its η is never read
         let v = 0;
         for (let k = 0; k < p; k++) v += x[base + k] * beta[k];
         eta[i] = v;

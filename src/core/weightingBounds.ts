@@ -70,15 +70,17 @@ export function weightingBoundTables(
   const w = workspace;
   for (let j = 0; j < treatedOrder.length; j++) {
     const i = treatedOrder[j];
+    const k = counts === null ? 1 : counts[i];
     w.treatedOutcome[j] = outcome[i];
-    w.treatedScaled[j] = estimand === 'ate' ? Math.exp(-linearPredictor[i]) : 0;
-    w.treatedCount[j] = counts === null ? 1 : counts[i];
+    w.treatedScaled[j] = estimand === 'ate' && k !== 0 ? Math.exp(-linearPredictor[i]) : 0;
+    w.treatedCount[j] = k;
   }
   for (let j = 0; j < controlOrder.length; j++) {
     const i = controlOrder[j];
+    const k = counts === null ? 1 : counts[i];
     w.controlOutcome[j] = outcome[i];
-    w.controlScaled[j] = Math.exp(linearPredictor[i]);
-    w.controlCount[j] = counts === null ? 1 : counts[i];
+    w.controlScaled[j] = k !== 0 ? Math.exp(linearPredictor[i]) : 0;
+    w.controlCount[j] = k;
   }
   w.treatedTable = weightedMeanRangeTable(w.treatedOutcome, w.treatedCount, 1, w.treatedScaled, w.treatedTable);
   w.controlTable = weightedMeanRangeTable(w.controlOutcome, w.controlCount, estimand === 'ate' ? 1 : 0, w.controlScaled, w.controlTable);

@@ -1,80 +1,10 @@
 import { describe, expect, test } from 'vitest';
 import fc from 'fast-check';
-import { analyseWeighting, finishWeighting } from '../../src/core/weightingAnalysis';
-import { prepareWeighting, validateWeighting } from '../../src/core/weightingPreparation';
-import { runBootstrapChunk } from '../../src/core/weightingBootstrap';
-import { dummyCode } from '../../src/core/dummyCode';
-import { InputError } from '../../src/core/inputProblem';
-import { SplitMix64 } from '../../src/core/seededRandom';
+import { analyseWeighting } from '../../src/core/weightingAnalysis';
+import { validateWeighting } from '../../src/core/weightingPreparation';
 import type { WeightingInput } from '../../src/core/weightingInput';
 import { expectClose } from '../support/expectClose';
-import { readReferenceJson, readReferenceText } from '../support/reference';
-
-const reference = readReferenceJson('weighting.json');
-
-/** Reads a plain comma-separated fixture (no quoting); empty cells become null. */
-function readColumns(name: string): Record<string, (string | null)[]> {
-  const [header, ...lines] = readReferenceText(name).trim().split('\n');
-  const names = header.split(',');
-  const out: Record<string, (string | null)[]> = Object.fromEntries(names.map((n) => [n, []]));
-  for (const line of lines) line.split(',').forEach((cell, k) => out[names[k]].push(cell === '' ? null : cell));
-  return out;
-}
-const numeric = (values: (string | null)[]) => values.map((v) => (v === null ? NaN : Number(v)));
-
-function mtcarsInput(estimand: 'ate' | 'att', extra: Partial<WeightingInput> = {}): WeightingInput {
-  const c = readColumns('weighting_mtcars.csv');
-  return {
-    treatment: numeric(c.am),
-    outcome: numeric(c.mpg),
-    covariates: [
-      { name: 'hp', values: numeric(c.hp) },
-      { name: 'wt', values: numeric(c.wt) },
-    ],
-    estimand,
-    lambdas: reference.mtcars.ate.lambdas,
-    bootstrap: 0,
-    ...extra,
-  };
-}
-
-function fictionalInput(estimand: 'ate' | 'att', extra: Partial<WeightingInput> = {}): WeightingInput {
-  const c = readColumns('weighting_fictional.csv');
-  const coded = dummyCode([
-    { name: 'age', values: numeric(c.age) },
-    { name: 'site', values: c.site },
-    { name: 'smoker', values: numeric(c.smoker) },
-  ]);
-  return {
-    treatment: numeric(c.treated),
-    outcome: numeric(c.outcome),
-    covariates: coded.columns.map((col) => ({ name: col.name, values: [...col.values] })),
-    estimand,
-    lambdas: reference.fictional.ate.lambdas,
-    bootstrap: 0,
-    ...extra,
-  };
-}
-
-/** Invented data (fictional): two covariates, confounded treatment, a clear effect of 1.5 on the outcome. */
-function generatedInput(n: number, seed: number, extra: Partial<WeightingInput> = {}): WeightingInput {
-  const g = new SplitMix64(seed);
-  const normal = () => Math.sqrt(-2 * Math.log(1 - g.nextDouble())) * Math.cos(2 * Math.PI * g.nextDouble());
-  const x1: number[] = [];
-  const x2: number[] = [];
-  const treatment: number[] = [];
-  const outcome: number[] = [];
-  for (let i = 0; i < n; i++) {
-    const a = normal();
-    const b = g.nextDouble() < 0.4 ? 1 : 0;
-    const t = g.nextDouble() < 1 / (1 + Math.exp(-(0.6 * a - 0.5 * b))) ? 1 : 0;
-    x1.push(a);
-    x2.push(b);
-    treatment.push(t);
-    outcome.push(1.5 * t + a + 0.5 * b + normal());
-  }
-  return { treatment, outcome, covariates: [{ name: 'x1', values: x1 }, { name: 'x2', values: x2 }], estimand: 'ate', ...extra };
-}
+import { fictionalInput, generatedInput, mtcarsInput, weightingReference as reference } from '../support/weightingData';
 
 const cases = [
   ['mtcars', mtcarsInput],
@@ -145,72 +75,6 @@ describe('reference values: R 4.2.2 glm and brute-force bounds (test/reference/g
   });
 });
 
-describe('bootstrap contract', () => {
-  const input = generatedInput(300, 11, { bootstrap: 60, seed: 7, lambdas: [1, 1.2, 1.5, 2] });
-  const whole = analyseWeighting(input);
-
-  test('a fixed seed reproduces the result exactly', () => {
-    expect(analyseWeighting(input)).toEqual(whole);
-  });
-  test('splitting the resamples into chunks, in any order, gives identical results', () => {
-    const prepared = prepareWeighting(input);
-    const chunks = [runBootstrapChunk(prepared, { start: 41, count: 19 }), runBootstrapChunk(prepared, { start: 0, count: 17 }), runBootstrapChunk(prepared, { start: 17, count: 24 })];
-    expect(finishWeighting(prepared, chunks)).toEqual(whole);
-  });
-  test('a cancelled chunk returns the finished resamples and the rest can be computed later', () => {
-    const prepared = prepareWeighting(input);
-    let asked = 0;
-    const first = runBootstrapChunk(prepared, { start: 0, count: 60 }, { isCancelled: () => asked++ >= 25 });
-    expect(first.count).toBe(25);
-    const rest = runBootstrapChunk(prepared, { start: 25, count: 35 });
-    expect(finishWeighting(prepared, [first, rest])).toEqual(whole);
-  });
-  test('progress is reported after each resample', () => {
-    const prepared = prepareWeighting(input);
-    const seen: number[] = [];
-    runBootstrapChunk(prepared, { start: 3, count: 4 }, { onProgress: (done) => seen.push(done) });
-    expect(seen).toEqual([1, 2, 3, 4]);
-  });
-  test('another seed gives another interval', () => {
-    const other = analyseWeighting({ ...input, seed: 8 });
-    expect(other.rows[1].intervalLower).not.toBe(whole.rows[1].intervalLower);
-  });
-  test('the interval contains the point bounds and widens with Λ', () => {
-    let previous = { lower: Infinity, upper: -Infinity };
-    for (const row of whole.rows) {
-      expect(row.intervalLower!).toBeLessThanOrEqual(row.lowerBound);
-      expect(row.intervalUpper!).toBeGreaterThanOrEqual(row.upperBound);
-      expect(row.intervalLower!).toBeLessThanOrEqual(previous.lower);
-      expect(row.intervalUpper!).toBeGreaterThanOrEqual(previous.upper);
-      previous = { lower: row.intervalLower!, upper: row.intervalUpper! };
-    }
-    expect(whole.bootstrap).toMatchObject({ requested: 60, seed: 7, stratified: true });
-    expect(whole.bootstrap.used + whole.bootstrap.failed).toBe(60);
-  });
-  test('the interval tipping Λ is where the interval at Λ first includes 0', () => {
-    expect(whole.tippingIntervalStatus).toBe('found');
-    const tip = whole.tippingLambdaInterval!;
-    expect(tip).toBeLessThanOrEqual(whole.tippingLambdaPoint!);
-    const check = analyseWeighting({ ...input, lambdas: [tip / 1.01, tip * 1.01] });
-    const [before, after] = check.rows;
-    expect(before.intervalLower! > 0 || before.intervalUpper! < 0).toBe(true);
-    expect(after.intervalLower! <= 0 && after.intervalUpper! >= 0).toBe(true);
-  });
-  test('B = 0 gives point bounds only', () => {
-    const result = analyseWeighting({ ...input, bootstrap: 0 });
-    expect(result.rows.every((r) => r.intervalLower === null && r.intervalUpper === null)).toBe(true);
-    expect(result.rows.map((r) => r.lowerBound)).toEqual(whole.rows.map((r) => r.lowerBound));
-    expect(result.bootstrap).toMatchObject({ requested: 0, used: 0, failed: 0 });
-  });
-  test('chunks that leave out or repeat a resample are refused', () => {
-    const prepared = prepareWeighting(input);
-    const a = runBootstrapChunk(prepared, { start: 0, count: 30 });
-    expect(() => finishWeighting(prepared, [a])).toThrow(RangeError);
-    expect(() => finishWeighting(prepared, [a, a, runBootstrapChunk(prepared, { start: 30, count: 30 })])).toThrow(RangeError);
-    expect(() => runBootstrapChunk(prepared, { start: 50, count: 11 })).toThrow(RangeError);
-  });
-});
-
 describe('special values', () => {
   test('an effect of exactly 0 includes no effect at Λ = 1', () => {
     const result = analyseWeighting({ treatment: [1, 1, 0, 0, 1, 0], outcome: [1, 2, 1, 2, 3, 3], covariates: [], estimand: 'ate', bootstrap: 0 });
@@ -260,60 +124,6 @@ describe('invariants', () => {
       ),
       { numRuns: 60 },
     );
-  });
-});
-
-describe('validation', () => {
-  const base: WeightingInput = {
-    treatment: [1, 0, 1, 0, 1, 0, 1, 0],
-    outcome: [3, 1, 4, 1, 5, 9, 2, 6],
-    covariates: [{ name: 'age', values: [30, 31, 45, 20, 50, 41, 33, 52] }],
-    estimand: 'ate',
-    bootstrap: 0,
-  };
-  const problems = (over: Partial<WeightingInput>) => validateWeighting({ ...base, ...over });
-  test('valid input has no problems', () => {
-    expect(problems({})).toEqual([]);
-  });
-  test('treatment not 0/1 is counted', () => {
-    expect(problems({ treatment: [1, 0, 2, 0, 1, 0, 3, 0] })).toMatchObject([{ field: 'treatment', code: 'not-binary', value: 2 }]);
-  });
-  test('everyone treated', () => {
-    expect(problems({ treatment: base.treatment.map(() => 1) })).toMatchObject([{ field: 'treatment', code: 'one-group' }]);
-  });
-  test('a covariate that separates the groups is named', () => {
-    const p = problems({ covariates: [{ name: 'dose', values: [5, 1, 6, 2, 7, 3, 8, 4] }] });
-    expect(p).toMatchObject([{ field: 'covariates[0]', code: 'separation' }]);
-    expect(p[0].message).toContain('"dose"');
-  });
-  test('quasi-separation (ranges touch, as a dummy present only among the treated) is named', () => {
-    expect(problems({ covariates: [{ name: 'rare', values: [1, 0, 0, 0, 1, 0, 0, 0] }] })).toMatchObject([{ field: 'covariates[0]', code: 'separation' }]);
-  });
-  test('a constant covariate and a collinear covariate are named', () => {
-    expect(problems({ covariates: [...base.covariates, { name: 'one', values: base.treatment.map(() => 2) }] })).toMatchObject([{ field: 'covariates[1]', code: 'constant' }]);
-    const twice = base.covariates[0].values.map((v) => 2 * v + 1);
-    expect(problems({ covariates: [...base.covariates, { name: 'age2', values: twice }] })).toMatchObject([{ field: 'covariates[1]', code: 'collinear' }]);
-  });
-  test('Λ below 1, a bad B, seed, α and trimming rule', () => {
-    expect(problems({ lambdas: [1, 0.5] })).toMatchObject([{ field: 'lambdas[1]', code: 'below-one' }]);
-    expect(problems({ bootstrap: 2.5 })).toMatchObject([{ field: 'bootstrap' }]);
-    expect(problems({ seed: -1 })).toMatchObject([{ field: 'seed' }]);
-    expect(problems({ alpha: 1 })).toMatchObject([{ field: 'alpha' }]);
-    expect(problems({ trim: { below: 0.6, above: 0.9 } })).toMatchObject([{ field: 'trim' }]);
-    expect(problems({ estimand: 'atc' as never })).toMatchObject([{ field: 'estimand' }]);
-  });
-  test('a non-numeric outcome is counted; NaN is missing, not an error', () => {
-    expect(problems({ outcome: [3, 'x', 4, 1, Infinity, 9, 2, 6] as never })).toMatchObject([{ field: 'outcome', code: 'not-numeric', value: 2 }]);
-    expect(problems({ outcome: [3, NaN, 4, 1, 5, 9, 2, 6, 0, 0].slice(0, 8) })).toEqual([]);
-  });
-  test('too few people', () => {
-    expect(problems({ treatment: [1, 0, 0], outcome: [1, 2, 3], covariates: [] })).toMatchObject([{ field: 'treatment', code: 'too-few-people' }]);
-  });
-  test('columns of different lengths', () => {
-    expect(problems({ outcome: [1, 2] })).toMatchObject([{ field: 'outcome', code: 'length' }]);
-  });
-  test('analyseWeighting throws an InputError carrying the problems', () => {
-    expect(() => analyseWeighting({ ...base, lambdas: [0.5] })).toThrow(InputError);
   });
 });
 
