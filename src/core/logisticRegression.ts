@@ -1,4 +1,3 @@
-import { usolve } from 'mathjs';
 import { absorbBlock } from './streamingQr';
 import { DEFAULT_COLLINEARITY_TOLERANCE } from './linearModel';
 
@@ -51,7 +50,8 @@ const ETA_LIMIT = 36.04365338911715;
  * Newton's method for the canonical logit link): from η = Xβ, μ = 1/(1 + e^(−η)), working weights
  * W = w·μ(1 − μ) and working response z = η + (y − μ)/(μ(1 − μ)), each step solves the weighted least-squares
  * problem min ‖W^½(z − Xβ)‖ by Householder QR of [W^½X, W^½z] (blocks of rows absorbed as in `StreamingQr`) and back substitution
- * (mathjs `usolve`) — never the normal equations. It stops when |D − D_old|/(|D| + 0.1) < tolerance, D the
+ * — never the normal equations. (The p×p triangular solve is written out: mathjs' `usolve` treats pivots
+ * below its fixed epsilon as zero, which would refuse a covariate measured in very small units.) It stops when |D − D_old|/(|D| + 0.1) < tolerance, D the
  * deviance, or after `maxIterations`; the start and stopping rule, the clamping of μ to [ε, 1 − ε] beyond
  * |η| > −log ε and the boundary rule for fitted values follow R's `glm.fit`, so iteration counts agree with
  * R's `glm(…, family = binomial)`. A design column whose part not explained by the earlier columns (the
@@ -133,16 +133,12 @@ export function fitLogisticRegression(
       beta.fill(NaN);
       return Object.freeze({ coefficients: beta, iterations, converged: false, deviance: NaN, fittedAtBoundary: false, dependentColumn: dependent });
     }
-    const u: number[][] = [];
-    const b: number[] = [];
-    for (let i = 0; i < p; i++) {
-      const rowI: number[] = [];
-      for (let k = 0; k < p; k++) rowI.push(r[i * q + k]);
-      u.push(rowI);
-      b.push(r[i * q + p]);
+    // Back substitution R[0:p, 0:p]·β = R[0:p, p] (the pivots were checked above).
+    for (let i = p - 1; i >= 0; i--) {
+      let v = r[i * q + p];
+      for (let k = i + 1; k < p; k++) v -= r[i * q + k] * beta[k];
+      beta[i] = v / r[i * q + i];
     }
-    const solution = usolve(u, b) as unknown as number[][];
-    for (let k = 0; k < p; k++) beta[k] = Number(solution[k][0]);
     linearPredictor(design, p, beta, eta, weights);
     dev = deviance(eta, response, weights);
     if (Math.abs(dev - devOld) / (Math.abs(dev) + 0.1) < tolerance) {
