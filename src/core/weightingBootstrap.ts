@@ -73,7 +73,7 @@ export function lambdaGrid(limit: number): Float64Array {
  * **Method.** Resample i (0-based) draws with its own generator `streamForIndex(seed, i)` (SplitMix64), so
  * its result does not depend on how the B resamples are split into chunks or threads. It is stratified by
  * treatment group: first n₁ treated people are drawn with replacement from the n₁ treated, then n₀ controls
- * from the n₀ controls (so every resample has both groups, of the original sizes); a person drawn k times
+ * from the n₀ controls (draw u picks the ⌊u·n₁⌋-th treated person in the order of the data) (so every resample has both groups, of the original sizes); a person drawn k times
  * gets frequency weight k. The logistic propensity model is refitted by Newton/IRLS with those weights,
  * starting from the full-data coefficients; a resample whose fit shows separation (a fitted propensity
  * within 10ε of 0 or 1), does not converge in 25 iterations, or loses rank (a covariate constant or
@@ -115,6 +115,13 @@ export function runBootstrapChunk(prepared: PreparedWeighting, request: Bootstra
   const controlPeople = prepared.controlOrder;
   const n1 = treatedPeople.length;
   const n0 = controlPeople.length;
+  // Draws pick the k-th treated (control) person in data order, so a resample does not depend on the outcomes.
+  const treatedInDataOrder = new Int32Array(n1);
+  const controlInDataOrder = new Int32Array(n0);
+  for (let i = 0, a = 0, b = 0; i < n; i++) {
+    if (prepared.treatment[i] === 1) treatedInDataOrder[a++] = i;
+    else controlInDataOrder[b++] = i;
+  }
   const workspace = weightingBoundsWorkspace(n1, n0);
   const response = prepared.treatment;
   let done = 0;
@@ -122,8 +129,8 @@ export function runBootstrapChunk(prepared: PreparedWeighting, request: Bootstra
     if (options.isCancelled?.()) break;
     const rng = streamForIndex(prepared.seed, start + r);
     weights.fill(0);
-    for (let k = 0; k < n1; k++) weights[treatedPeople[rng.nextIndex(n1)]]++;
-    for (let k = 0; k < n0; k++) weights[controlPeople[rng.nextIndex(n0)]]++;
+    for (let k = 0; k < n1; k++) weights[treatedInDataOrder[rng.nextIndex(n1)]]++;
+    for (let k = 0; k < n0; k++) weights[controlInDataOrder[rng.nextIndex(n0)]]++;
     const fit = fitLogisticRegression(prepared.design, p, response, { weights, start: prepared.coefficients });
     let s: ResampleStatus = ResampleStatus.used;
     if (fit.dependentColumn >= 0) s = ResampleStatus.rankDeficient;

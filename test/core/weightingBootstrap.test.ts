@@ -3,6 +3,7 @@ import { analyseWeighting, finishWeighting } from '../../src/core/weightingAnaly
 import { prepareWeighting } from '../../src/core/weightingPreparation';
 import { lambdaGrid, LAMBDA_GRID_SIZE, ResampleStatus, runBootstrapChunk } from '../../src/core/weightingBootstrap';
 import { generatedInput } from '../support/weightingData';
+import { expectClose } from '../support/expectClose';
 
 describe('bootstrap contract', () => {
   const input = generatedInput(300, 11, { bootstrap: 60, seed: 7, lambdas: [1, 1.2, 1.5, 2] });
@@ -67,6 +68,24 @@ describe('bootstrap contract', () => {
     expect(() => finishWeighting(prepared, [a])).toThrow(RangeError);
     expect(() => finishWeighting(prepared, [a, a, runBootstrapChunk(prepared, { start: 30, count: 30 })])).toThrow(RangeError);
     expect(() => runBootstrapChunk(prepared, { start: 50, count: 11 })).toThrow(RangeError);
+  });
+});
+
+describe('invariants', () => {
+  test('negating every outcome negates the bounds and intervals and keeps both tipping values', () => {
+    // Type-7 quantiles are symmetric: the α/2 quantile of −X is minus the 1 − α/2 quantile of X.
+    const input = generatedInput(200, 5, { bootstrap: 30, seed: 3, lambdas: [1, 1.3] });
+    const a = analyseWeighting(input);
+    const b = analyseWeighting({ ...input, outcome: input.outcome.map((v) => -v) });
+    a.rows.forEach((row, k) => {
+      expectClose(b.rows[k].lowerBound, -row.upperBound, { rel: 1e-9 });
+      expectClose(b.rows[k].intervalLower!, -row.intervalUpper!, { rel: 1e-9 });
+      expectClose(b.rows[k].intervalUpper!, -row.intervalLower!, { rel: 1e-9 });
+    });
+    expect(b.tippingPointStatus).toBe(a.tippingPointStatus);
+    expect(b.tippingIntervalStatus).toBe(a.tippingIntervalStatus);
+    expectClose(b.tippingLambdaPoint!, a.tippingLambdaPoint!, { rel: 1e-9 });
+    expectClose(b.tippingLambdaInterval!, a.tippingLambdaInterval!, { rel: 1e-6 });
   });
 });
 
