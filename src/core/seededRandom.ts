@@ -111,7 +111,17 @@ export function streamForIndex(seed: number, index: number): SplitMix64 {
   return SplitMix64.fromHalves(outHi, outLo);
 }
 
-/** True for a whole number in [0, 2⁵³ − 1]. */
+/**
+ * Whether a value can seed {@link SplitMix64}.
+ *
+ * **Method.** `Number.isSafeInteger(value) && value ≥ 0`.
+ *
+ * **References.** None (a type check).
+ *
+ * **Special cases.** −0 counts as 0 (accepted); NaN, ±Infinity, fractions and 2⁵³ are refused.
+ *
+ * @param value anything
+ */
 export function isSeed(value: unknown): value is number {
   return typeof value === 'number' && Number.isSafeInteger(value) && value >= 0;
 }

@@ -51,10 +51,16 @@ export interface BootstrapChunk {
 }
 
 /**
- * The Λ values on which resampled bounds are kept for the interval's tipping Λ: G = {@link LAMBDA_GRID_SIZE}
- * values Λ_g = limit^(g/(G − 1)), g = 0 … G − 1 (steps of about 0.58% for the default limit 100).
+ * The Λ values on which resampled bounds are kept for the interval's tipping Λ.
  *
- * @param limit the search limit, > 1
+ * **Method.** G = {@link LAMBDA_GRID_SIZE} log-spaced values Λ_g = limit^(g/(G − 1)), g = 0 … G − 1 (steps of
+ * about 0.58% for the default limit 100); the ends are set to exactly 1 and exactly the limit.
+ *
+ * **References.** None needed (a grid); its use is described in `analyseWeighting`.
+ *
+ * **Special cases.** limit = 1 gives G copies of 1.
+ *
+ * @param limit the search limit, ≥ 1
  */
 export function lambdaGrid(limit: number): Float64Array {
   const g = new Float64Array(LAMBDA_GRID_SIZE);

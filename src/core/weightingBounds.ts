@@ -20,7 +20,19 @@ export interface WeightingBoundsWorkspace {
   controlTable?: WeightedMeanRangeTable;
 }
 
-/** Scratch arrays for groups of the given sizes. */
+/**
+ * Scratch arrays for {@link weightingBoundTables}, sized for the two groups.
+ *
+ * **Method.** Plain allocation of six arrays; the range tables are added on first use.
+ *
+ * **References.** None (a buffer).
+ *
+ * **Special cases.** Sizes of 0 give empty arrays.
+ *
+ * @param treatedSize number of treated people, whole number ≥ 0
+ * @param controlSize number of controls, whole number ≥ 0
+ * @throws RangeError when a size is negative or not whole (from the typed-array constructor)
+ */
 export function weightingBoundsWorkspace(treatedSize: number, controlSize: number): WeightingBoundsWorkspace {
   return {
     treatedOutcome: new Float64Array(treatedSize),

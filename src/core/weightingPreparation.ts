@@ -77,6 +77,16 @@ interface Inspection {
 /**
  * Checks a weighting analysis' input and returns every problem found (empty when it can be analysed).
  *
+ * **Method.** Settings first (estimand, Λ values, B, seed, α, trimming rule, search limit), then the columns
+ * (lengths, names, 0/1 treatment, numeric values), then — after dropping people with a missing value — the
+ * group sizes, the rank of [1, covariates], single-covariate separation and the propensity fit, and again
+ * for the people kept after trimming.
+ *
+ * **References.** Albert A, Anderson JA (1984) On the existence of maximum likelihood estimates in logistic
+ * regression models. Biometrika 71(1):1–10 (complete and quasi-complete separation).
+ *
+ * **Special cases.** A missing value (NaN) is never a problem by itself; Infinity and non-numbers are.
+ *
  * Fields and codes: `treatment` (`not-binary` with the count, `one-group`, `too-few-people`, `length`),
  * `outcome` (`not-numeric` with the count, `length`), `covariates[i].values` (`not-numeric`, `length`),
  * `covariates[i].name` (`empty-name`, `duplicate-name`), `covariates[i]` (`constant`, `collinear`,
@@ -87,7 +97,12 @@ interface Inspection {
  *
  * The checks that need data run after people with a missing value are dropped; separation and collinearity
  * are judged by fitting the propensity model (R's `glm` rules: fitted probabilities within 10ε of 0 or 1, or
- * no convergence in 25 iterations) and by the QR rank test of the design at R's `lm` tolerance 1e-7.
+ * no convergence in 25 iterations; and coefficients still diverging: three further Newton steps from the
+ * estimate still move some person's linear predictor by more than 1e-3, where at a finite maximum they move
+ * it by rounding error only — the covariates whose coefficients move are named) and by the QR rank test of
+ * the design at R's `lm` tolerance 1e-7.
+ *
+ * @param input the analysis input (any shape: every field is checked)
  */
 export function validateWeighting(input: WeightingInput): InputProblem[] {
   return inspect(input).problems;
@@ -96,8 +111,18 @@ export function validateWeighting(input: WeightingInput): InputProblem[] {
 /**
  * Validates the input, drops and counts people with missing values, fits the propensity model by logistic
  * regression (Newton/IRLS), applies the optional trimming rule (refitting to those kept), and returns the
- * data ready for the point bounds and the bootstrap. See `analyseWeighting` for the method.
+ * data ready for the point bounds and the bootstrap.
  *
+ * **Method.** As `analyseWeighting`, steps (1)–(3); the people of each group are also listed in ascending
+ * order of outcome (ties by position), which every bound computation reuses.
+ *
+ * **References.** Rosenbaum PR, Rubin DB (1983) The central role of the propensity score in observational
+ * studies for causal effects. Biometrika 70(1):41–55.
+ *
+ * **Special cases.** Defaults are filled in (Λ values, B, seed, α, search limit). Trimming that drops nobody
+ * keeps the first fit.
+ *
+ * @param input see {@link WeightingInput}
  * @throws InputError carrying every problem from {@link validateWeighting}
  */
 export function prepareWeighting(input: WeightingInput): PreparedWeighting {
@@ -294,6 +319,9 @@ function settingsProblems(input: WeightingInput, problems: InputProblem[]): void
   }
 }
 
+/** A Newton step that still moves someone's linear predictor by more than this signals divergence (separation). */
+const DIVERGENCE_STEP = 1e-3;
+
 interface CheckedFit {
   problems: InputProblem[];
   fit?: LogisticFit;
@@ -388,12 +416,39 @@ function checkAndFit(people: readonly number[], treatment: readonly number[], co
     problems.push(inputProblem(`covariates[${k}]`, 'collinear', capital(`"${covariates[k].name}" is (numerically) a linear combination of the other covariates in the weighted fit; drop it.`), covariates[k].name));
     return { problems };
   }
-  if (fit.fittedAtBoundary) {
+  // Divergence: three more Newton steps from the estimate. At a finite maximum they move the linear predictor
+  // by rounding error only (Newton converges quadratically); under separation the coefficients keep growing,
+  // moving some people's η by about 1 per step. The covariates whose coefficients move are named.
+  const further = fitLogisticRegression(x, p, y, { start: fit.coefficients, maxIterations: 3, tolerance: 0 });
+  const moving: string[] = [];
+  let diverging = false;
+  if (further.dependentColumn < 0) {
+    const delta = Array.from({ length: p }, (_, k) => further.coefficients[k] - fit.coefficients[k]);
+    let largest = 0;
+    for (let j = 0; j < people.length; j++) {
+      let d = 0;
+      for (let k = 0; k < p; k++) d += x[j * p + k] * delta[k];
+      largest = Math.max(largest, Math.abs(d));
+    }
+    diverging = largest > DIVERGENCE_STEP;
+    covariates.forEach((c, k) => {
+      let lo = Infinity;
+      let hi = -Infinity;
+      for (const i of people) {
+        lo = Math.min(lo, c.values[i]);
+        hi = Math.max(hi, c.values[i]);
+      }
+      if (Math.abs(delta[k + 1]) * (hi - lo) > DIVERGENCE_STEP) moving.push(`"${c.name}"`);
+    });
+  }
+  if (fit.fittedAtBoundary || diverging) {
+    const named = moving.length > 0 ? ` (the coefficients of ${moving.join(', ')} grow without limit)` : '';
     problems.push(
       inputProblem(
         'covariates',
         'separation',
-        capital('A combination of the covariates separates treated from control people (some fitted propensities are 0 or 1 to machine precision), so some weights would be infinite; simplify the propensity model or restrict the analysis to the overlapping range.'),
+        capital(`A combination of the covariates separates treated from control people${named}: the propensity model has no finite estimate and some weights would be infinite; simplify the propensity model or restrict the analysis to the overlapping range.`),
+        moving.map((m) => m.slice(1, -1)),
       ),
     );
     return { problems };

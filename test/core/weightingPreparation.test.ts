@@ -61,6 +61,17 @@ describe('validation', () => {
   test('quasi-separation (ranges touch, as a dummy present only among the treated) is named', () => {
     expect(problems({ covariates: [{ name: 'rare', values: [1, 0, 0, 0, 1, 0, 0, 0] }] })).toMatchObject([{ field: 'covariates[0]', code: 'separation' }]);
   });
+  test('separation by a combination of covariates is refused and the diverging covariates named', () => {
+    // Invented data: treated exactly when x1 + x2 > 1, both groups on the line x1 + x2 = 1 (quasi-complete
+    // separation; R 4.2.2 glm warns "fitted probabilities numerically 0 or 1 occurred" on these data)
+    const x1 = [0, 1, 2, 0, 1, 2, 0, 1, 2, 0.5, 0.5, 3, -1, 1.5];
+    const x2 = [0, 0, 0, 1, 1, 1, 2, 2, 2, 0.5, 0.5, -1, 3, -0.5];
+    const treatment = [0, 0, 1, 1, 1, 1, 1, 1, 1, 0, 1, 1, 1, 0];
+    const p = validateWeighting({ treatment, outcome: x1.map((v, i) => v - x2[i]), covariates: [{ name: 'x1', values: x1 }, { name: 'x2', values: x2 }], estimand: 'ate' });
+    expect(p).toMatchObject([{ field: 'covariates', code: 'separation' }]);
+    expect(p[0].message).toContain('"x1"');
+    expect(p[0].message).toContain('"x2"');
+  });
   test('a constant covariate and a collinear covariate are named', () => {
     expect(problems({ covariates: [...base.covariates, { name: 'one', values: base.treatment.map(() => 2) }] })).toMatchObject([{ field: 'covariates[1]', code: 'constant' }]);
     const twice = base.covariates[0].values.map((v) => 2 * v + 1);
