@@ -183,3 +183,33 @@ export function runBootstrapChunk(prepared: PreparedWeighting, request: Bootstra
     gridUpperBounds: gridUpperBounds.slice(0, done * G),
   };
 }
+
+/**
+ * Splits resamples 0 … total − 1 into `parts` consecutive requests of nearly equal size (for worker threads).
+ *
+ * **Method.** The first total mod parts requests get ⌈total/parts⌉ resamples, the rest ⌊total/parts⌋; empty
+ * requests are left out.
+ *
+ * **References.** None (bookkeeping).
+ *
+ * **Special cases.** total = 0 gives no requests; parts > total gives `total` requests of one resample.
+ *
+ * @param total B, a whole number ≥ 0
+ * @param parts a whole number ≥ 1
+ * @throws RangeError when either is not such a number
+ */
+export function splitBootstrap(total: number, parts: number): BootstrapChunkRequest[] {
+  if (!(Number.isInteger(total) && total >= 0 && Number.isInteger(parts) && parts >= 1)) {
+    throw new RangeError('total must be a whole number ≥ 0 and parts a whole number ≥ 1');
+  }
+  const requests: BootstrapChunkRequest[] = [];
+  const base = Math.floor(total / parts);
+  const extra = total % parts;
+  let start = 0;
+  for (let k = 0; k < parts; k++) {
+    const count = base + (k < extra ? 1 : 0);
+    if (count > 0) requests.push(Object.freeze({ start, count }));
+    start += count;
+  }
+  return requests;
+}

@@ -1,7 +1,7 @@
 import { describe, expect, test } from 'vitest';
 import { analyseWeighting, finishWeighting } from '../../src/core/weightingAnalysis';
 import { prepareWeighting } from '../../src/core/weightingPreparation';
-import { lambdaGrid, LAMBDA_GRID_SIZE, ResampleStatus, runBootstrapChunk } from '../../src/core/weightingBootstrap';
+import { lambdaGrid, LAMBDA_GRID_SIZE, ResampleStatus, runBootstrapChunk, splitBootstrap } from '../../src/core/weightingBootstrap';
 import { generatedInput } from '../support/weightingData';
 import { expectClose } from '../support/expectClose';
 
@@ -112,6 +112,18 @@ describe('special values', () => {
     expect(result.bootstrap.failed).toBe(failed);
     expect(result.bootstrap.used).toBe(50 - failed);
     expect(result.warnings.some((w) => w.includes(`${failed} of 50 bootstrap resamples could not be used`))).toBe(true);
+  });
+  test('splitBootstrap covers 0 … B − 1 in consecutive nearly equal parts', () => {
+    expect(splitBootstrap(10, 3)).toEqual([{ start: 0, count: 4 }, { start: 4, count: 3 }, { start: 7, count: 3 }]);
+    expect(splitBootstrap(2, 4)).toEqual([{ start: 0, count: 1 }, { start: 1, count: 1 }]);
+    expect(splitBootstrap(0, 2)).toEqual([]);
+    expect(() => splitBootstrap(5, 0)).toThrow(RangeError);
+  });
+  test('two parts from splitBootstrap give the same result as one run', () => {
+    const input = generatedInput(120, 9, { bootstrap: 21, seed: 4 });
+    const prepared = prepareWeighting(input);
+    const chunks = splitBootstrap(21, 2).map((r) => runBootstrapChunk(prepared, r));
+    expect(finishWeighting(prepared, chunks)).toEqual(analyseWeighting(input));
   });
   test('an empty chunk is allowed', () => {
     const prepared = prepareWeighting(generatedInput(50, 3, { bootstrap: 5 }));
