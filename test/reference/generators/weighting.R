@@ -1,0 +1,135 @@
+# Reference values for the weighting sensitivity analysis (src/core/weighting*.ts).
+# R base only (stats + datasets). Run from the repository root:
+#   Rscript test/reference/generators/weighting.R
+# Writes test/reference/weighting.json, test/reference/weighting_mtcars.csv and
+# test/reference/weighting_fictional.csv.
+#
+# Propensity: glm(treatment ~ covariates, family = binomial) with R's defaults (epsilon 1e-8, maxit 25).
+# Bounds: BRUTE FORCE over every split of each group's sorted outcomes (both directions: low weights below
+# the split and high above, and the reverse), written independently of the TypeScript code.
+# Tipping Λ of the point bounds: uniroot on the bound nearer zero.
+Sys.setlocale("LC_COLLATE", "C")
+
+num <- function(x) {
+  if (length(x) == 1 && is.na(x)) return("null")
+  if (is.logical(x)) return(if (x) "true" else "false")
+  sprintf("%.17g", x)
+}
+arr <- function(x) paste0("[", paste(vapply(x, num, ""), collapse = ", "), "]")
+str <- function(x) paste0('"', x, '"')
+
+# Every split of the sorted outcomes; weight f + s*h, h = 1/lambda or lambda.
+group_range <- function(y, s, f, lambda) {
+  o <- order(y)
+  y <- y[o]; s <- s[o]
+  m <- length(y)
+  best_lo <- Inf; best_hi <- -Inf
+  for (k in 0:m) {
+    below <- seq_len(m) <= k
+    for (dir in 1:2) {
+      h <- if (dir == 1) ifelse(below, 1 / lambda, lambda) else ifelse(below, lambda, 1 / lambda)
+      w <- f + s * h
+      v <- sum(w * y) / sum(w)
+      best_lo <- min(best_lo, v); best_hi <- max(best_hi, v)
+    }
+  }
+  c(best_lo, best_hi)
+}
+
+effect_bounds <- function(y, t, e, estimand, lambda) {
+  odds <- e / (1 - e)
+  if (estimand == "ate") {
+    tr <- group_range(y[t == 1], 1 / odds[t == 1], 1, lambda)
+    co <- group_range(y[t == 0], odds[t == 0], 1, lambda)
+  } else {
+    tr <- rep(mean(y[t == 1]), 2)
+    co <- group_range(y[t == 0], odds[t == 0], 0, lambda)
+  }
+  c(tr[1] - co[2], tr[2] - co[1])
+}
+
+hajek <- function(y, t, e, estimand) {
+  if (estimand == "ate") { w1 <- 1 / e[t == 1]; w0 <- 1 / (1 - e[t == 0]) }
+  else { w1 <- rep(1, sum(t == 1)); w0 <- e[t == 0] / (1 - e[t == 0]) }
+  m1 <- sum(w1 * y[t == 1]) / sum(w1); m0 <- sum(w0 * y[t == 0]) / sum(w0)
+  c(m1, m0, m1 - m0)
+}
+
+lambdas <- c(1, 1.1, 1.5, 2, 3, 5)
+
+case_json <- function(name, source, fit, y, t, covnames) {
+  e <- unname(fitted(fit))
+  parts <- c()
+  for (estimand in c("ate", "att")) {
+    h <- hajek(y, t, e, estimand)
+    b <- sapply(lambdas, function(l) effect_bounds(y, t, e, estimand, l))
+    side <- if (h[3] > 0) 1 else 2
+    f <- function(l) effect_bounds(y, t, e, estimand, l)[side]
+    tip <- if (f(100) * f(1) > 0) NA else uniroot(function(ll) f(exp(ll)), c(0, log(100)), tol = 1e-12)$root
+    parts <- c(parts, paste0(
+      str(estimand), ": {",
+      '"treated_mean": ', num(h[1]), ', "control_mean": ', num(h[2]), ', "effect": ', num(h[3]), ", ",
+      '"lambdas": ', arr(lambdas), ", ",
+      '"lower": ', arr(b[1, ]), ", ",
+      '"upper": ', arr(b[2, ]), ", ",
+      '"tipping_lambda_point": ', if (is.na(tip)) "null" else num(exp(tip)), "}"))
+  }
+  paste0(
+    str(name), ": {",
+    '"source": ', str(source), ", ",
+    '"n": ', length(y), ", ",
+    '"covariates": [', paste(str(covnames), collapse = ", "), "], ",
+    '"coefficients": ', arr(unname(coef(fit))), ", ",
+    '"iterations": ', fit$iter, ", ",
+    '"converged": ', num(fit$converged), ", ",
+    '"deviance": ', num(fit$deviance), ", ",
+    '"propensities": ', arr(e), ", ",
+    paste(parts, collapse = ", "), "}")
+}
+
+# 1. mtcars (R datasets; Henderson & Velleman 1981, from Motor Trend 1974): treatment am (1 = manual),
+#    outcome mpg, covariates hp and wt.
+data(mtcars)
+write.csv(data.frame(am = mtcars$am, mpg = mtcars$mpg, hp = mtcars$hp, wt = mtcars$wt),
+  "test/reference/weighting_mtcars.csv", row.names = FALSE, quote = FALSE)
+fit1 <- glm(am ~ hp + wt, family = binomial, data = mtcars)
+case1 <- case_json("mtcars", "R datasets::mtcars; treatment am, outcome mpg, covariates hp and wt", fit1,
+  mtcars$mpg, mtcars$am, c("hp", "wt"))
+
+# 2. Fictional data (invented; no real people): 150 rows, a numeric covariate, a three-level text
+#    covariate and a binary one, with three missing cells.
+set.seed(20261202)
+n <- 150
+age <- round(rnorm(n, 50, 12))
+site <- sample(c("north", "east", "west"), n, replace = TRUE)
+smoker <- rbinom(n, 1, 0.3)
+lin <- -0.5 + 0.04 * (age - 50) + ifelse(site == "east", 0.6, ifelse(site == "west", -0.4, 0)) + 0.8 * smoker
+treated <- rbinom(n, 1, plogis(lin))
+outcome <- round(10 + 2 * treated + 0.1 * (age - 50) + ifelse(site == "west", 1, 0) + rnorm(n, 0, 3), 3)
+age[7] <- NA; site[20] <- NA; outcome[33] <- NA
+write.csv(data.frame(treated, outcome, age, site, smoker), "test/reference/weighting_fictional.csv",
+  row.names = FALSE, quote = FALSE, na = "")
+d <- data.frame(treated, outcome, age, site = factor(site), smoker)
+d <- d[complete.cases(d), ]
+fit2 <- glm(treated ~ age + site + smoker, family = binomial, data = d)
+case2 <- case_json("fictional", "invented data (fictional), generated by this script with set.seed(20261202)",
+  fit2, d$outcome, d$treated, c("age", "site=north", "site=west", "smoker"))
+
+# 3. Logistic regression alone: mtcars with frequency weights (0, 0, then 1, 2, 3 repeated), and a
+#    completely separated invented example (x = 1..10, y = 1 when x > 5), for which R reports fitted
+#    probabilities numerically 0 or 1.
+w <- c(0, 0, rep(c(1, 2, 3), 10))
+fit3 <- glm(am ~ hp + wt, family = binomial, data = mtcars, weights = w)
+x <- 1:10; ysep <- as.numeric(x > 5)
+fit4 <- suppressWarnings(glm(ysep ~ x, family = binomial))
+eps <- .Machine$double.eps
+boundary4 <- any(fitted(fit4) < 10 * eps | fitted(fit4) > 1 - 10 * eps)
+case3 <- paste0('"logistic": {',
+  '"weighted_mtcars": {"weights": ', arr(w), ', "coefficients": ', arr(unname(coef(fit3))),
+  ', "iterations": ', fit3$iter, ', "converged": ', num(fit3$converged), ', "deviance": ', num(fit3$deviance), '}, ',
+  '"separated": {"x": ', arr(x), ', "y": ', arr(ysep), ', "converged": ', num(fit4$converged),
+  ', "iterations": ', fit4$iter, ', "fitted_at_boundary": ', num(boundary4), '}}')
+
+writeLines(paste0("{\n",
+  '"generator": "test/reference/generators/weighting.R", "r_version": ', str(R.version.string), ",\n",
+  case1, ",\n", case2, ",\n", case3, "\n}"), "test/reference/weighting.json")
