@@ -20,13 +20,16 @@ export function describeCharLimit(chars: number): string {
   return `${chars.toLocaleString('en')} characters`;
 }
 
-/** The error for a record above the length limit (record 1 is the header). */
-export function recordTooLongError(recordNumber: number, limit: number, field = 'file'): InputError {
+/**
+ * The error for a record above the length limit (record 1 is the header). `unit` says whether the number
+ * counts records (a quoted field may span lines) or physical lines.
+ */
+export function recordTooLongError(recordNumber: number, limit: number, field = 'file', unit: 'record' | 'line' = 'record'): InputError {
   return new InputError([
     inputProblem(
       field,
       'record-too-long',
-      `record ${recordNumber.toLocaleString('en')}${recordNumber === 1 ? ' (the header)' : ''} is longer than ${describeCharLimit(limit)} (the longest row this reader accepts); is this a CSV file?`,
+      `${unit} ${recordNumber.toLocaleString('en')}${recordNumber === 1 ? ' (the header)' : ''} is longer than ${describeCharLimit(limit)} (the longest row this reader accepts); is this a CSV file?`,
       recordNumber,
     ),
   ]);

@@ -5,6 +5,7 @@ import { CsvChunkReader, type CsvDialect, type CsvRecordSpans } from '../../data
 import { parseNumberText } from '../../data/numberText';
 import { byteSourceChunks, type ByteSource } from '../../data/byteSource';
 import { isMissingCell } from '../../data/missingCell';
+import { printable, printableList } from '../../data/printable';
 
 /** Which columns of a CSV enter the regression, and how. */
 export interface RegressionDataSpec {
@@ -96,14 +97,15 @@ export interface RegressionAccumulator {
  */
 export function validateRegressionDataSpec(spec: RegressionDataSpec, header: readonly string[]): InputProblem[] {
   const problems: InputProblem[] = [];
-  const list = header.map((h) => `"${h}"`).join(', ');
+  // A set, not header.includes per name: a wide header with every other column a covariate stays linear.
+  const names = new Set(header);
   const known = (field: string, name: unknown): boolean => {
     if (typeof name !== 'string' || name === '') {
       problems.push(inputProblem(field, 'required', 'needs a column name.', name));
       return false;
     }
-    if (!header.includes(name)) {
-      problems.push(inputProblem(field, 'unknown-column', `there is no column named "${name}" (columns: ${list}).`, name));
+    if (!names.has(name)) {
+      problems.push(inputProblem(field, 'unknown-column', `there is no column named "${printable(name)}" (columns: ${printableList(header)}).`, name));
       return false;
     }
     return true;
@@ -298,14 +300,21 @@ export function createRegressionAccumulator(
     const covariates = spec.covariates ?? header.filter((h) => h !== spec.outcome && h !== spec.treatment);
     resolvedCovariates = [...covariates];
     throwIfProblems(validateRegressionDataSpec({ ...spec, covariates }, header));
-    const duplicates = header.filter((h, i) => header!.indexOf(h) !== i);
-    if (duplicates.length > 0) warnings.push(`The header repeats ${[...new Set(duplicates)].map((d) => `"${d}"`).join(', ')}; the first column of each name is used.`);
+    // First position of each name, and the repeated names, in one pass (linear in the header's width).
+    const firstIndex = new Map<string, number>();
+    const repeated = new Set<string>();
+    header.forEach((h, i) => {
+      if (firstIndex.has(h)) repeated.add(h);
+      else firstIndex.set(h, i);
+    });
+    if (repeated.size > 0) warnings.push(`The header repeats ${printableList([...repeated])}; the first column of each name is used.`);
+    const categorical = new Set(spec.categorical ?? []);
     const make = (column: string, role: Variable['role'], field: string): Variable => ({
       column,
       role,
       field,
-      source: header!.indexOf(column),
-      categorical: (spec.categorical ?? []).includes(column),
+      source: firstIndex.get(column)!,
+      categorical: categorical.has(column),
       levels: [],
       levelIndex: new Map(),
       offset: 0,
