@@ -72,6 +72,16 @@ class SpanRecord implements CsvRecordSpans {
     throw new RangeError('too many fields');
   };
 
+  /** Sets the most fields allowed (the arrays never grow past it, so the limit is checked only on growth). */
+  limitFields(max: number): void {
+    this.maxFields = max;
+    if (max < this.start.length) {
+      this.start = new Int32Array(max);
+      this.end = new Int32Array(max);
+      this.numbers = new Float64Array(max).fill(NaN);
+    }
+  }
+
   field(i: number): string {
     const u = this.unescaped[i];
     return u !== null && u !== undefined ? u : this.text.slice(this.start[i], this.end[i]);
@@ -144,7 +154,7 @@ export class CsvChunkReader {
   ) {
     this.maxRecordChars = limits.maxRecordChars ?? MAX_CSV_RECORD_CHARS;
     this.field = limits.field ?? 'file';
-    this.record.maxFields = limits.maxColumns ?? MAX_CSV_COLUMNS;
+    this.record.limitFields(limits.maxColumns ?? MAX_CSV_COLUMNS);
     this.record.overflow = () => {
       throw tooManyColumnsError(this.records + 1, this.record.maxFields, this.field);
     };
