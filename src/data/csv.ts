@@ -79,7 +79,7 @@ export function columnIndex(table: Pick<CsvTable, 'columns'>, name: string, fiel
   const loose = table.columns.findIndex((c) => c.trim().toLowerCase() === wanted);
   if (loose >= 0) return loose;
   throw new InputError([
-    inputProblem(field, 'unknown-column', `no column named "${printable(name)}" (columns: ${printableList(table.columns)})`, name),
+    inputProblem(field, 'unknown-column', `no column named "${printable(name)}" (columns: ${printableList(table.columns, 20, false)})`, name),
   ]);
 }
 

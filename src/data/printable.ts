@@ -57,11 +57,11 @@ function dropLastPiece(out: string): string {
 }
 
 /**
- * A list of names for a message: each made {@link printable} and quoted, at most `maxItems` of them, then
- * "and N more". Keeps a message about a file with 100,000 columns short.
+ * A list of names for a message: each made {@link printable} (and quoted unless `quote` is false), at most
+ * `maxItems` of them, then "and N more". Keeps a message about a file with 100,000 columns short.
  */
-export function printableList(names: readonly string[], maxItems = 20): string {
-  const shown = names.slice(0, maxItems).map((name) => `"${printable(name)}"`);
+export function printableList(names: readonly string[], maxItems = 20, quote = true): string {
+  const shown = names.slice(0, maxItems).map((name) => (quote ? `"${printable(name)}"` : printable(name)));
   const rest = names.length - shown.length;
   return rest > 0 ? `${shown.join(', ')} and ${rest.toLocaleString('en')} more` : shown.join(', ');
 }

@@ -78,7 +78,7 @@ function piecesOf(text: string, size: number): string[] {
   return out;
 }
 
-describe('CsvChunkReader: an unfinished record resumes where its scan stopped', () => {
+describe('CsvChunkReader: an unfinished record resumes where its scan stopped', { timeout: 120_000 }, () => {
   // Adversarial records for the resumed scan: quotes at piece ends, "" escapes, CR|LF split, text after a
   // closing quote, a quote inside an unquoted field, delimiters and line breaks inside quotes.
   const adversarial =
@@ -124,7 +124,8 @@ describe('CsvChunkReader: an unfinished record resumes where its scan stopped', 
   });
 });
 
-describe('CsvChunkReader: limits', () => {
+// Generous time limits: some of these read tens of megabytes on a shared machine (not a speed check).
+describe('CsvChunkReader: limits', { timeout: 120_000 }, () => {
   it(`exports its limits: records of at most ${MAX_CSV_RECORD_CHARS} characters (16 MiB), at most ${MAX_CSV_COLUMNS} columns`, () => {
     expect(MAX_CSV_RECORD_CHARS).toBe(16 * 1024 * 1024);
     expect(MAX_CSV_COLUMNS).toBe(100_000);
