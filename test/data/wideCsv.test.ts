@@ -6,7 +6,7 @@ import { INTERCEPT_NAME } from '../../src/core/linearModel';
 import { readCsvText } from '../../src/data/csv';
 import { readCsvRows } from '../../src/data/csvStream';
 import { MAX_CSV_COLUMNS } from '../../src/data/csvLimits';
-import { regressionDataFromText, validateRegressionDataSpec } from '../../src/methods/regression/regressionData';
+import { MAX_REGRESSION_COLUMNS, regressionDataFromText, validateRegressionDataSpec } from '../../src/methods/regression/regressionData';
 import { problemsOf } from '../support/thrownProblems';
 
 /** Invented data: columns y, t, x and `extra` filler columns c0…, some names repeated. */
@@ -35,6 +35,19 @@ describe('a 100,000-column header', { timeout: 120_000 }, () => {
     expect(warning).toMatch(/^The header repeats "c0", "c1000", .* and 80 more; the first column of each name is used\.$/);
   });
 
+  it(`choosing every column as a covariate is refused at the header: more than ${MAX_REGRESSION_COLUMNS} regression columns`, () => {
+    const problems = problemsOf(() => regressionDataFromText(text, { outcome: 'y', treatment: 't' }));
+    expect(problems).toHaveLength(1);
+    expect(problems[0]).toMatchObject({ field: 'covariates', code: 'too-many-columns' });
+    expect(problems[0].message).toBe(
+      '99,900 columns would enter the regression (every column of the file is a covariate unless covariates are chosen); at most 2,000 are accepted. Choose the covariates.',
+    );
+    const atLimit = wideText(MAX_REGRESSION_COLUMNS - 3);
+    const covariates = ['x', ...Array.from({ length: MAX_REGRESSION_COLUMNS - 3 }, (_, i) => `c${i}`)];
+    expect(() => regressionDataFromText(atLimit, { outcome: 'y', treatment: 't', covariates: covariates.slice(0, 3) })).not.toThrow();
+    expect(validateRegressionDataSpec({ outcome: 'y', treatment: 't', covariates }, atLimit.slice(0, atLimit.indexOf('\n')).split(','))).toEqual([]);
+  });
+
   it('an unknown column is named with a short list of the columns there are', () => {
     const header = text.slice(0, text.indexOf('\n')).split(',');
     const problems = validateRegressionDataSpec({ outcome: 'y', treatment: 't', covariates: ['nope'] }, header);
@@ -49,6 +62,15 @@ describe('a 100,000-column header', { timeout: 120_000 }, () => {
     let columns: readonly string[] = [];
     await readCsvRows(Readable.from([text]), (_row, _n, names) => (columns = names));
     expect(columns).toEqual(table.columns);
+  });
+});
+
+describe('repeated header names', () => {
+  it('with the default covariates, each name enters once (its first column) and a warning says so', () => {
+    const text = 'y,t,x,x\n1,0,2,9\n2,1,1,9\n3,0,5,9\n5,1,3,9\n4,1,4,9\n';
+    const data = regressionDataFromText(text, { outcome: 'y', treatment: 't' });
+    expect(data.covariates).toEqual(['x']);
+    expect(data.warnings).toContain('The header repeats "x"; the first column of each name is used.');
   });
 });
 

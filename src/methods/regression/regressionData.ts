@@ -73,6 +73,13 @@ export const TYPE_SAMPLE_ROWS = 1000;
 /** More distinct values than this and a column is treated as an identifier or free text, not a category. */
 export const MAX_CATEGORY_LEVELS = 200;
 
+/**
+ * The most CSV columns a regression may use (outcome, treatment and covariates together). The streaming
+ * factor holds p² numbers, so a design as wide as a 100,000-column header would need 80 GB; a wider choice
+ * is refused at the header, naming the limit. Common practice, no source: far above real adjustment sets.
+ */
+export const MAX_REGRESSION_COLUMNS = 2000;
+
 /** Progress of a streaming read. */
 export interface RegressionProgress {
   readonly bytesRead: number;
@@ -297,8 +304,19 @@ export function createRegressionAccumulator(
 
   function onHeader(fields: string[]): void {
     header = fields.map((f) => f.trim());
-    const covariates = spec.covariates ?? header.filter((h) => h !== spec.outcome && h !== spec.treatment);
+    // By default every other column, each name once (a repeated header name means its first column).
+    const covariates = spec.covariates ?? [...new Set(header)].filter((h) => h !== spec.outcome && h !== spec.treatment);
     resolvedCovariates = [...covariates];
+    if (covariates.length + 2 > MAX_REGRESSION_COLUMNS) {
+      throw new InputError([
+        inputProblem(
+          'covariates',
+          'too-many-columns',
+          `${(covariates.length + 2).toLocaleString('en')} columns would enter the regression${spec.covariates === undefined ? ' (every column of the file is a covariate unless covariates are chosen)' : ''}; at most ${MAX_REGRESSION_COLUMNS.toLocaleString('en')} are accepted. Choose the covariates.`,
+          covariates.length,
+        ),
+      ]);
+    }
     throwIfProblems(validateRegressionDataSpec({ ...spec, covariates }, header));
     // First position of each name, and the repeated names, in one pass (linear in the header's width).
     const firstIndex = new Map<string, number>();
