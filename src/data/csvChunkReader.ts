@@ -32,10 +32,27 @@ export interface CsvRecordSpans {
 /** Receives each record as spans, with its 1-based record number. */
 export type CsvSpanHandler = (record: CsvRecordSpans, recordNumber: number) => void;
 
+import { MAX_CSV_COLUMNS, MAX_CSV_RECORD_CHARS, binaryFileError, looksBinary, recordTooLongError, tooManyColumnsError } from './csvLimits';
+
+/** Limits a reader enforces (defaults: {@link MAX_CSV_RECORD_CHARS}, {@link MAX_CSV_COLUMNS}). */
+export interface CsvReaderLimits {
+  /** The longest record in characters; a longer one is an InputError (code `record-too-long`). */
+  readonly maxRecordChars?: number;
+  /** The most fields in a record; more is an InputError (code `too-many-columns`). */
+  readonly maxColumns?: number;
+  /** The input field named in the errors (default `file`). */
+  readonly field?: string;
+}
+
 /** Exact powers of ten representable in a double (10^0 … 10^22). */
 const POWERS_OF_TEN = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
 
 const QUOTE = 34;
+/** Record-boundary scan states: at a field's start, in an unquoted field, inside quotes, just after a quote. */
+const SCAN_FIELD_START = 0;
+const SCAN_UNQUOTED = 1;
+const SCAN_QUOTED = 2;
+const SCAN_AFTER_QUOTE = 3;
 const LF = 10;
 const CR = 13;
 
@@ -49,6 +66,21 @@ class SpanRecord implements CsvRecordSpans {
   end = new Int32Array(64);
   numbers = new Float64Array(64).fill(NaN);
   unescaped: (string | null)[] = [];
+  /** The most fields allowed; `overflow` is called (and must throw) when a record would have more. */
+  maxFields = MAX_CSV_COLUMNS;
+  overflow: () => never = () => {
+    throw new RangeError('too many fields');
+  };
+
+  /** Sets the most fields allowed (the arrays never grow past it, so the limit is checked only on growth). */
+  limitFields(max: number): void {
+    this.maxFields = max;
+    if (max < this.start.length) {
+      this.start = new Int32Array(max);
+      this.end = new Int32Array(max);
+      this.numbers = new Float64Array(max).fill(NaN);
+    }
+  }
 
   field(i: number): string {
     const u = this.unescaped[i];
@@ -58,13 +90,15 @@ class SpanRecord implements CsvRecordSpans {
   add(from: number, to: number, unescaped: string | null): void {
     const k = this.count;
     if (k === this.start.length) {
-      const start = new Int32Array(k * 2);
+      if (k >= this.maxFields) this.overflow();
+      const size = Math.min(k * 2, this.maxFields);
+      const start = new Int32Array(size);
       start.set(this.start);
       this.start = start;
-      const end = new Int32Array(k * 2);
+      const end = new Int32Array(size);
       end.set(this.end);
       this.end = end;
-      const numbers = new Float64Array(k * 2).fill(NaN);
+      const numbers = new Float64Array(size).fill(NaN);
       numbers.set(this.numbers);
       this.numbers = numbers;
     }
@@ -85,6 +119,17 @@ class SpanRecord implements CsvRecordSpans {
  * IETF, 2005): fields may be quoted with "; "" inside quotes is one "; quoted fields may hold the delimiter
  * and line breaks. Also accepts \n or \r line ends, a byte-order mark, `;` or tab as the delimiter, and skips
  * blank lines. The dialect (delimiter, decimal comma) is detected from the first 64 KiB unless given.
+ *
+ * **Work and memory.** Each character is examined a bounded number of times however the text is split: a
+ * record left unfinished at the end of a chunk is kept as pieces together with its scan state (inside
+ * quotes or not, just after a quote), and the next chunk is scanned only from where the scan stopped, until
+ * the record's line end; then the record is parsed once. Memory holds one unfinished record, at most
+ * `maxRecordChars` characters.
+ *
+ * **Limits.** A record longer than {@link MAX_CSV_RECORD_CHARS} characters, a record with more than
+ * {@link MAX_CSV_COLUMNS} fields, and NUL characters in the first 64 KiB (a binary file) are refused with an
+ * InputError (field `file`, codes `record-too-long`, `too-many-columns`, `binary-file`) naming the rule and
+ * the limit. The limits can be changed with the `limits` argument.
  */
 export class CsvChunkReader {
   private pending = '';
@@ -105,7 +150,14 @@ export class CsvChunkReader {
   constructor(
     private readonly onRecord: CsvRecordHandler | null,
     dialect?: Partial<CsvDialect>,
+    limits: CsvReaderLimits = {},
   ) {
+    this.maxRecordChars = limits.maxRecordChars ?? MAX_CSV_RECORD_CHARS;
+    this.field = limits.field ?? 'file';
+    this.record.limitFields(limits.maxColumns ?? MAX_CSV_COLUMNS);
+    this.record.overflow = () => {
+      throw tooManyColumnsError(this.records + 1, this.record.maxFields, this.field);
+    };
     this.dialectValue =
       dialect?.delimiter !== undefined
         ? { delimiter: dialect.delimiter, decimalComma: dialect.decimalComma ?? dialect.delimiter === ';' }
@@ -114,14 +166,25 @@ export class CsvChunkReader {
   }
 
   /** A reader that hands out records as spans of the text (no string per field): for fast numeric reading. */
-  static withSpans(onSpans: CsvSpanHandler, dialect?: Partial<CsvDialect>, options: { readNumbers?: boolean } = {}): CsvChunkReader {
-    const reader = new CsvChunkReader(null, dialect);
+  static withSpans(
+    onSpans: CsvSpanHandler,
+    dialect?: Partial<CsvDialect>,
+    options: { readNumbers?: boolean } & CsvReaderLimits = {},
+  ): CsvChunkReader {
+    const reader = new CsvChunkReader(null, dialect, options);
     reader.onSpans = onSpans;
     reader.readNumbers = options.readNumbers ?? false;
     return reader;
   }
 
   private readNumbers = false;
+  private readonly maxRecordChars: number;
+  private readonly field: string;
+  /** Pieces of an unfinished record (null when there is none). */
+  private carry: string[] | null = null;
+  private carryLength = 0;
+  /** Scan state at the end of the carried pieces (one of the SCAN_ constants). */
+  private scanState = SCAN_FIELD_START;
 
   /** The dialect in use (null until enough text has been seen). */
   get dialect(): CsvDialect | null {
@@ -133,7 +196,10 @@ export class CsvChunkReader {
     return this.records;
   }
 
-  /** Adds the next piece of text. */
+  /**
+   * Adds the next piece of text.
+   * @throws InputError when a record is too long or has too many fields, or the start of the text holds NUL
+   */
   push(text: string): void {
     if (this.ended) throw new Error('push after end');
     if (!this.started) {
@@ -144,7 +210,26 @@ export class CsvChunkReader {
       this.parse(false);
       return;
     }
-    this.pending = this.pending.length === 0 ? text : this.pending + text;
+    if (text.length === 0) return;
+    const carry = this.carry;
+    if (carry === null) {
+      this.pending = text;
+      this.parse(false);
+      return;
+    }
+    // An unfinished record: scan only the new text, from the saved state, up to the record's line end.
+    const end = this.scanToRecordEnd(text);
+    if (end < 0) {
+      carry.push(text);
+      this.carryLength += text.length;
+      if (this.carryLength > this.maxRecordChars) throw recordTooLongError(this.records + 1, this.maxRecordChars, this.field);
+      return;
+    }
+    if (this.carryLength + end > this.maxRecordChars + 2) throw recordTooLongError(this.records + 1, this.maxRecordChars, this.field);
+    carry.push(text);
+    this.pending = carry.join('');
+    this.carry = null;
+    this.carryLength = 0;
     this.parse(false);
   }
 
@@ -152,12 +237,56 @@ export class CsvChunkReader {
   end(): void {
     if (this.ended) return;
     if (!this.started) this.start();
+    if (this.carry !== null) {
+      this.pending = this.carry.join('');
+      this.carry = null;
+      this.carryLength = 0;
+    }
     this.parse(true);
     this.ended = true;
   }
 
+  /**
+   * Continues the record-boundary scan over `text` from `scanState`, by the same rules as `parse` (a quote
+   * opens a quoted field only at a field's start; "" inside quotes is a quote; after the closing quote, text
+   * runs to the delimiter). Returns the index just after the line end that closes the record, or −1 (the
+   * state is saved for the next piece).
+   */
+  private scanToRecordEnd(text: string, from = 0): number {
+    const n = text.length;
+    const delim = this.delimiterCode;
+    let state = this.scanState;
+    let i = from;
+    while (i < n) {
+      if (state === SCAN_QUOTED) {
+        const close = text.indexOf('"', i);
+        if (close < 0) {
+          i = n;
+          break;
+        }
+        i = close + 1;
+        state = SCAN_AFTER_QUOTE;
+        continue;
+      }
+      const c = text.charCodeAt(i++);
+      if (state === SCAN_AFTER_QUOTE && c === QUOTE) {
+        state = SCAN_QUOTED;
+        continue;
+      }
+      if (c === delim) state = SCAN_FIELD_START;
+      else if (c === LF || c === CR) {
+        this.scanState = SCAN_FIELD_START;
+        return i;
+      } else if (state === SCAN_FIELD_START) state = c === QUOTE ? SCAN_QUOTED : SCAN_UNQUOTED;
+      else if (state === SCAN_AFTER_QUOTE) state = SCAN_UNQUOTED;
+    }
+    this.scanState = state;
+    return -1;
+  }
+
   private start(): void {
     this.started = true;
+    if (looksBinary(this.pending)) throw binaryFileError(this.field);
     if (this.dialectValue === null) {
       const detected = detectCsvDialect(this.pending);
       this.dialectValue = {
@@ -250,7 +379,7 @@ export class CsvChunkReader {
             pos = recordStart;
             break outer;
           }
-          this.emit();
+          this.emit(pos - recordStart);
           break outer;
         }
         const c = text.charCodeAt(pos);
@@ -263,20 +392,30 @@ export class CsvChunkReader {
           if (pos >= n) {
             record.add(pos, pos, null);
             record.numbers[record.count - 1] = NaN;
-            this.emit();
+            this.emit(pos - recordStart);
             break outer;
           }
           continue;
         }
         // Line end (\n, \r or \r\n). A \r at the very end of a chunk may be followed by \n: the blank-line
         // rule then skips that \n.
+        this.emit(pos - recordStart);
         pos++;
         if (c === CR && pos < n && text.charCodeAt(pos) === LF) pos++;
-        this.emit();
         continue outer;
       }
     }
-    this.pending = pos >= n ? '' : text.slice(pos);
+    this.pending = '';
+    record.text = '';
+    if (pos < n) {
+      // An unfinished record: keep it with its scan state; the next text is scanned from there.
+      const tail = text.slice(pos);
+      this.scanState = SCAN_FIELD_START;
+      this.scanToRecordEnd(tail);
+      this.carry = [tail];
+      this.carryLength = tail.length;
+      if (tail.length > this.maxRecordChars) throw recordTooLongError(this.records + 1, this.maxRecordChars, this.field);
+    }
   }
 
   private scannedNumber = NaN;
@@ -338,7 +477,8 @@ export class CsvChunkReader {
     return end;
   }
 
-  private emit(): void {
+  private emit(length: number): void {
+    if (length > this.maxRecordChars) throw recordTooLongError(this.records + 1, this.maxRecordChars, this.field);
     this.records++;
     const record = this.record;
     if (this.onSpans !== null) {

@@ -147,3 +147,48 @@ describe('readCsvText invariants', () => {
     );
   });
 });
+
+// Generous time limit: one check reads a 16 MiB line on a shared machine (not a speed check).
+describe('readCsvText: limits and file text in messages', { timeout: 120_000 }, () => {
+  it('NUL bytes near the start: a binary file, not CSV', () => {
+    const problem = problemOf(() => readCsvText('PK\u0003\u0004\u0000\u0000a,b\n1,2'));
+    expect(problem).toMatchObject({ field: 'file', code: 'binary-file' });
+    expect(problem.message).toMatch(/^looks like a binary file, not CSV/);
+  });
+
+  it('a line over 16 MiB is refused, naming the line and the limit', () => {
+    const text = 'a,b\n1,2\n' + 'x'.repeat(16 * 1024 * 1024 + 1) + '\n3,4\n';
+    const problem = problemOf(() => readCsvText(text));
+    expect(problem).toMatchObject({ field: 'file', code: 'record-too-long' });
+    expect(problem.message).toBe('line 3 is longer than 16 MiB (the longest row this reader accepts); is this a CSV file?');
+  });
+
+  it('more than 100,000 columns is refused', () => {
+    const header = Array.from({ length: 100_001 }, (_, i) => `c${i}`).join(',');
+    expect(problemOf(() => readCsvText(`${header}\n1`)).code).toBe('too-many-columns');
+  });
+
+  it('control characters in column names and cells are escaped in messages, long names cut', () => {
+    const table = readCsvText('\u001b[2Jname,b\nx\u001b]0;owned\u0007,2\n');
+    const unknown = problemOf(() => columnIndex(table, 'zz\u009b', 'outcome'));
+    expect(unknown.message).toBe('no column named "zz\\x9b" (columns: \\x1b[2Jname, b)');
+    const bad = problemOf(() => numericColumn(table, '\u001b[2Jname', 'outcome'));
+    expect(bad.message).toBe('column "\\x1b[2Jname" has "x\\x1b]0;owned\\x07" in row 1, which is not a number');
+    const long = readCsvText(`${'n'.repeat(500)},${'n'.repeat(500)}\n1,2`);
+    expect(long.warnings[0].length).toBeLessThan(250);
+    expect(long.warnings[0]).toContain('…');
+  });
+
+  it('a wide header lists only the first columns in a message', () => {
+    const header = Array.from({ length: 5000 }, (_, i) => `c${i}`).join(',');
+    const table = readCsvText(`${header}\n${'1,'.repeat(4999)}1`);
+    const problem = problemOf(() => columnIndex(table, 'missing', 'outcome'));
+    expect(problem.message).toContain(', c19 and 4,980 more)');
+  });
+
+  it('a repeat is never renamed onto a name the header already has', () => {
+    const table = readCsvText('a,a,a (2),a\n1,2,3,4');
+    expect(table.columns).toEqual(['a', 'a (3)', 'a (2)', 'a (4)']);
+    expect(new Set(table.columns).size).toBe(4);
+  });
+});

@@ -5,6 +5,7 @@ import { CsvChunkReader, type CsvDialect, type CsvRecordSpans } from '../../data
 import { parseNumberText } from '../../data/numberText';
 import { byteSourceChunks, type ByteSource } from '../../data/byteSource';
 import { isMissingCell } from '../../data/missingCell';
+import { printable, printableList } from '../../data/printable';
 
 /** Which columns of a CSV enter the regression, and how. */
 export interface RegressionDataSpec {
@@ -72,6 +73,13 @@ export const TYPE_SAMPLE_ROWS = 1000;
 /** More distinct values than this and a column is treated as an identifier or free text, not a category. */
 export const MAX_CATEGORY_LEVELS = 200;
 
+/**
+ * The most CSV columns a regression may use (outcome, treatment and covariates together). The streaming
+ * factor holds p² numbers, so a design as wide as a 100,000-column header would need 80 GB; a wider choice
+ * is refused at the header, naming the limit. Common practice, no source: far above real adjustment sets.
+ */
+export const MAX_REGRESSION_COLUMNS = 2000;
+
 /** Progress of a streaming read. */
 export interface RegressionProgress {
   readonly bytesRead: number;
@@ -96,14 +104,15 @@ export interface RegressionAccumulator {
  */
 export function validateRegressionDataSpec(spec: RegressionDataSpec, header: readonly string[]): InputProblem[] {
   const problems: InputProblem[] = [];
-  const list = header.map((h) => `"${h}"`).join(', ');
+  // A set, not header.includes per name: a wide header with every other column a covariate stays linear.
+  const names = new Set(header);
   const known = (field: string, name: unknown): boolean => {
     if (typeof name !== 'string' || name === '') {
       problems.push(inputProblem(field, 'required', 'needs a column name.', name));
       return false;
     }
-    if (!header.includes(name)) {
-      problems.push(inputProblem(field, 'unknown-column', `there is no column named "${name}" (columns: ${list}).`, name));
+    if (!names.has(name)) {
+      problems.push(inputProblem(field, 'unknown-column', `there is no column named "${printable(name)}" (columns: ${printableList(header)}).`, name));
       return false;
     }
     return true;
@@ -295,17 +304,35 @@ export function createRegressionAccumulator(
 
   function onHeader(fields: string[]): void {
     header = fields.map((f) => f.trim());
-    const covariates = spec.covariates ?? header.filter((h) => h !== spec.outcome && h !== spec.treatment);
+    // By default every other column, each name once (a repeated header name means its first column).
+    const covariates = spec.covariates ?? [...new Set(header)].filter((h) => h !== spec.outcome && h !== spec.treatment);
     resolvedCovariates = [...covariates];
+    if (covariates.length + 2 > MAX_REGRESSION_COLUMNS) {
+      throw new InputError([
+        inputProblem(
+          'covariates',
+          'too-many-columns',
+          `${(covariates.length + 2).toLocaleString('en')} columns would enter the regression${spec.covariates === undefined ? ' (every column of the file is a covariate unless covariates are chosen)' : ''}; at most ${MAX_REGRESSION_COLUMNS.toLocaleString('en')} are accepted. Choose the covariates.`,
+          covariates.length,
+        ),
+      ]);
+    }
     throwIfProblems(validateRegressionDataSpec({ ...spec, covariates }, header));
-    const duplicates = header.filter((h, i) => header!.indexOf(h) !== i);
-    if (duplicates.length > 0) warnings.push(`The header repeats ${[...new Set(duplicates)].map((d) => `"${d}"`).join(', ')}; the first column of each name is used.`);
+    // First position of each name, and the repeated names, in one pass (linear in the header's width).
+    const firstIndex = new Map<string, number>();
+    const repeated = new Set<string>();
+    header.forEach((h, i) => {
+      if (firstIndex.has(h)) repeated.add(h);
+      else firstIndex.set(h, i);
+    });
+    if (repeated.size > 0) warnings.push(`The header repeats ${printableList([...repeated])}; the first column of each name is used.`);
+    const categorical = new Set(spec.categorical ?? []);
     const make = (column: string, role: Variable['role'], field: string): Variable => ({
       column,
       role,
       field,
-      source: header!.indexOf(column),
-      categorical: (spec.categorical ?? []).includes(column),
+      source: firstIndex.get(column)!,
+      categorical: categorical.has(column),
       levels: [],
       levelIndex: new Map(),
       offset: 0,
