@@ -18,6 +18,11 @@ export default defineConfig(({ mode }) => ({
         }
       : { target: 'es2022', outDir: 'dist/app', sourcemap: false },
   worker: { format: 'es' },
+  // Every package the pages and components import, bundled before the first test page loads: a package found
+  // mid-run would make vite re-optimise and reload the browser under a running test.
+  optimizeDeps: {
+    include: ['lit', 'lit/decorators.js', 'lit/static-html.js', 'lit/directives/unsafe-svg.js', 'papaparse', 'jstat', 'd3-scale', 'd3-shape', 'd3-array', 'd3-contour', 'fast-check', 'axe-core'],
+  },
   test: {
     reporters: ['default', './test/support/count-reporter.ts'],
     projects: [
