@@ -1,3 +1,4 @@
+import { isMissingCell } from './missingCell';
 /**
  * Reads a number typed by a person or written in a CSV cell.
  *
@@ -38,8 +39,9 @@ export function parseTypedNumber(text: string): number {
  *   "1.200,5" are unambiguous.
  * - `fraction`: a share between 0 and 1, also typed as a percentage with a sign ("5%" is 0.05).
  * - `level`: a confidence level: "0.95", "95" or "95%" (a number above 1 and below 100 is a percentage).
- * Everywhere: surrounding spaces are ignored, "−" (Unicode minus) is a minus sign, exponents ("2.5e-3") work,
- * and "", "NA", "Infinity" or words are not numbers.
+ * Everywhere: empty text and the texts that mean missing in a CSV cell ("NA", "N/A", "NaN", ".", "NULL", "#N/A")
+ * are missing (the field's own rule then says whether it is required); surrounding spaces are ignored, "−" (Unicode minus) is a minus sign, exponents ("2.5e-3") work,
+ * and "Infinity" or words are not numbers.
  */
 export type NumberKind = 'whole' | 'decimal' | 'fraction' | 'level';
 
@@ -66,7 +68,8 @@ const DECIMAL_COMMA = /^[+-]?(\d+,\d*|,\d+)([eE][+-]?\d+)?$/;
  */
 export function readTypedNumber(text: string, kind: NumberKind = 'decimal'): TypedNumber {
   let s = text.trim().replace(/^\u2212/, '-').replace(/([eE])\u2212/, '$1-');
-  if (s === '') return { ok: false, code: 'required', message: 'is required' };
+  // "NA", "N/A", "." … mean missing in a CSV cell; typed into a form or an option they mean the same.
+  if (s === '' || isMissingCell(s)) return { ok: false, code: 'required', message: 'is required' };
   const shown = text.trim();
   let percent = false;
   if ((kind === 'fraction' || kind === 'level') && s.endsWith('%')) {

@@ -64,10 +64,11 @@ describe('readTypedNumber: the one rule for typed numbers', () => {
     expect(value('+3')).toBe(3);
   });
 
-  it('treats empty text as required and words, NA and infinities as not numbers', () => {
+  it('treats empty text and the missing-cell texts (NA, N/A, .) as missing, and words and infinities as not numbers', () => {
     expect(value('')).toBe('required');
     expect(value('   ')).toBe('required');
-    for (const text of ['NA', 'abc', 'Infinity', '-Infinity', '0x10', '1e999', '1..2', '--1']) expect(value(text)).toBe('not-a-number');
+    for (const text of ['NA', 'n/a', '.', 'NaN']) expect(value(text)).toBe('required');
+    for (const text of ['abc', 'Infinity', '-Infinity', '0x10', '1e999', '1..2', '--1']) expect(value(text)).toBe('not-a-number');
   });
 
   it('never returns −0', () => {
