@@ -85,7 +85,8 @@ export function ovbFormFromOptions(values: OptionValues): OvbFormInputs {
   const text = (name: string): string | undefined => {
     const v = values[name];
     if (v === undefined) return undefined;
-    if (typeof v !== 'string' || v.trim() === '') refuse(`--${name}`, 'needs a value');
+    // An empty value goes to the request reader, which says what the field needs (as the page does).
+    if (typeof v !== 'string') refuse(`--${name}`, 'needs a value');
     return v;
   };
   const list = (name: string): string[] | undefined => text(name)?.split(',').map((s) => s.trim()).filter((s) => s !== '');
