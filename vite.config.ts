@@ -9,7 +9,16 @@ export default defineConfig(({ mode }) => ({
   server: { host: '127.0.0.1' },
   preview: { host: '127.0.0.1' },
   build:
-    mode === 'components'
+    mode === 'library'
+      ? {
+          // The typed library: every method's request reader, runner and core analysis (types in dist/lib/types).
+          target: 'es2022',
+          outDir: 'dist/lib',
+          emptyOutDir: false,
+          lib: { entry: 'src/library.ts', formats: ['es'], fileName: () => 'lurk.js' },
+          rollupOptions: { external: [/^node:/, 'papaparse', 'jstat', 'mathjs', /^d3-/] },
+        }
+      : mode === 'components'
       ? {
           // One module script that registers every <lurk-…> element on any page.
           target: 'es2022',
