@@ -10,7 +10,7 @@ import { renderSvgString } from '../../../src/plot/svgString';
 import { readReferenceJson } from '../../support/reference';
 
 const reference = readReferenceJson('rosenbaum.json');
-const artifacts = fileURLToPath(new URL('../artifacts/', import.meta.url));
+const artifacts = fileURLToPath(new URL('../../artifacts/', import.meta.url));
 
 describe('matched-pairs plots', () => {
   const result = analysePairs({ data: { kind: 'differences', differences: reference.datasets.small_n15.differences } });

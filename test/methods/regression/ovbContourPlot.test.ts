@@ -12,7 +12,7 @@ import { readReferenceJson } from '../../support/reference';
 import { expectClose } from '../../support/expectClose';
 
 const swiss = readReferenceJson('ovb.json').swiss;
-const artifacts = fileURLToPath(new URL('../artifacts/', import.meta.url));
+const artifacts = fileURLToPath(new URL('../../artifacts/', import.meta.url));
 const swissInput: OvbInput = {
   estimate: swiss.estimate,
   se: swiss.se,
