@@ -3,7 +3,7 @@ import type { CommandContext, CommandReport, MethodModule, OptionValues } from '
 import { setsBottomLine } from './bottomLine';
 import { SETS_HELP } from './help';
 import { setsReport } from './report';
-import { emptySetsForm, normaliseSetsForm, readSetsSettings, setsColumnsOf, validateSetsColumnsOfForm, type SetsFormInputs } from './request';
+import { emptySetsForm, normaliseSetsForm, setsColumnsOf, setsSettingsProblems, validateSetsColumnsOfForm, type SetsFormInputs } from './request';
 import { analyseSetsForm, type SetsOutcome } from './runner';
 import { setsFromCsvStream, type SetsRead } from './setsFromCsv';
 import { setsStatement } from './statement';
@@ -71,7 +71,7 @@ export function setsFormFromOptions(values: OptionValues): SetsFormInputs {
  * @throws InputError with every problem, named by form field (the generic command names the options)
  */
 export async function runSetsCommand(form: SetsFormInputs, _values: OptionValues, context: CommandContext): Promise<CommandReport> {
-  const problems = [...readSetsSettings(form).problems, ...validateSetsColumnsOfForm(form)];
+  const problems = [...setsSettingsProblems(form), ...validateSetsColumnsOfForm(form)];
   if (form.fileName.trim() === '') problems.push(inputProblem('file', 'required', 'give a CSV file of matched sets, one row per unit ("-" reads standard input)'));
   if (problems.length > 0) throw new InputError(problems);
   const read = await readSetsFile(form, context);

@@ -119,6 +119,21 @@ export function readSetsSettings(form: SetsFormInputs): SetsSettings {
   return { alternative, outcomeKind, tail, alpha, trim, gammas, problems: reader.problems };
 }
 
+/**
+ * Every problem of the settings alone, before any data is read: the field reader's (not a number, not a choice)
+ * and the analysis's own rules on the settings (α in (0, 0.5], c > 0, each Γ ≥ 1), with the same messages the
+ * page shows once the data are there.
+ */
+export function setsSettingsProblems(form: SetsFormInputs): InputProblem[] {
+  const { problems: readerProblems, ...settings } = readSetsSettings(form);
+  const base = (field: string) => field.replace(/\[.*$/, '');
+  const dataFields = ['setIds', 'treated', 'outcomes'];
+  const rules = validateMatchedSets({ setIds: [], treated: [], outcomes: [], ...settings }).filter(
+    (p) => !dataFields.includes(p.field) && !readerProblems.some((q) => base(q.field) === base(p.field)),
+  );
+  return [...readerProblems, ...rules];
+}
+
 /** Fields of the core's problems → the form field that holds them. */
 const FORM_FIELD_OF: Readonly<Record<string, string>> = { setIds: 'setColumn', treated: 'treatedColumn', outcomes: 'outcomeColumn' };
 

@@ -1,7 +1,7 @@
 import { InputError, type InputProblem } from '../../core/inputProblem';
 import { analyseMatchedSets, type MatchedSetsResult } from '../../core/matchedSetsAnalysis';
 import type { MethodOutcome } from '../methodModule';
-import { readSetsSettings, setsColumnsOf, setsFormProblem, setsInputFromForm, type SetsFormInputs } from './request';
+import { setsColumnsOf, setsFormProblem, setsInputFromForm, setsSettingsProblems, type SetsFormInputs } from './request';
 import { setsFromCsvText, type SetsRead, type SetsReadSummary } from './setsFromCsv';
 import { runSetsInWorker, type SetsWorkerProgress } from './setsWorkerClient';
 
@@ -40,12 +40,12 @@ function outcomeOf(result: MatchedSetsResult | null, read: SetsReadSummary | nul
 export function planSets(form: SetsFormInputs, data: SetsPageData, started: boolean): SetsPlan {
   const done = (outcome: SetsOutcome): SetsPlan => ({ kind: 'done', outcome });
   if (!data.file) {
-    const settings = readSetsSettings(form).problems;
+    const settings = setsSettingsProblems(form);
     const message = form.fileName ? `choose ${form.fileName} again` : 'choose a CSV file of matched sets (one row per unit)';
     return done(outcomeOf(null, null, [...settings, { field: 'file', code: 'required', message }], started));
   }
   if (data.fileText === null) {
-    const settings = readSetsSettings(form).problems;
+    const settings = setsSettingsProblems(form);
     if (settings.length > 0) return done(outcomeOf(null, null, settings, started));
     return { kind: 'worker', file: data.file, form, started };
   }
@@ -54,7 +54,7 @@ export function planSets(form: SetsFormInputs, data: SetsPageData, started: bool
     read = setsFromCsvText(data.fileText, setsColumnsOf(form));
   } catch (error) {
     if (!(error instanceof InputError)) throw error;
-    return done(outcomeOf(null, null, [...readSetsSettings(form).problems, ...error.problems], started));
+    return done(outcomeOf(null, null, [...setsSettingsProblems(form), ...error.problems], started));
   }
   return done({ ...analyseSetsForm(form, read), started });
 }
