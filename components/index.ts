@@ -7,4 +7,5 @@ export { LurkBottomLine } from './lurk-bottom-line';
 export { LurkBatch } from './lurk-batch';
 export { LurkApp } from './lurk-app';
 export { LurkPairs } from './lurk-pairs';
+export { LurkSets } from './lurk-sets';
 export { LurkOvb } from './lurk-ovb';

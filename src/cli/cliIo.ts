@@ -6,8 +6,9 @@ import { Readable } from 'node:stream';
 export interface CliIo {
   out(text: string): void;
   err(text: string): void;
+  /** The whole text of a file; "-" reads standard input. */
   readText(path: string): Promise<string>;
-  /** A byte stream of a file, for inputs too large to read whole. */
+  /** A byte stream of a file, for inputs too large to read whole; "-" is standard input. */
   openStream(path: string): Readable;
 }
 
@@ -15,9 +16,16 @@ export function processIo(): CliIo {
   return {
     out: (text) => void process.stdout.write(text),
     err: (text) => void process.stderr.write(text),
-    readText: (path) => readFile(path, 'utf8'),
-    openStream: (path) => createReadStream(path),
+    readText: (path) => (path === '-' ? readAllText(process.stdin) : readFile(path, 'utf8')),
+    openStream: (path) => (path === '-' ? process.stdin : createReadStream(path)),
   };
+}
+
+/** Reads a whole stream (standard input) as UTF-8 text. */
+async function readAllText(stream: Readable): Promise<string> {
+  const chunks: Buffer[] = [];
+  for await (const chunk of stream) chunks.push(typeof chunk === 'string' ? Buffer.from(chunk, 'utf8') : (chunk as Buffer));
+  return Buffer.concat(chunks).toString('utf8');
 }
 
 /** Collects output in memory: for tests. */

@@ -1,126 +1,27 @@
 import type { PairsResult } from '../../core/pairsAnalysis';
-import { formatPValue } from '../../format/formatNumber';
-import { formatGamma, formatGammaValue, formatAsTyped } from './text';
-import type { StudyLabels } from '../../format/studyLabels';
-import { createFrame } from '../../plot/frame';
-import { framedPlotSpec } from '../../plot/framedPlotSpec';
-import { palette } from '../../plot/palette';
-import { polylinePath } from '../../plot/pathData';
-import type { LegendItem, PlotMark, PlotSpec } from '../../plot/plotSpec';
+import { pValueBoundsPlot, type SensitivityPlotOptions } from '../../plot/pValueBoundsPlot';
+import type { PlotSpec } from '../../plot/plotSpec';
 
-export interface PairsPlotOptions {
-  readonly width?: number;
-  readonly height?: number;
-  readonly study?: Partial<StudyLabels>;
-}
+export type PairsPlotOptions = SensitivityPlotOptions;
 
 /**
- * The p-value bounds of a matched-pairs result against the hidden bias Γ: the upper bound (the one that
- * matters for the finding) and the lower bound, on a logarithmic p axis, with α marked and the tipping Γ
- * labelled where the upper bound reaches α (Rosenbaum 2002, Observational Studies, §4.3).
+ * The p-value bounds of a matched-pairs result against the hidden bias Γ (see `pValueBoundsPlot`): upper and
+ * lower bound on a logarithmic p axis, α marked and the tipping Γ labelled (Rosenbaum 2002, §4.3).
  */
 export function pValueByGammaPlot(result: PairsResult, options: PairsPlotOptions = {}): PlotSpec {
-  const width = options.width ?? 640;
-  const height = options.height ?? 400;
-  const curve = result.curve.length > 0 ? result.curve : result.rows;
-  const gammaMax = Math.max(1.5, ...curve.map((r) => r.gamma), ...result.rows.map((r) => r.gamma));
-  const smallest = Math.min(result.alpha, ...curve.map((r) => r.pUpper).filter((p) => p > 0));
-  const yMin = Math.max(1e-12, Math.pow(10, Math.floor(Math.log10(smallest)) - 1));
-  const frame = createFrame({
-    width,
-    height,
-    x: { domain: [1, gammaMax], label: 'Hidden bias Γ (odds of treatment within a pair may differ by this factor)' },
-    y: { domain: [yMin, 1], label: 'One-sided p-value bound (log scale)', scale: 'log' },
-  });
-  const inside = (p: number) => (p >= yMin && p <= 1 ? frame.y(p) : NaN);
-  const marks: PlotMark[] = [];
-  const legend: LegendItem[] = [];
-
-  marks.push({
-    kind: 'rule',
-    x1: frame.inner.left,
-    x2: frame.inner.right,
-    y1: frame.y(result.alpha),
-    y2: frame.y(result.alpha),
-    stroke: palette.threshold,
-    strokeWidth: 1.5,
-    dash: '4 4',
-    label: `α = ${formatAsTyped(result.alpha)}`,
-  });
-  marks.push({
-    kind: 'text',
-    x: frame.inner.left + 6,
-    y: frame.y(result.alpha) - 6,
-    text: `α = ${formatAsTyped(result.alpha)}`,
-    anchor: 'start',
-    color: palette.threshold,
-    size: 12,
-  });
-  marks.push({
-    kind: 'path',
-    d: polylinePath(curve.map((r) => [frame.x(r.gamma), inside(r.pLower)])),
-    stroke: palette.second,
-    strokeWidth: 2,
-    dash: '6 3',
-    label: 'Lower bound on the p-value',
-  });
-  legend.push({ label: 'lower bound', color: palette.second, swatch: 'line', dash: '6 3' });
-  marks.push({
-    kind: 'path',
-    d: polylinePath(curve.map((r) => [frame.x(r.gamma), inside(r.pUpper)])),
-    stroke: palette.estimate,
-    strokeWidth: 2.5,
-    label: 'Upper bound on the p-value',
-  });
-  legend.push({ label: 'upper bound', color: palette.estimate, swatch: 'line' });
-  for (const row of result.rows) {
-    if (!(row.pUpper >= yMin) || row.gamma > gammaMax) continue;
-    marks.push({ kind: 'point', x: frame.x(row.gamma), y: frame.y(row.pUpper), shape: 'circle', color: palette.estimate, size: 3.5 });
-  }
-  if (result.sensitivityValue !== null && result.sensitivityValue <= gammaMax) {
-    const x = frame.x(result.sensitivityValue);
-    marks.push({
-      kind: 'rule',
-      x1: x,
-      x2: x,
-      y1: frame.inner.bottom,
-      y2: frame.y(result.alpha),
-      stroke: palette.overturned,
-      strokeWidth: 1.5,
-      label: `Tipping Γ = ${formatGamma(result.sensitivityValue)}`,
-    });
-    marks.push({ kind: 'point', x, y: frame.y(result.alpha), shape: 'diamond', color: palette.overturned, size: 6 });
-    const rightHalf = x > (frame.inner.left + frame.inner.right) / 2;
-    marks.push({
-      kind: 'text',
-      x: rightHalf ? x - 6 : x + 6,
-      y: frame.inner.bottom - 10,
-      text: `tipping Γ = ${formatGamma(result.sensitivityValue)}`,
-      anchor: rightHalf ? 'end' : 'start',
-      color: palette.ink,
-      size: 13,
-      weight: 'bold',
-    });
-    legend.push({ label: 'tipping Γ', color: palette.overturned, swatch: 'diamond' });
-  }
-
   const testName = result.test === 'signrank' ? 'signed-rank' : 'sign';
-  const tipping =
-    result.sensitivityStatus === 'found'
-      ? `The upper bound reaches α = ${formatAsTyped(result.alpha)} at Γ = ${formatGamma(result.sensitivityValue)}.`
-      : result.sensitivityStatus === 'not-significant'
-        ? `The p-value is above α = ${formatAsTyped(result.alpha)} already at Γ = 1.`
-        : `The upper bound stays below α over the whole searched range.`;
-  return framedPlotSpec(frame, {
-    id: 'pairs-p-value-by-gamma',
-    title: `How the ${testName} test's p-value bounds grow with hidden bias`,
-    description: `Upper and lower bounds on the one-sided p-value for Γ from 1 to ${formatGammaValue(gammaMax)}. ${tipping}`,
-    marks,
-    legend,
-    table: Object.freeze({
-      caption: `p-value bounds by Γ (${result.tailMethod === 'exact' ? 'exact' : 'normal approximation'})`,
-      columns: ['Γ', 'p upper bound', 'p lower bound'],
-      rows: result.rows.map((r) => [formatGammaValue(r.gamma), formatPValue(r.pUpper), formatPValue(r.pLower)]),
-    }),
-  });
+  return pValueBoundsPlot(
+    {
+      id: 'pairs-p-value-by-gamma',
+      title: `How the ${testName} test's p-value bounds grow with hidden bias`,
+      gammaAxisLabel: 'Hidden bias Γ (odds of treatment within a pair may differ by this factor)',
+      tableCaption: `p-value bounds by Γ (${result.tailMethod === 'exact' ? 'exact' : 'normal approximation'})`,
+      alpha: result.alpha,
+      rows: result.rows,
+      curve: result.curve,
+      sensitivityValue: result.sensitivityValue,
+      sensitivityStatus: result.sensitivityStatus,
+    },
+    options,
+  );
 }

@@ -1,35 +1,15 @@
 import type { PairsResult } from '../../core/pairsAnalysis';
 import type { AmplifiedPair } from '../../core/amplification';
 import { formatNumber, formatPValue } from '../../format/formatNumber';
-import { outcomeLabel, unitsSuffix, type StudyLabels } from '../../format/studyLabels';
+import { outcomeLabel, type StudyLabels } from '../../format/studyLabels';
+import { formatAsTyped, formatEffect, formatGamma, formatGammaValue } from '../../format/gammaText';
 
 /** The caution that goes with every matched-pairs report. */
 export const PAIRS_CAUTION =
   'A sensitivity analysis bounds how strong hidden bias would have to be; it does not prove causation. ' +
   'Decisions about health or safety defer to domain experts, local guidance and licensed practice.';
 
-/**
- * Γ for people: rounded *down* to 3 decimals, so that the printed tipping point still has its p-value bound
- * at or below α (rounding up could print a Γ at which the finding is no longer significant).
- */
-export function formatGamma(gamma: number | null | undefined): string {
-  if (gamma === null || gamma === undefined || !Number.isFinite(gamma)) return 'not available';
-  const floored = Math.floor(gamma * 1000 + 1e-9) / 1000;
-  return floored >= 1e6 ? formatNumber(floored, { significant: 4 }) : floored.toFixed(3);
-}
-
-/** Γ values of the table: as given (they are round, e.g. 1.25), never NaN/Infinity. */
-export function formatGammaValue(gamma: number): string {
-  return formatAsTyped(gamma);
-}
-
-/** A number typed by a person (α, Γ, a level) as they would write it: 0.05, 1.25, 95. */
-export function formatAsTyped(x: number | null | undefined): string {
-  if (x === null || x === undefined || !Number.isFinite(x)) return 'not available';
-  const abs = Math.abs(x);
-  if (abs !== 0 && (abs >= 1e9 || abs < 1e-6)) return formatNumber(x, { significant: 6 });
-  return String(Number(x.toPrecision(6)));
-}
+export { formatAsTyped, formatEffect, formatGamma, formatGammaValue } from '../../format/gammaText';
 
 /** A count or rank sum with thousands separators ("1,000,000"; a half-integer keeps its ".5"). */
 export function formatCount(x: number): string {
@@ -51,12 +31,6 @@ function treatmentWords(study?: Partial<StudyLabels>): string {
 /** The outcome after "a higher" ("outcome" when no label was given). */
 function outcomeWords(study?: Partial<StudyLabels>): string {
   return study?.outcome?.trim() || 'outcome';
-}
-
-/** An estimate or interval limit; an infinite limit reads "unbounded". */
-export function formatEffect(x: number | null | undefined, study?: Partial<StudyLabels>): string {
-  if (x === Infinity || x === -Infinity) return 'unbounded';
-  return formatNumber(x, { significant: 3 }) + (x === null || x === undefined || Number.isNaN(x) ? '' : unitsSuffix(study));
 }
 
 /** "triples", "doubles", or "multiplies … by 7.5": a factor on the odds in words. */
