@@ -33,6 +33,12 @@ export { analysePairsForm, planPairs, runPairsPlan, type PairsOutcome, type Pair
 export { pairsSql, pairsSummaryFromSqlRow } from './methods/pairs/pairsSql';
 export { pairsMethod } from './methods/pairs/method';
 
+// Matched sets (one treated unit, one or more controls): request reader, runner, module.
+export { emptySetsForm, normaliseSetsForm, setsInputFromForm, type SetsFormInputs } from './methods/sets/request';
+export { analyseSetsForm, planSets, runSetsPlan } from './methods/sets/runner';
+export { setsFromCsvText, setsFromCsvStream } from './methods/sets/setsFromCsv';
+export { setsMethod } from './methods/sets/method';
+
 // Regression (omitted-variable bias): request reader, data readers, summary-statistics SQL, module.
 export { emptyOvbForm, normaliseOvbForm, evaluateOvbForm, type OvbFormInputs, type OvbFormOutcome } from './methods/regression/request';
 export { regressionDataFromText, accumulateRegressionFromStream, type RegressionData } from './methods/regression/regressionData';
