@@ -3,7 +3,7 @@ import { formatEffect, formatGammaValue, formatAsTyped } from './text';
 import { outcomeLabel } from '../../format/studyLabels';
 import { createFrame } from '../../plot/frame';
 import { framedPlotSpec } from '../../plot/framedPlotSpec';
-import { palette } from '../../plot/palette';
+import { markers, palette } from '../../plot/palette';
 import { polygonPath, polylinePath } from '../../plot/pathData';
 import type { LegendItem, PlotMark, PlotSpec } from '../../plot/plotSpec';
 import type { PairsPlotOptions } from './pValueByGammaPlot';
@@ -34,7 +34,7 @@ export function estimateRangePlot(result: PairsResult, options: PairsPlotOptions
   const frame = createFrame({
     width,
     height,
-    x: { domain: [1, rows.length > 1 ? gammaMax : 2], label: 'Hidden bias Γ' },
+    x: { domain: [1, rows.length > 1 ? gammaMax : 2], label: 'Hidden bias Γ: how far the odds of treatment may differ within a pair' },
     y: { domain: [lo, hi], label: `Effect on ${outcomeLabel(options.study)} (treated − control)` },
   });
   const clamp = (v: number) => frame.y(Math.min(hi, Math.max(lo, v)));
@@ -63,7 +63,7 @@ export function estimateRangePlot(result: PairsResult, options: PairsPlotOptions
     });
   }
   legend.push({ label: `${level} sensitivity interval`, color: palette.interval, swatch: 'area' });
-  legend.push({ label: 'range of estimates', color: palette.estimate, swatch: 'area' });
+  legend.push({ label: 'smallest to largest effect estimate', color: palette.estimate, swatch: 'area' });
   for (const [key, dash] of [
     ['intervalLow', '5 3'],
     ['intervalHigh', '5 3'],
@@ -94,8 +94,7 @@ export function estimateRangePlot(result: PairsResult, options: PairsPlotOptions
     kind: 'point',
     x: frame.x(1),
     y: frame.y(result.estimate),
-    shape: 'diamond',
-    color: palette.estimate,
+    ...markers.reported,
     size: 6,
     label: `estimate ${formatEffect(result.estimate, options.study)}`,
     labelSide: 'right',
@@ -109,7 +108,7 @@ export function estimateRangePlot(result: PairsResult, options: PairsPlotOptions
     legend,
     table: Object.freeze({
       caption: `Estimate range and ${level} sensitivity interval by Γ`,
-      columns: ['Γ', 'estimate low', 'estimate high', 'interval low', 'interval high'],
+      columns: ['Γ', 'smallest effect estimate', 'largest effect estimate', 'interval low', 'interval high'],
       rows: rows.map((e) => [
         formatGammaValue(e.gamma),
         formatEffect(e.estimateLow, options.study),

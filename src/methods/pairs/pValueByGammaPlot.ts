@@ -4,7 +4,7 @@ import { formatGamma, formatGammaValue, formatAsTyped } from './text';
 import type { StudyLabels } from '../../format/studyLabels';
 import { createFrame } from '../../plot/frame';
 import { framedPlotSpec } from '../../plot/framedPlotSpec';
-import { palette } from '../../plot/palette';
+import { markers, palette } from '../../plot/palette';
 import { polylinePath } from '../../plot/pathData';
 import type { LegendItem, PlotMark, PlotSpec } from '../../plot/plotSpec';
 
@@ -29,8 +29,8 @@ export function pValueByGammaPlot(result: PairsResult, options: PairsPlotOptions
   const frame = createFrame({
     width,
     height,
-    x: { domain: [1, gammaMax], label: 'Hidden bias Γ (odds of treatment within a pair may differ by this factor)' },
-    y: { domain: [yMin, 1], label: 'One-sided p-value bound (log scale)', scale: 'log' },
+    x: { domain: [1, gammaMax], label: 'Hidden bias Γ: how far the odds of treatment may differ within a pair' },
+    y: { domain: [yMin, 1], label: 'One-sided p-value, worst and best case (log scale)', scale: 'log' },
   });
   const inside = (p: number) => (p >= yMin && p <= 1 ? frame.y(p) : NaN);
   const marks: PlotMark[] = [];
@@ -64,7 +64,7 @@ export function pValueByGammaPlot(result: PairsResult, options: PairsPlotOptions
     dash: '6 3',
     label: 'Lower bound on the p-value',
   });
-  legend.push({ label: 'lower bound', color: palette.second, swatch: 'line', dash: '6 3' });
+  legend.push({ label: 'best-case p', color: palette.second, swatch: 'line', dash: '6 3' });
   marks.push({
     kind: 'path',
     d: polylinePath(curve.map((r) => [frame.x(r.gamma), inside(r.pUpper)])),
@@ -72,7 +72,7 @@ export function pValueByGammaPlot(result: PairsResult, options: PairsPlotOptions
     strokeWidth: 2.5,
     label: 'Upper bound on the p-value',
   });
-  legend.push({ label: 'upper bound', color: palette.estimate, swatch: 'line' });
+  legend.push({ label: 'worst-case p', color: palette.estimate, swatch: 'line' });
   for (const row of result.rows) {
     if (!(row.pUpper >= yMin) || row.gamma > gammaMax) continue;
     marks.push({ kind: 'point', x: frame.x(row.gamma), y: frame.y(row.pUpper), shape: 'circle', color: palette.estimate, size: 3.5 });
@@ -85,11 +85,12 @@ export function pValueByGammaPlot(result: PairsResult, options: PairsPlotOptions
       x2: x,
       y1: frame.inner.bottom,
       y2: frame.y(result.alpha),
-      stroke: palette.overturned,
+      stroke: markers.tippingEstimate.color,
       strokeWidth: 1.5,
+      dash: '1 3',
       label: `Tipping Γ = ${formatGamma(result.sensitivityValue)}`,
     });
-    marks.push({ kind: 'point', x, y: frame.y(result.alpha), shape: 'diamond', color: palette.overturned, size: 6 });
+    marks.push({ kind: 'point', x, y: frame.y(result.alpha), ...markers.tippingEstimate, size: 6 });
     const rightHalf = x > (frame.inner.left + frame.inner.right) / 2;
     marks.push({
       kind: 'text',
@@ -101,7 +102,7 @@ export function pValueByGammaPlot(result: PairsResult, options: PairsPlotOptions
       size: 13,
       weight: 'bold',
     });
-    legend.push({ label: 'tipping Γ', color: palette.overturned, swatch: 'diamond' });
+    legend.push({ label: 'tipping Γ', color: markers.tippingEstimate.color, swatch: markers.tippingEstimate.shape });
   }
 
   const testName = result.test === 'signrank' ? 'signed-rank' : 'sign';
@@ -119,7 +120,7 @@ export function pValueByGammaPlot(result: PairsResult, options: PairsPlotOptions
     legend,
     table: Object.freeze({
       caption: `p-value bounds by Γ (${result.tailMethod === 'exact' ? 'exact' : 'normal approximation'})`,
-      columns: ['Γ', 'p upper bound', 'p lower bound'],
+      columns: ['Γ', 'worst-case p', 'best-case p'],
       rows: result.rows.map((r) => [formatGammaValue(r.gamma), formatPValue(r.pUpper), formatPValue(r.pLower)]),
     }),
   });

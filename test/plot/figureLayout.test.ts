@@ -1,0 +1,89 @@
+import { describe, expect, test } from 'vitest';
+import { figureTextBoxes, layoutFigure, overlappingTextPairs, placedTextBox } from '../../src/plot/figureLayout';
+import { PRINT_SIZES, screenLayout } from '../../src/plot/printSize';
+import { layoutFor, renderSvgString } from '../../src/plot/svgString';
+import { figureCases } from '../support/figureCases';
+
+const cases = figureCases();
+const layouts = {
+  'wide screen (640 px)': screenLayout(640),
+  'phone (350 px)': screenLayout(350),
+  'one column (3.5 in)': PRINT_SIZES.column.layout,
+  'two columns (7 in)': PRINT_SIZES['two-columns'].layout,
+} as const;
+
+describe('layoutFigure', () => {
+  test('the cases cover every figure of every calculator', () => {
+    const ids = new Set(cases.map((c) => c.spec.id));
+    for (const id of ['joint-strength', 'ovb-estimate-contours', 'ovb-t-contours', 'ovb-extreme-scenarios', 'pairs-p-value-by-gamma', 'pairs-estimate-range', 'pairs-amplification']) {
+      expect(ids.has(id), id).toBe(true);
+    }
+  });
+
+  for (const [sizeName, options] of Object.entries(layouts)) {
+    describe(sizeName, () => {
+      test.each(cases.map((c) => [c.name, c.spec] as const))('%s: no two text boxes intersect', (_name, spec) => {
+        const layout = layoutFigure(spec, options);
+        const boxes = figureTextBoxes(layout);
+        const clashes = overlappingTextPairs(boxes).map(([a, b]) => `"${a.text}" (${a.role}) × "${b.text}" (${b.role})`);
+        expect(clashes).toEqual([]);
+      });
+
+      test.each(cases.map((c) => [c.name, c.spec] as const))('%s: every text lies inside the figure', (_name, spec) => {
+        const layout = layoutFigure(spec, options);
+        for (const t of layout.texts) {
+          const box = placedTextBox(t);
+          expect(box.left, t.text).toBeGreaterThanOrEqual(-0.5);
+          expect(box.right, t.text).toBeLessThanOrEqual(layout.width + 0.5);
+          expect(box.top, t.text).toBeGreaterThanOrEqual(-0.5);
+          expect(box.bottom, t.text).toBeLessThanOrEqual(layout.height + 0.5);
+        }
+      });
+    });
+  }
+
+  test('each axis keeps one tick-label format', () => {
+    for (const { spec } of cases) {
+      for (const axis of [spec.xAxis, spec.yAxis]) {
+        const powers = axis.ticks.filter((t) => /10[⁻⁰¹²³⁴⁵⁶⁷⁸⁹]/.test(t.label)).length;
+        expect(powers === 0 || powers === axis.ticks.filter((t) => t.label !== '0').length, `${spec.id}: ${axis.ticks.map((t) => t.label).join(' ')}`).toBe(true);
+        expect(axis.ticks.some((t) => /e[-+]?\d/.test(t.label))).toBe(false);
+        const decimals = new Set(axis.ticks.filter((t) => t.label.endsWith('%')).map((t) => (t.label.split('.')[1] ?? '').length));
+        expect(decimals.size, `${spec.id}: ${axis.ticks.map((t) => t.label).join(' ')}`).toBeLessThanOrEqual(1);
+      }
+    }
+  });
+
+  test('crowded labels go to a numbered key below the figure instead of piling up', () => {
+    const crowded = cases.find((c) => c.name === 'regression estimate crowded')!.spec;
+    const layout = layoutFigure(crowded, screenLayout(350));
+    expect(layout.keyEntries.length).toBeGreaterThan(0);
+    expect(layout.texts.filter((t) => t.role === 'key').length).toBeGreaterThanOrEqual(layout.keyEntries.length);
+    expect(layout.keyEntries[0]).toMatch(/^1: /);
+  });
+});
+
+describe('print sizes', () => {
+  // Journal artwork guidance: text at least 7 pt and lines at least 0.5 pt at the printed size (common
+  // practice across journals' author instructions, no single source).
+  test.each(cases.map((c) => [c.name, c.spec] as const))('%s: SVG in inches, text ≥ 7 pt, lines ≥ 0.5 pt', (_name, spec) => {
+    for (const print of ['column', 'two-columns'] as const) {
+      const svg = renderSvgString(spec, { print });
+      const inches = PRINT_SIZES[print].inches;
+      expect(svg).toMatch(new RegExp(`^<svg[^>]* width="${inches}in"`));
+      const viewBoxWidth = Number(/viewBox="0 0 ([\d.]+) /.exec(svg)![1]);
+      const pointsPerUnit = (inches * 72) / viewBoxWidth;
+      const sizes = [...svg.matchAll(/<text[^>]* font-size="([\d.]+)"/g)].map((m) => Number(m[1]) * pointsPerUnit);
+      expect(sizes.length).toBeGreaterThan(5);
+      expect(Math.min(...sizes)).toBeGreaterThanOrEqual(7);
+      const strokes = [...svg.matchAll(/<(?:line|path|rect)[^>]* stroke-width="([\d.]+)"/g)].map((m) => Number(m[1]) * pointsPerUnit);
+      expect(Math.min(...strokes)).toBeGreaterThanOrEqual(0.5);
+    }
+  });
+
+  test('screen layouts never use text under 11 CSS px', () => {
+    for (const { spec } of cases) {
+      for (const w of [300, 350, 640, 900]) expect(Math.min(...layoutFor(spec, { width: w }).texts.map((t) => t.size))).toBeGreaterThanOrEqual(11);
+    }
+  });
+});
