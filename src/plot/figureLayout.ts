@@ -293,11 +293,14 @@ function moveAxis(axis: AxisSpec, move: (v: number) => number, range: [number, n
     }
     return true;
   };
-  const candidates: Tick[][] = [all];
+  const candidates: Tick[][] = [];
   if (axis.scale === 'log') {
     const decades = all.filter((t) => Math.abs(Math.log10(t.value) - Math.round(Math.log10(t.value))) < 1e-9);
+    // Over three decades or more, 2× and 5× ticks only crowd the axis: decades alone read best.
+    if (decades.length < 4) candidates.push(all);
     for (let step = 1; step <= Math.max(1, decades.length); step++) candidates.push(decades.filter((_, i) => i % step === 0));
   }
+  candidates.push(all);
   for (let step = 2; step <= all.length; step++) {
     for (let offset = 0; offset < step; offset++) candidates.push(all.filter((_, i) => i % step === offset));
   }
@@ -370,6 +373,7 @@ function placeLabels(requests: readonly LabelRequest[], fixed: readonly TextBox[
   const texts: PlacedText[] = [];
   const leaders: LeaderLine[] = [];
   const keyEntries: string[] = [];
+  const unnumbered: string[] = [];
   const taken: TextBox[] = [...fixed];
   const gap = 0.15 * f;
   const insideBox: TextBox = { left: inner.left + 1, top: inner.top + 1, right: inner.right - 1, bottom: inner.bottom - 1 };
@@ -397,14 +401,15 @@ function placeLabels(requests: readonly LabelRequest[], fixed: readonly TextBox[
     if (req.droppable) continue;
     // Crowded: a number beside the point, the full text in the key below the figure.
     const n = String(keyEntries.length + 1);
-    keyEntries.push(`${n}: ${req.text}`);
     const numbered = tryPlace({ ...req, asIs: null, side: req.side }, n, 'bold', 4, true) ?? tryPlace({ ...req, asIs: null }, n, 'bold', 4, false);
     if (numbered) {
+      keyEntries.push(`${n}: ${req.text}`);
       taken.push(numbered.box);
       texts.push({ ...numbered.text, role: 'key-number' });
       if (numbered.ring > 0) leaders.push(leaderTo(req, numbered.box));
-    }
+    } else unnumbered.push(req.text);
   }
+  if (unnumbered.length > 0) keyEntries.push(`Too close together to number (see the data table): ${unnumbered.join('; ')}`);
   return { texts, leaders, keyEntries };
 }
 

@@ -72,10 +72,10 @@ async function loadCrowded(page: Page): Promise<void> {
     const app = document.querySelector('lurk-app') as unknown as { appraisal: any; load(a: any): void };
     const appraisal = JSON.parse(JSON.stringify(app.appraisal));
     const regression = appraisal.calculators.regression;
-    regression.inputs.covariateTs = Array.from({ length: 20 }, (_, i) => ({ name: `household income band ${i + 1}`, outcomeT: String(2 + 0.05 * i), treatmentT: String(-1.5 - 0.03 * i) }));
+    regression.inputs.covariateTs = Array.from({ length: 20 }, (_, i) => ({ name: `household income band ${i + 1}`, outcomeT: (2 + 0.05 * i).toFixed(2), treatmentT: (-1.5 - 0.03 * i).toFixed(2) }));
     regression.summary = null;
     const evalue = appraisal.calculators.evalue;
-    evalue.inputs.confounders = Array.from({ length: 12 }, (_, i) => ({ name: `deprivation quintile ${i + 1}`, rrExposure: String(1.5 + 0.01 * i), rrOutcome: String(1.6 + 0.01 * i) }));
+    evalue.inputs.confounders = Array.from({ length: 12 }, (_, i) => ({ name: `deprivation quintile ${i + 1}`, rrExposure: (1.5 + 0.01 * i).toFixed(2), rrOutcome: (1.6 + 0.01 * i).toFixed(2) }));
     evalue.summary = null;
     app.load(appraisal);
   });

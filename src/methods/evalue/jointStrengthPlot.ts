@@ -102,10 +102,10 @@ export function jointStrengthPlot(result: EValueResult, options: JointStrengthPl
       d: polylinePath(curvePixels(frame, intervalRatio, top)),
       stroke: palette.interval,
       strokeWidth: 2.5,
-      dash: '7 4',
+      dash: '2 3',
       label: 'Pairs that would just make the interval include the target',
     });
-    legend.push({ label: 'interval limit', color: palette.interval, swatch: 'line', dash: '7 4' });
+    legend.push({ label: 'interval limit', color: palette.interval, swatch: 'line', dash: '2 3' });
   }
 
   const points: PointMark[] = [];

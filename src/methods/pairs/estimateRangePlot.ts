@@ -65,8 +65,8 @@ export function estimateRangePlot(result: PairsResult, options: PairsPlotOptions
   legend.push({ label: `${level} sensitivity interval`, color: palette.interval, swatch: 'area' });
   legend.push({ label: 'smallest to largest effect estimate', color: palette.estimate, swatch: 'area' });
   for (const [key, dash] of [
-    ['intervalLow', '5 3'],
-    ['intervalHigh', '5 3'],
+    ['intervalLow', '2 3'],
+    ['intervalHigh', '2 3'],
   ] as const) {
     marks.push({
       kind: 'path',
