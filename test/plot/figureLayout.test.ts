@@ -87,3 +87,22 @@ describe('print sizes', () => {
     }
   });
 });
+
+describe('axes fit what is shown, and the user can widen them', () => {
+  test('the extreme-scenario axis ends near its crossings, not at a fixed 10 %', () => {
+    const { spec } = cases.find((c) => c.name === 'regression extreme demo')!;
+    expect(spec.xAxis.domain[1]).toBeLessThan(0.1);
+  });
+
+  test('a wider range asked for is honoured; a narrower one is not', async () => {
+    const { analyseEValue } = await import('../../src/core/eValueAnalysis');
+    const { jointStrengthPlot } = await import('../../src/methods/evalue/jointStrengthPlot');
+    const { analysePairs } = await import('../../src/core/pairsAnalysis');
+    const { pValueByGammaPlot } = await import('../../src/methods/pairs/pValueByGammaPlot');
+    const e = analyseEValue({ measure: 'rr', estimate: 0.72, lower: 0.61, upper: 0.85 });
+    expect(jointStrengthPlot(e, { maxStrength: 50 }).xAxis.domain[1]).toBe(50);
+    expect(jointStrengthPlot(e, { maxStrength: 1.2 }).xAxis.domain[1]).toBe(jointStrengthPlot(e).xAxis.domain[1]);
+    const p = analysePairs({ data: { kind: 'differences', differences: [1, 2, 3, -1, 4, 5, 2, 3, 6, 1.5, 2.5] } });
+    expect(pValueByGammaPlot(p, { maxGamma: 20 }).xAxis.domain[1]).toBe(20);
+  });
+});

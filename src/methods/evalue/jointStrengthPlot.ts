@@ -18,6 +18,8 @@ export interface JointStrengthPlotOptions {
   readonly study?: Partial<StudyLabels>;
   /** Reference confounders to mark, already assessed against the result. */
   readonly confounders?: readonly ReferenceConfounderAssessment[];
+  /** The user's wider axis: both axes run to at least this risk ratio (> 1); default: fitted to what is shown. */
+  readonly maxStrength?: number;
 }
 
 /** How many points trace each curve. */
@@ -46,7 +48,9 @@ export function jointStrengthPlot(result: EValueResult, options: JointStrengthPl
   const eInterval = result.eValueInterval;
   const goal = result.targetIsNull ? 'explain away' : 'move to the target';
 
-  const top = axisTop(eEstimate, confounders);
+  const fitted = axisTop(eEstimate, confounders);
+  const wider = options.maxStrength;
+  const top = wider !== undefined && Number.isFinite(wider) && wider > fitted && wider <= 1e12 ? wider : fitted;
   const frame = createFrame({
     width,
     height,

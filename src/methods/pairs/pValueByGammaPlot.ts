@@ -12,6 +12,8 @@ export interface PairsPlotOptions {
   readonly width?: number;
   readonly height?: number;
   readonly study?: Partial<StudyLabels>;
+  /** The user's wider Γ axis (p-value plot): it runs to at least this Γ (> 1); default: fitted to the curve. */
+  readonly maxGamma?: number;
 }
 
 /**
@@ -23,7 +25,8 @@ export function pValueByGammaPlot(result: PairsResult, options: PairsPlotOptions
   const width = options.width ?? 640;
   const height = options.height ?? 400;
   const curve = result.curve.length > 0 ? result.curve : result.rows;
-  const gammaMax = Math.max(1.5, ...curve.map((r) => r.gamma), ...result.rows.map((r) => r.gamma));
+  const fittedMax = Math.max(1.5, ...curve.map((r) => r.gamma), ...result.rows.map((r) => r.gamma));
+  const gammaMax = options.maxGamma !== undefined && Number.isFinite(options.maxGamma) && options.maxGamma > fittedMax && options.maxGamma <= 1e6 ? options.maxGamma : fittedMax;
   const smallest = Math.min(result.alpha, ...curve.map((r) => r.pUpper).filter((p) => p > 0));
   const yMin = Math.max(1e-12, Math.pow(10, Math.floor(Math.log10(smallest)) - 1));
   const frame = createFrame({

@@ -41,7 +41,8 @@ export function ovbExtremeScenarioPlot(result: OvbResult, options: OvbExtremeSce
   const firstK = result.k[0];
   const benchmarks = result.benchmarks.filter((b) => b.unavailable === null && b.k === firstK);
   const crossings = result.extremeScenarios.map((e) => e.r2dzToReach).filter((v) => Number.isFinite(v));
-  const wanted = [...crossings.map((v) => v * 1.3), ...benchmarks.map((b) => b.r2dz * 1.2), 0.1];
+  // Room for every crossing (with the curves running on past it) and every benchmark, not much more.
+  const wanted = [...crossings.map((v) => Math.min(0.95, v * 2.5)), ...benchmarks.map((b) => b.r2dz * 1.25), 0.02];
   const maxX = options.maxR2dz !== undefined && options.maxR2dz > 0 && options.maxR2dz < 1 ? options.maxR2dz : roundUp(Math.max(...wanted));
   const reported = { estimate: result.estimate, se: result.se, df: result.df };
   const curves = EXTREME_SCENARIO_R2YZ.map((r2yz) => {
