@@ -227,7 +227,8 @@ export function layoutFigure(spec: PlotSpec, options: FigureLayoutOptions): Figu
       const r = (m.size ?? 5) * markerScale * 1.35 + 1;
       return { x: m.x, y: m.y, left: m.x - r, right: m.x + r, top: m.y - r, bottom: m.y + r };
     });
-  const ordered = [...labels.filter((l) => !l.droppable), ...labels.filter((l) => l.droppable)];
+  const grouped = groupCoincidentLabels(labels, f);
+  const ordered = [...grouped.filter((l) => !l.droppable), ...grouped.filter((l) => l.droppable)];
   const placed = placeLabels(ordered, texts.map(placedTextBox), markerBoxes, inner, f);
   texts.push(...placed.texts);
 
@@ -411,6 +412,26 @@ function placeLabels(requests: readonly LabelRequest[], fixed: readonly TextBox[
   }
   if (unnumbered.length > 0) keyEntries.push(`Too close together to number (see the data table): ${unnumbered.join('; ')}`);
   return { texts, leaders, keyEntries };
+}
+
+/**
+ * Points that (nearly) coincide share one label: their texts joined by "; " (which, being long, usually goes to
+ * the numbered key as a single entry rather than as a pile of numbers).
+ */
+function groupCoincidentLabels(labels: readonly LabelRequest[], f: number): LabelRequest[] {
+  const out: LabelRequest[] = [];
+  const groups: { first: LabelRequest; texts: string[] }[] = [];
+  for (const l of labels) {
+    if (l.asIs) {
+      out.push(l);
+      continue;
+    }
+    const near = groups.find((g) => Math.hypot(g.first.x - l.x, g.first.y - l.y) < Math.max(g.first.r + l.r, 0.6 * f));
+    if (near) near.texts.push(l.text);
+    else groups.push({ first: l, texts: [l.text] });
+  }
+  for (const g of groups) out.push(g.texts.length === 1 ? g.first : { ...g.first, text: g.texts.join('; ') });
+  return out;
 }
 
 /** Shifts a text inside `area` when it sticks out; null when it is larger than the area. */
