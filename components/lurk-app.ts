@@ -160,9 +160,9 @@ export class LurkApp extends LitElement {
         <button class="secondary" type="button" @click=${this.clear}>Start a new appraisal</button>
         <span class="notice" role="status" aria-live="polite">${this.notice}</span>
       </div>
+      ${this.banner ? html`<div class="demo-banner" role="note">${this.banner}</div>` : nothing}
       <details class="study-fold" ?open=${this.studyOpen} @toggle=${(e: Event) => (this.studyOpen = (e.currentTarget as HTMLDetailsElement).open)}>
         <summary><span class="fold-label">Study</span> <span class="fold-finding">${this.study.finding.trim() || 'not named yet'}</span></summary>
-        ${this.banner ? html`<div class="demo-banner" role="note">${this.banner}</div>` : nothing}
         <lurk-study .study=${this.study} @lurk-study-change=${this.onStudy}></lurk-study>
       </details>
       <div role="tablist" aria-label="Calculators" @keydown=${this.onTabKey}>

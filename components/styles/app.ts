@@ -24,8 +24,18 @@ export const appStyles = css`
         align-items: baseline;
         min-width: 0;
       }
+      .study-fold > summary::-webkit-details-marker {
+        display: none;
+      }
       .fold-label {
         font-weight: 600;
+      }
+      .fold-label::before {
+        content: '▸ ';
+        color: var(--_accent);
+      }
+      .study-fold[open] .fold-label::before {
+        content: '▾ ';
       }
       .fold-finding {
         color: var(--_muted);
@@ -83,6 +93,11 @@ export const appStyles = css`
         header.app p,
         .privacy {
           font-size: 0.85rem;
+        }
+        .demo-banner {
+          font-size: 0.8rem;
+          padding: 0.35rem 0.5rem;
+          margin: 0.25rem 0;
         }
         [role='tablist'] {
           flex-wrap: nowrap;
