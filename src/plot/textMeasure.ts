@@ -23,6 +23,8 @@ function charWidth(c: string): number {
   if (/[0-9]/.test(c)) return 0.56;
   if (c === 'Γ' || c === 'α' || c === 'β' || c === 'q' || c === 'k') return 0.58;
   if (/[a-z]/.test(c)) return 0.56;
+  // CJK, Hangul, full-width forms and pictographs take a whole em (or more).
+  if ((c.codePointAt(0) ?? 0) >= 0x2e80) return 1.05;
   return 0.62; // ×, −, ≥, ·, ~, letters of other scripts
 }
 

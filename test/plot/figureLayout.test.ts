@@ -106,3 +106,28 @@ describe('axes fit what is shown, and the user can widen them', () => {
     expect(pValueByGammaPlot(p, { maxGamma: 20 }).xAxis.domain[1]).toBe(20);
   });
 });
+
+describe('no overlapping text for any input (property)', () => {
+  test('regression and E-value figures with random benchmarks, at phone and one-column widths', async () => {
+    const fc = (await import('fast-check')).default;
+    const { analyseOvb } = await import('../../src/core/ovbAnalysis');
+    const { ovbContourPlot } = await import('../../src/methods/regression/ovbContourPlot');
+    const { analyseEValue } = await import('../../src/core/eValueAnalysis');
+    const { assessReferenceConfounder } = await import('../../src/core/referenceConfounder');
+    const { jointStrengthPlot } = await import('../../src/methods/evalue/jointStrengthPlot');
+    const benchmark = fc.record({ outcomeT: fc.double({ min: -12, max: 12, noNaN: true }), treatmentT: fc.double({ min: -6, max: 6, noNaN: true }), name: fc.string({ minLength: 1, maxLength: 30 }) });
+    fc.assert(
+      fc.property(fc.double({ min: 0.5, max: 20, noNaN: true }), fc.array(benchmark, { maxLength: 12 }), fc.array(fc.tuple(fc.double({ min: 1.01, max: 30, noNaN: true }), fc.double({ min: 1.01, max: 30, noNaN: true })), { maxLength: 10 }), (t, benchmarks, confounders) => {
+        const ovb = analyseOvb({ estimate: t, se: 1, df: 500, benchmarks: benchmarks.map((b, i) => ({ covariate: `${b.name}${i}`, outcomeT: b.outcomeT, treatmentT: b.treatmentT })) });
+        const e = analyseEValue({ measure: 'rr', estimate: 1 + t / 5, lower: 1 + t / 10, upper: 1 + t / 2 });
+        const specs = [ovbContourPlot(ovb, { kind: 'estimate' }), ovbContourPlot(ovb, { kind: 't' }), jointStrengthPlot(e, { confounders: confounders.map(([a, b], i) => assessReferenceConfounder(e, { name: `reference ${i}`, rrExposure: a, rrOutcome: b })) })];
+        for (const spec of specs) {
+          for (const options of [screenLayout(350), PRINT_SIZES.column.layout]) {
+            expect(overlappingTextPairs(figureTextBoxes(layoutFigure(spec, options)))).toEqual([]);
+          }
+        }
+      }),
+      { numRuns: 40 },
+    );
+  }, 120_000);
+});
