@@ -13,6 +13,9 @@ import './lurk-statement';
 import './lurk-bottom-line';
 import './lurk-batch';
 
+/** Below this width the study header starts folded and the tabs scroll sideways in their own strip. */
+const NARROW_SCREEN = '(max-width: 640px)';
+
 /** The views of the workspace, in tab order: a tab per method of the registry, then the workspace's own. */
 export type WorkspaceView = string;
 
@@ -100,6 +103,8 @@ export class LurkApp extends LitElement {
   /** A message about loading, saving or sharing, shown in the toolbar. */
   @property() notice = '';
 
+  /** Whether the study header is unfolded: folded at first on narrow screens, so the calculator shows first. */
+  @state() private studyOpen = typeof matchMedia === 'function' ? !matchMedia(NARROW_SCREEN).matches : true;
   @state() private batchText = '';
   @state() private batchAlpha = '0.05';
 
@@ -156,7 +161,10 @@ export class LurkApp extends LitElement {
         <span class="notice" role="status" aria-live="polite">${this.notice}</span>
       </div>
       ${this.banner ? html`<div class="demo-banner" role="note">${this.banner}</div>` : nothing}
-      <lurk-study .study=${this.study} @lurk-study-change=${this.onStudy}></lurk-study>
+      <details class="study-fold" ?open=${this.studyOpen} @toggle=${(e: Event) => (this.studyOpen = (e.currentTarget as HTMLDetailsElement).open)}>
+        <summary><span class="fold-label">Study</span> <span class="fold-finding">${this.study.finding.trim() || 'not named yet'}</span></summary>
+        <lurk-study .study=${this.study} @lurk-study-change=${this.onStudy}></lurk-study>
+      </details>
       <div role="tablist" aria-label="Calculators" @keydown=${this.onTabKey}>
         ${VIEWS.map(
           (v) => html`<button

@@ -95,7 +95,7 @@ export function pairsResultsTemplate(v: PairsResultsView): TemplateResult {
         </caption>
         <thead>
           <tr>
-            ${table.header.map((h) => html`<th scope="col">${h}</th>`)}
+            ${table.header.map((h) => html`<th scope="col">${plainHeading(h)}</th>`)}
           </tr>
         </thead>
         <tbody>
@@ -110,4 +110,15 @@ export function pairsResultsTemplate(v: PairsResultsView): TemplateResult {
     </div>
     <p class="caution" role="note">${PAIRS_CAUTION}</p>
   `;
+}
+
+/** The sensitivity table's column headings in plain words (the units in brackets are kept). */
+function plainHeading(heading: string): string {
+  return heading
+    .replace(/^Γ$/, 'hidden bias Γ')
+    .replace(/^p upper bound$/, 'worst-case p')
+    .replace(/^p lower bound$/, 'best-case p')
+    .replace(/^estimate low/, 'smallest effect estimate')
+    .replace(/^estimate high/, 'largest effect estimate')
+    .replace(/% interval/, '% sensitivity interval');
 }

@@ -3,9 +3,50 @@ import { css } from 'lit';
 /** The workspace's own layout: header, toolbar, tabs, panels and banners. */
 export const appStyles = css`
       :host {
+        display: block;
+        box-sizing: border-box;
         max-width: 1180px;
+        min-width: 0;
         margin: 0 auto;
         padding: 0 1rem 3rem;
+        overflow-wrap: anywhere;
+      }
+      [role='tabpanel'],
+      .study-fold {
+        min-width: 0;
+        max-width: 100%;
+      }
+      .study-fold > summary {
+        cursor: pointer;
+        padding: 0.35rem 0;
+        display: flex;
+        gap: 0.5rem;
+        align-items: baseline;
+        min-width: 0;
+      }
+      .study-fold > summary::-webkit-details-marker {
+        display: none;
+      }
+      .fold-label {
+        font-weight: 600;
+      }
+      .fold-label::before {
+        content: '▸ ';
+        color: var(--_accent);
+      }
+      .study-fold[open] .fold-label::before {
+        content: '▾ ';
+      }
+      .fold-finding {
+        color: var(--_muted);
+        white-space: nowrap;
+        overflow: hidden;
+        text-overflow: ellipsis;
+        min-width: 0;
+        flex: 1;
+      }
+      .study-fold[open] .fold-finding {
+        display: none;
       }
       header.app {
         display: flex;
@@ -34,6 +75,43 @@ export const appStyles = css`
         gap: 0.25rem;
         border-bottom: 2px solid var(--_border);
         margin-top: 0.75rem;
+      }
+      [role='tab'] {
+        white-space: nowrap;
+      }
+      /* Narrow screens: the study header folds, the tabs scroll sideways in their own strip (never the page). */
+      @media (max-width: 640px) {
+        :host {
+          padding: 0 0.6rem 2rem;
+        }
+        header.app {
+          padding: 0.5rem 0 0.25rem;
+        }
+        header.app h1 {
+          font-size: 1.3rem;
+        }
+        header.app p,
+        .privacy {
+          font-size: 0.85rem;
+        }
+        .demo-banner {
+          font-size: 0.8rem;
+          padding: 0.35rem 0.5rem;
+          margin: 0.25rem 0;
+        }
+        [role='tablist'] {
+          flex-wrap: nowrap;
+          overflow-x: auto;
+          overscroll-behavior-x: contain;
+          scroll-snap-type: x proximity;
+          scrollbar-width: thin;
+          margin-top: 0.4rem;
+        }
+        [role='tab'] {
+          flex: none;
+          scroll-snap-align: start;
+          padding: 0.45rem 0.7rem;
+        }
       }
       [role='tab'] {
         background: var(--_surface);

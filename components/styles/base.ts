@@ -147,9 +147,19 @@ export const baseStyles = css`
   td:first-child {
     text-align: left;
   }
+  /* A wide table scrolls inside its own box; its first (key) column stays in view while it does. */
   .table-scroll {
     overflow-x: auto;
     max-width: 100%;
+    overscroll-behavior-x: contain;
+  }
+  .table-scroll th:first-child,
+  .table-scroll td:first-child {
+    position: sticky;
+    left: 0;
+    z-index: 1;
+    background: var(--_bg);
+    box-shadow: 1px 0 0 var(--_border);
   }
   fieldset {
     border: 1px solid var(--_border);

@@ -4,7 +4,7 @@ import { formatAsTyped, formatGamma } from '../format/gammaText';
 import { createFrame } from './frame';
 import { equalStrengthDiagonal } from './equalStrengthDiagonal';
 import { framedPlotSpec } from './framedPlotSpec';
-import { palette } from './palette';
+import { markers, palette } from './palette';
 import { polylinePath } from './pathData';
 import type { LegendItem, PlotMark, PlotSpec } from './plotSpec';
 import type { SensitivityPlotOptions } from './pValueBoundsPlot';
@@ -37,8 +37,8 @@ export function amplificationCurvePlot(result: AmplificationCurveData, options: 
   const frame = createFrame({
     width,
     height,
-    x: { domain: [1, top], label: 'Λ: how much the hidden covariate multiplies the odds of treatment', scale: 'log' },
-    y: { domain: [1, top], label: `Δ: how much it multiplies the odds of a ${result.alternative === 'less' ? 'lower' : 'higher'} outcome`, scale: 'log' },
+    x: { domain: [1, top], label: 'How much the hidden covariate multiplies the odds of treatment (Λ)', scale: 'log' },
+    y: { domain: [1, top], label: `How much it multiplies the odds of a ${result.alternative === 'less' ? 'lower' : 'higher'} outcome (Δ)`, scale: 'log' },
   });
   // Trace Λ from where Δ = top down to Λ = top, evenly in log(Λ − Γ) so the steep end is smooth.
   const start = amplificationDelta(gamma, top);
@@ -60,14 +60,13 @@ export function amplificationCurvePlot(result: AmplificationCurveData, options: 
       kind: 'point',
       x: frame.x(pair.lambda),
       y: frame.y(pair.delta),
-      shape: 'circle',
-      color: palette.interval,
+      ...markers.example,
       size: 5,
       label: `Λ = ${formatAsTyped(pair.lambda)}, Δ = ${formatAsTyped(Number(pair.delta.toPrecision(2)))}`,
       labelSide: frame.x(pair.lambda) > frame.inner.left + 0.6 * (frame.inner.right - frame.inner.left) ? 'above' : 'right',
     });
   }
-  if (result.amplification.length > 0) legend.push({ label: 'examples in the text', color: palette.interval, swatch: 'circle' });
+  if (result.amplification.length > 0) legend.push({ label: 'examples in the text', color: markers.example.color, swatch: markers.example.shape });
   const tableLambdas = [1.25, 1.5, 2, 3, 4, 5, 6, 8, 10, 15, 20, 30, 50, 100, 200, 500, 1000].map((m) => m * Math.max(1, Math.pow(10, Math.floor(Math.log10(gamma)) - 1)));
   const rows = tableLambdas
     .filter((l) => l > gamma * 1.05 && l <= top)

@@ -2,7 +2,7 @@ import { formatAsTyped, formatEffect, formatGammaValue } from '../format/gammaTe
 import { outcomeLabel } from '../format/studyLabels';
 import { createFrame } from './frame';
 import { framedPlotSpec } from './framedPlotSpec';
-import { palette } from './palette';
+import { markers, palette } from './palette';
 import { polygonPath, polylinePath } from './pathData';
 import type { LegendItem, PlotMark, PlotSpec } from './plotSpec';
 import type { SensitivityPlotOptions } from './pValueBoundsPlot';
@@ -53,7 +53,7 @@ export function estimateBandsPlot(result: EstimateBandsData, options: Sensitivit
   const frame = createFrame({
     width,
     height,
-    x: { domain: [1, rows.length > 1 ? gammaMax : 2], label: 'Hidden bias Γ' },
+    x: { domain: [1, rows.length > 1 ? gammaMax : 2], label: 'Hidden bias Γ: how far the odds of treatment may differ within a matched pair or set' },
     y: { domain: [lo, hi], label: `Effect on ${outcomeLabel(options.study)} (treated − control)` },
   });
   const clamp = (v: number) => frame.y(Math.min(hi, Math.max(lo, v)));
@@ -82,10 +82,10 @@ export function estimateBandsPlot(result: EstimateBandsData, options: Sensitivit
     });
   }
   legend.push({ label: `${level} sensitivity interval`, color: palette.interval, swatch: 'area' });
-  legend.push({ label: 'range of estimates', color: palette.estimate, swatch: 'area' });
+  legend.push({ label: 'smallest to largest effect estimate', color: palette.estimate, swatch: 'area' });
   for (const [key, dash] of [
-    ['intervalLow', '5 3'],
-    ['intervalHigh', '5 3'],
+    ['intervalLow', '2 3'],
+    ['intervalHigh', '2 3'],
   ] as const) {
     marks.push({
       kind: 'path',
@@ -113,8 +113,7 @@ export function estimateBandsPlot(result: EstimateBandsData, options: Sensitivit
     kind: 'point',
     x: frame.x(1),
     y: frame.y(result.estimate),
-    shape: 'diamond',
-    color: palette.estimate,
+    ...markers.reported,
     size: 6,
     label: `estimate ${formatEffect(result.estimate, options.study)}`,
     labelSide: 'right',
@@ -128,7 +127,7 @@ export function estimateBandsPlot(result: EstimateBandsData, options: Sensitivit
     legend,
     table: Object.freeze({
       caption: `Estimate range and ${level} sensitivity interval by Γ`,
-      columns: ['Γ', 'estimate low', 'estimate high', 'interval low', 'interval high'],
+      columns: ['Γ', 'smallest effect estimate', 'largest effect estimate', 'interval low', 'interval high'],
       rows: rows.map((e) => [
         formatGammaValue(e.gamma),
         formatEffect(e.estimateLow, options.study),

@@ -1,25 +1,31 @@
 import type { PlotSpec } from './plotSpec';
-import { renderSvgString, renderedHeight } from './svgString';
+import { layoutFor, renderLayoutSvg } from './svgString';
 import { setPngDpi } from './pngDpi';
+import { PRINT_SIZES, type PrintWidth } from './printSize';
+import { figureCaption, figureCsv } from './figureCaption';
 
-/** One journal column is about 3.5 inches (89 mm) wide; figures export at 300 dpi at that width. */
-export const COLUMN_WIDTH_INCHES = 3.5;
+/** One journal column is about 3.5 inches (89 mm) wide; figures export at 300 dpi at that width by default. */
+export const COLUMN_WIDTH_INCHES = PRINT_SIZES.column.inches;
 export const EXPORT_DPI = 300;
+/** The resolutions offered for PNG files. */
+export const PNG_RESOLUTIONS: readonly number[] = Object.freeze([300, 600]);
 
-/** The plot as a standalone SVG file (title drawn in). */
-export function figureSvgBlob(spec: PlotSpec): Blob {
-  return new Blob([renderSvgString(spec, { includeTitle: true })], { type: 'image/svg+xml' });
+/** The plot as a standalone SVG file sized for print (width in inches, title drawn in). */
+export function figureSvgBlob(spec: PlotSpec, print: PrintWidth = 'column'): Blob {
+  const layout = layoutFor(spec, { print, includeTitle: true });
+  return new Blob([renderLayoutSvg(layout, { widthInches: PRINT_SIZES[print].inches })], { type: 'image/svg+xml' });
 }
 
 /**
- * The plot as a PNG of one journal column width at 300 dpi (1050 pixels wide), with the resolution written
- * into the file. Drawn by the browser from the same SVG.
+ * The plot as a PNG at a journal width and resolution (3.5 in at 300 dpi is 1050 pixels wide), with the
+ * resolution written into the file's pHYs chunk. Drawn by the browser from the print SVG.
  */
-export async function figurePngBlob(spec: PlotSpec): Promise<Blob> {
-  const svg = renderSvgString(spec, { includeTitle: true });
-  const widthPx = Math.round(COLUMN_WIDTH_INCHES * EXPORT_DPI);
-  const scale = widthPx / spec.width;
-  const heightPx = Math.round(renderedHeight(spec, { includeTitle: true }) * scale);
+export async function figurePngBlob(spec: PlotSpec, print: PrintWidth = 'column', dpi = EXPORT_DPI): Promise<Blob> {
+  const layout = layoutFor(spec, { print, includeTitle: true });
+  const inches = PRINT_SIZES[print].inches;
+  const svg = renderLayoutSvg(layout, { widthInches: inches });
+  const widthPx = Math.round(inches * dpi);
+  const heightPx = Math.round((layout.height / layout.width) * widthPx);
   const url = URL.createObjectURL(new Blob([svg], { type: 'image/svg+xml' }));
   try {
     const image = new Image();
@@ -40,11 +46,21 @@ export async function figurePngBlob(spec: PlotSpec): Promise<Blob> {
     const blob = await new Promise<Blob>((resolve, reject) =>
       canvas.toBlob((b) => (b ? resolve(b) : reject(new Error('the figure could not be encoded'))), 'image/png'),
     );
-    const bytes = setPngDpi(new Uint8Array(await blob.arrayBuffer()), EXPORT_DPI);
+    const bytes = setPngDpi(new Uint8Array(await blob.arrayBuffer()), dpi);
     return new Blob([bytes as BlobPart], { type: 'image/png' });
   } finally {
     URL.revokeObjectURL(url);
   }
+}
+
+/** The figure's data table as a CSV file. */
+export function figureCsvBlob(spec: PlotSpec): Blob {
+  return new Blob([figureCsv(spec)], { type: 'text/csv' });
+}
+
+/** The figure's caption (title, description, numbered key, data pointer) as a text file. */
+export function figureCaptionBlob(spec: PlotSpec, print: PrintWidth = 'column'): Blob {
+  return new Blob([figureCaption(spec, layoutFor(spec, { print, includeTitle: true }))], { type: 'text/plain' });
 }
 
 /** Offers a blob as a download with the given file name. */

@@ -1,6 +1,7 @@
 import { scaleLinear, scaleLog } from 'd3-scale';
 import type { AxisSpec, PlotArea, Tick } from './plotSpec';
 import { formatNumber } from '../format/formatNumber';
+import { uniformTickLabels } from './tickLabels';
 
 /** Tick values are round numbers: write them without float noise or trailing zeros (0.30000000000000004 → 0.3). */
 export function defaultTickLabel(value: number): string {
@@ -17,8 +18,11 @@ export interface AxisOptions {
   scale?: 'linear' | 'log';
   /** Approximate number of ticks (d3's tick algorithm chooses round values). */
   tickCount?: number;
-  /** How tick values are written (default: 3 significant digits, trailing zeros dropped). */
-  tickFormat?: (value: number) => string;
+  /**
+   * How tick values are written; receives every tick value of the axis as well, so that one format can be
+   * chosen for the whole axis (default: `uniformTickLabels`).
+   */
+  tickFormat?: (value: number, values: readonly number[]) => string;
 }
 
 export interface FrameOptions {
@@ -89,10 +93,12 @@ function makeScale(axis: AxisOptions, range: [number, number]): Scale {
 }
 
 function axisSpec(axis: AxisOptions, scale: Scale, range: [number, number]): AxisSpec {
-  const format = axis.tickFormat ?? defaultTickLabel;
   let values = scale.ticks(axis.tickCount ?? 6);
   if (axis.scale === 'log' && values.length > 7) values = thinLogTicks(values);
-  const ticks: Tick[] = values.filter(Number.isFinite).map((value) => ({ value, position: scale(value), label: format(value) }));
+  values = values.filter(Number.isFinite);
+  const uniform = uniformTickLabels(values);
+  const format = axis.tickFormat;
+  const ticks: Tick[] = values.map((value, i) => ({ value, position: scale(value), label: format ? format(value, values) : uniform[i] }));
   return {
     label: axis.label,
     scale: axis.scale ?? 'linear',

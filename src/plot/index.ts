@@ -5,3 +5,8 @@ export * from './palette';
 export * from './svgString';
 export * from './pathData';
 export * from './invertAxis';
+export * from './figureLayout';
+export * from './printSize';
+export * from './tickLabels';
+export * from './textMeasure';
+export * from './figureCaption';

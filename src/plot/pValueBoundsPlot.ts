@@ -4,12 +4,14 @@ import { formatAsTyped, formatGamma, formatGammaValue } from '../format/gammaTex
 import type { StudyLabels } from '../format/studyLabels';
 import { createFrame } from './frame';
 import { framedPlotSpec } from './framedPlotSpec';
-import { palette } from './palette';
+import { markers, palette } from './palette';
 import { polylinePath } from './pathData';
 import type { LegendItem, PlotMark, PlotSpec } from './plotSpec';
 
 /** Size and labels of a sensitivity plot. */
 export interface SensitivityPlotOptions {
+  /** The user's wider Γ axis (p-value plot): it runs to at least this Γ (> 1); default: fitted to the curve. */
+  readonly maxGamma?: number;
   readonly width?: number;
   readonly height?: number;
   readonly study?: Partial<StudyLabels>;
@@ -47,14 +49,16 @@ export function pValueBoundsPlot(result: PValueBoundsData, options: SensitivityP
   const width = options.width ?? 640;
   const height = options.height ?? 400;
   const curve = result.curve.length > 0 ? result.curve : result.rows;
-  const gammaMax = Math.max(1.5, ...curve.map((r) => r.gamma), ...result.rows.map((r) => r.gamma));
+  const fittedMax = Math.max(1.5, ...curve.map((r) => r.gamma), ...result.rows.map((r) => r.gamma));
+  // The user may widen the Γ axis (never narrow it below what is drawn).
+  const gammaMax = options.maxGamma !== undefined && Number.isFinite(options.maxGamma) && options.maxGamma > fittedMax && options.maxGamma <= 1e6 ? options.maxGamma : fittedMax;
   const smallest = Math.min(result.alpha, ...curve.map((r) => r.pUpper).filter((p) => p > 0));
   const yMin = Math.max(1e-12, Math.pow(10, Math.floor(Math.log10(smallest)) - 1));
   const frame = createFrame({
     width,
     height,
     x: { domain: [1, gammaMax], label: result.gammaAxisLabel },
-    y: { domain: [yMin, 1], label: 'One-sided p-value bound (log scale)', scale: 'log' },
+    y: { domain: [yMin, 1], label: 'One-sided p-value, worst and best case (log scale)', scale: 'log' },
   });
   const inside = (p: number) => (p >= yMin && p <= 1 ? frame.y(p) : NaN);
   const marks: PlotMark[] = [];
@@ -88,7 +92,7 @@ export function pValueBoundsPlot(result: PValueBoundsData, options: SensitivityP
     dash: '6 3',
     label: 'Lower bound on the p-value',
   });
-  legend.push({ label: 'lower bound', color: palette.second, swatch: 'line', dash: '6 3' });
+  legend.push({ label: 'best-case p', color: palette.second, swatch: 'line', dash: '6 3' });
   marks.push({
     kind: 'path',
     d: polylinePath(curve.map((r) => [frame.x(r.gamma), inside(r.pUpper)])),
@@ -96,7 +100,7 @@ export function pValueBoundsPlot(result: PValueBoundsData, options: SensitivityP
     strokeWidth: 2.5,
     label: 'Upper bound on the p-value',
   });
-  legend.push({ label: 'upper bound', color: palette.estimate, swatch: 'line' });
+  legend.push({ label: 'worst-case p', color: palette.estimate, swatch: 'line' });
   for (const row of result.rows) {
     if (!(row.pUpper >= yMin) || row.gamma > gammaMax) continue;
     marks.push({ kind: 'point', x: frame.x(row.gamma), y: frame.y(row.pUpper), shape: 'circle', color: palette.estimate, size: 3.5 });
@@ -109,11 +113,12 @@ export function pValueBoundsPlot(result: PValueBoundsData, options: SensitivityP
       x2: x,
       y1: frame.inner.bottom,
       y2: frame.y(result.alpha),
-      stroke: palette.overturned,
+      stroke: markers.tippingEstimate.color,
+      dash: '1 3',
       strokeWidth: 1.5,
       label: `Tipping Γ = ${formatGamma(result.sensitivityValue)}`,
     });
-    marks.push({ kind: 'point', x, y: frame.y(result.alpha), shape: 'diamond', color: palette.overturned, size: 6 });
+    marks.push({ kind: 'point', x, y: frame.y(result.alpha), ...markers.tippingEstimate, size: 6 });
     const rightHalf = x > (frame.inner.left + frame.inner.right) / 2;
     marks.push({
       kind: 'text',
@@ -125,7 +130,7 @@ export function pValueBoundsPlot(result: PValueBoundsData, options: SensitivityP
       size: 13,
       weight: 'bold',
     });
-    legend.push({ label: 'tipping Γ', color: palette.overturned, swatch: 'diamond' });
+    legend.push({ label: 'tipping Γ', color: markers.tippingEstimate.color, swatch: markers.tippingEstimate.shape });
   }
 
   const tipping =
@@ -142,7 +147,7 @@ export function pValueBoundsPlot(result: PValueBoundsData, options: SensitivityP
     legend,
     table: Object.freeze({
       caption: result.tableCaption,
-      columns: ['Γ', 'p upper bound', 'p lower bound'],
+      columns: ['Γ', 'worst-case p', 'best-case p'],
       rows: result.rows.map((r) => [formatGammaValue(r.gamma), formatPValue(r.pUpper), formatPValue(r.pLower)]),
     }),
   });

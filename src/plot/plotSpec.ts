@@ -61,7 +61,8 @@ export interface PathMark {
   readonly label?: string;
 }
 
-export type PointShape = 'circle' | 'square' | 'diamond' | 'triangle' | 'cross';
+/** Marker shapes; `ring` is an open circle, `hexagon` a filled hexagon (see svgString's markerPath). */
+export type PointShape = 'circle' | 'ring' | 'square' | 'diamond' | 'triangle' | 'hexagon' | 'cross';
 
 export interface PointMark {
   readonly kind: 'point';
@@ -86,6 +87,8 @@ export interface TextMark {
   readonly color?: string;
   readonly size?: number;
   readonly weight?: 'normal' | 'bold';
+  /** May be left out when the plot has no room for it (e.g. a contour line's level); other texts never are. */
+  readonly droppable?: boolean;
 }
 
 export interface RuleMark {

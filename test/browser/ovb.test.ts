@@ -78,7 +78,7 @@ describe('<lurk-ovb>', () => {
 
     const plot = shadow().querySelector('#plot-estimate') as HTMLElement;
     const svg = plot.shadowRoot?.querySelector('svg') as SVGSVGElement;
-    expect(svg.textContent).toMatch(/1× Agriculture/);
+    expect(svg.textContent).toMatch(/as strong as Agriculture/);
     expect(svg.querySelectorAll('path').length).toBeGreaterThan(8);
     expect(shadow().textContent).not.toMatch(/NaN|undefined|Infinity/);
 

@@ -8,9 +8,9 @@ import { createFrame } from '../../plot/frame';
 import { equalStrengthDiagonal } from '../../plot/equalStrengthDiagonal';
 import { framedPlotSpec } from '../../plot/framedPlotSpec';
 import type { Frame } from '../../plot/frame';
-import { palette } from '../../plot/palette';
+import { markers, palette } from '../../plot/palette';
 import { polygonPath, polylinePath } from '../../plot/pathData';
-import type { LegendItem, PlotArea, PlotMark, PlotSpec, PointMark } from '../../plot/plotSpec';
+import type { LegendItem, PlotMark, PlotSpec, PointMark } from '../../plot/plotSpec';
 
 export interface JointStrengthPlotOptions {
   readonly width?: number;
@@ -18,6 +18,8 @@ export interface JointStrengthPlotOptions {
   readonly study?: Partial<StudyLabels>;
   /** Reference confounders to mark, already assessed against the result. */
   readonly confounders?: readonly ReferenceConfounderAssessment[];
+  /** The user's wider axis: both axes run to at least this risk ratio (> 1); default: fitted to what is shown. */
+  readonly maxStrength?: number;
 }
 
 /** How many points trace each curve. */
@@ -46,13 +48,15 @@ export function jointStrengthPlot(result: EValueResult, options: JointStrengthPl
   const eInterval = result.eValueInterval;
   const goal = result.targetIsNull ? 'explain away' : 'move to the target';
 
-  const top = axisTop(eEstimate, confounders);
+  const fitted = axisTop(eEstimate, confounders);
+  const wider = options.maxStrength;
+  const top = wider !== undefined && Number.isFinite(wider) && wider > fitted && wider <= 1e12 ? wider : fitted;
   const frame = createFrame({
     width,
     height,
     margin: { left: 64, right: 24, top: 16, bottom: 56 },
-    x: { domain: [1, top], label: `Risk ratio of a hidden confounder with ${exposure} (RR_EU)`, scale: 'log' },
-    y: { domain: [1, top], label: `Risk ratio with ${outcome} (RR_UD)`, scale: 'log' },
+    x: { domain: [1, top], label: `How much more common the hidden confounder is with ${exposure} (risk ratio)`, scale: 'log' },
+    y: { domain: [1, top], label: `How much it raises the risk of ${outcome} (risk ratio)`, scale: 'log' },
   });
   const { inner } = frame;
 
@@ -102,10 +106,10 @@ export function jointStrengthPlot(result: EValueResult, options: JointStrengthPl
       d: polylinePath(curvePixels(frame, intervalRatio, top)),
       stroke: palette.interval,
       strokeWidth: 2.5,
-      dash: '7 4',
+      dash: '2 3',
       label: 'Pairs that would just make the interval include the target',
     });
-    legend.push({ label: 'interval limit', color: palette.interval, swatch: 'line', dash: '7 4' });
+    legend.push({ label: 'interval limit', color: palette.interval, swatch: 'line', dash: '2 3' });
   }
 
   const points: PointMark[] = [];
@@ -114,8 +118,7 @@ export function jointStrengthPlot(result: EValueResult, options: JointStrengthPl
       kind: 'point',
       x: frame.x(eEstimate),
       y: frame.y(eEstimate),
-      shape: 'diamond',
-      color: palette.estimate,
+      ...markers.tippingEstimate,
       size: 6,
       label: `E-value ${formatEValue(eEstimate)}`,
       labelSide: 'left',
@@ -126,8 +129,7 @@ export function jointStrengthPlot(result: EValueResult, options: JointStrengthPl
       kind: 'point',
       x: frame.x(eInterval),
       y: frame.y(eInterval),
-      shape: 'circle',
-      color: palette.interval,
+      ...markers.tippingInterval,
       size: 5,
       label: `interval ${formatEValue(eInterval)}`,
       labelSide: 'right',
@@ -139,15 +141,16 @@ export function jointStrengthPlot(result: EValueResult, options: JointStrengthPl
       kind: 'point',
       x: frame.x(c.strengthExposure),
       y: frame.y(c.strengthOutcome),
-      shape: 'square',
-      color: palette.reference,
+      ...markers.benchmark,
       size: 5,
       label: c.name,
       labelSide: 'above',
     });
   }
-  marks.push(...placeLabels(points, inner));
-  if (confounders.length > 0) legend.push({ label: 'reference confounder', color: palette.reference, swatch: 'square' });
+  marks.push(...points);
+  if (points.some((p) => p.shape === markers.tippingEstimate.shape)) legend.push({ label: 'E-value of the estimate', color: markers.tippingEstimate.color, swatch: markers.tippingEstimate.shape });
+  if (points.some((p) => p.shape === markers.tippingInterval.shape)) legend.push({ label: 'E-value of the interval limit', color: markers.tippingInterval.color, swatch: markers.tippingInterval.shape });
+  if (confounders.length > 0) legend.push({ label: 'reference confounder', color: markers.benchmark.color, swatch: markers.benchmark.shape });
 
   return framedPlotSpec(frame, {
     id: 'joint-strength',
@@ -157,57 +160,6 @@ export function jointStrengthPlot(result: EValueResult, options: JointStrengthPl
     legend,
     table: dataTable(result, confounders, top),
   });
-}
-
-type Box = { left: number; right: number; top: number; bottom: number };
-type Side = NonNullable<PointMark['labelSide']>;
-
-/**
- * Chooses each point's label side so that labels overlap neither each other nor other points and stay inside
- * the plotting area, trying the preferred side first; when no side is free, the preferred one is kept.
- * Text is measured roughly (6.4 px a character at 11 px), as the renderer's legend does.
- */
-function placeLabels(points: readonly PointMark[], inner: PlotArea): PointMark[] {
-  const markers: Box[] = points.map((p) => {
-    const r = (p.size ?? 5) + 1;
-    return { left: p.x - r, right: p.x + r, top: p.y - r, bottom: p.y + r };
-  });
-  const placed: Box[] = [];
-  return points.map((point, i) => {
-    if (!point.label) return point;
-    const preferred = point.labelSide ?? 'right';
-    const sides: Side[] = [preferred, ...(['right', 'left', 'above', 'below'] as const).filter((s) => s !== preferred)];
-    const fits = (box: Box) =>
-      box.left >= inner.left &&
-      box.right <= inner.right &&
-      box.top >= inner.top &&
-      box.bottom <= inner.bottom &&
-      !placed.some((other) => overlaps(box, other)) &&
-      !markers.some((other, j) => j !== i && overlaps(box, other));
-    const side = sides.find((s) => fits(labelBox(point, s))) ?? preferred;
-    placed.push(labelBox(point, side));
-    return { ...point, labelSide: side };
-  });
-}
-
-/** Where the renderer puts a label on each side of its point (see svgString's pointLabel). */
-function labelBox(point: PointMark, side: Side): Box {
-  const width = (point.label ?? '').length * 6.4;
-  const gap = (point.size ?? 5) + 4;
-  switch (side) {
-    case 'right':
-      return { left: point.x + gap, right: point.x + gap + width, top: point.y - 7, bottom: point.y + 5 };
-    case 'left':
-      return { left: point.x - gap - width, right: point.x - gap, top: point.y - 7, bottom: point.y + 5 };
-    case 'above':
-      return { left: point.x - width / 2, right: point.x + width / 2, top: point.y - gap - 11, bottom: point.y - gap + 1 };
-    case 'below':
-      return { left: point.x - width / 2, right: point.x + width / 2, top: point.y + gap, bottom: point.y + gap + 12 };
-  }
-}
-
-function overlaps(a: Box, b: Box): boolean {
-  return a.left < b.right && b.left < a.right && a.top < b.bottom && b.top < a.bottom;
 }
 
 /** The top of both axes: room past the E-value and every reference point, on a round value. */

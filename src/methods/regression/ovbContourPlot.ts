@@ -9,7 +9,8 @@ import { exposureLabel, outcomeLabel, type StudyLabels } from '../../format/stud
 import { plainNumber } from './text';
 import { createFrame } from '../../plot/frame';
 import { framedPlotSpec } from '../../plot/framedPlotSpec';
-import { palette } from '../../plot/palette';
+import { boundaryColor, markers, palette } from '../../plot/palette';
+import { uniformPercentLabels } from '../../plot/tickLabels';
 import { polygonPath, polylinePath } from '../../plot/pathData';
 import type { DataTable, LegendItem, PlotMark, PlotSpec } from '../../plot/plotSpec';
 
@@ -66,8 +67,8 @@ export function ovbContourPlot(result: OvbResult, options: OvbContourOptions): P
     height,
     // A note about the boundary goes above the plotting area, where it cannot cover lines or labels.
     margin: { left: 64, right: 24, top: boundary.note ? 30 : 16, bottom: 56 },
-    x: { domain: [0, maxX], label: `Partial R² of the confounder with ${exposure}, R²(D~Z|X)`, tickFormat: percentTick },
-    y: { domain: [0, maxY], label: `Partial R² with ${outcome}, R²(Y~Z|D,X)`, tickFormat: percentTick },
+    x: { domain: [0, maxX], label: treatmentShareTitle(exposure), tickFormat: percentTick },
+    y: { domain: [0, maxY], label: outcomeShareTitle(outcome), tickFormat: percentTick },
   });
   const { inner } = frame;
   const reported = { estimate: result.estimate, se: result.se, df: result.df };
@@ -109,7 +110,7 @@ export function ovbContourPlot(result: OvbResult, options: OvbContourOptions): P
       marks.push({ kind: 'path', d: polylinePath(ring.map(([b, a]) => [frame.x(b), frame.y(a)] as const)), stroke: palette.contour, strokeWidth: 1, label: `${kindLabel(kind)} ${formatLevel(line.level, kind)}` });
     }
     if (line.labelAt) {
-      marks.push({ kind: 'text', x: frame.x(line.labelAt[0]), y: frame.y(line.labelAt[1]) - 3, text: formatContourLabel(line.level), anchor: 'middle', color: palette.contour, size: 10 });
+      marks.push({ kind: 'text', x: frame.x(line.labelAt[0]), y: frame.y(line.labelAt[1]) - 3, text: formatContourLabel(line.level), anchor: 'middle', color: palette.contour, size: 10, droppable: true });
     }
   }
   const tLabel = result.q === 1 ? 'adjusted t' : `adjusted t for the null value ${formatNumber(result.threshold, { significant: 3 })}`;
@@ -120,21 +121,20 @@ export function ovbContourPlot(result: OvbResult, options: OvbContourOptions): P
     marks.push({
       kind: 'path',
       d: polylinePath(curve.map(([b, a]) => [frame.x(b), frame.y(a)] as const)),
-      stroke: palette.interval,
-      strokeWidth: 2.5,
-      dash: '7 3',
+      stroke: boundaryColor,
+      strokeWidth: 3,
       label: boundary.label,
     });
   }
-  if (boundary.curves.length > 0) legend.push({ label: boundary.legend, color: palette.interval, swatch: 'line', dash: '7 3' });
+  if (boundary.curves.length > 0) legend.push({ label: boundary.legend, color: boundaryColor, swatch: 'line' });
   if (boundary.note) {
     marks.push({ kind: 'text', x: inner.right, y: inner.top - 8, text: boundary.note, anchor: 'end', color: palette.ink, size: 11 });
   }
 
   // Points: the unadjusted estimate, the robustness value, benchmarks, the chosen strength.
   const inDomain = (b: number, a: number) => b >= 0 && b <= maxX && a >= 0 && a <= maxY;
-  marks.push({ kind: 'point', x: frame.x(0), y: frame.y(0), shape: 'triangle', color: palette.ink, size: 6, label: `unadjusted ${formatLevel(unadjusted, kind)}`, labelSide: 'right' });
-  legend.push({ label: 'unadjusted', color: palette.ink, swatch: 'triangle' });
+  marks.push({ kind: 'point', x: frame.x(0), y: frame.y(0), ...markers.reported, size: 6, label: `as reported ${formatLevel(unadjusted, kind)}`, labelSide: 'right' });
+  legend.push({ label: 'as reported (no confounder)', color: markers.reported.color, swatch: markers.reported.shape });
   // The robustness value's point: on the diagonal, except for RV_{q,α} when f_q·f* ≥ 1, where the cheapest
   // confounder has R²dz = RV_{q,α} and R²yz = RV_{q,α}/(RV_{q,α} + f*²) (below the diagonal).
   const rvPoint = kind === 'estimate' ? result.rv : result.rvAlpha;
@@ -142,14 +142,15 @@ export function ovbContourPlot(result: OvbResult, options: OvbContourOptions): P
   const offDiagonal = kind === 't' && scaledPartialF(settingOf(result)) * fCritical >= 1;
   const rvY = offDiagonal ? rvPoint / (rvPoint + fCritical * fCritical) : rvPoint;
   if (result.direction === 'toward-zero' && rvPoint > 0 && inDomain(rvPoint, rvY)) {
-    marks.push({ kind: 'point', x: frame.x(rvPoint), y: frame.y(rvY), shape: 'diamond', color: palette.interval, size: 6, label: `${kind === 'estimate' ? 'RV' : 'RV at α'} ${formatPercent(rvPoint)}`, labelSide: 'left' });
+    const rvMarker = kind === 'estimate' ? markers.tippingEstimate : markers.tippingInterval;
+    marks.push({ kind: 'point', x: frame.x(rvPoint), y: frame.y(rvY), ...rvMarker, size: 6, label: `${kind === 'estimate' ? 'robustness value' : 'robustness value at α'} ${formatPercent(rvPoint)}`, labelSide: 'left' });
   }
   let benchmarkShown = false;
   const unshown: string[] = [];
   for (const row of result.benchmarks) {
     if (row.unavailable !== null) continue;
     if (!inDomain(row.r2dz, row.r2yz)) {
-      unshown.push(`${plainNumber(row.k)}× ${row.covariate}`);
+      unshown.push(benchmarkName(row.k, row.covariate));
       continue;
     }
     benchmarkShown = true;
@@ -157,20 +158,17 @@ export function ovbContourPlot(result: OvbResult, options: OvbContourOptions): P
       kind: 'point',
       x: frame.x(row.r2dz),
       y: frame.y(row.r2yz),
-      shape: 'square',
-      color: palette.reference,
+      ...markers.benchmark,
       size: 5,
-      label: `${plainNumber(row.k)}× ${row.covariate}: ${formatLevel(kind === 'estimate' ? row.correctedEstimate : value(row.r2dz, row.r2yz), kind)}`,
+      label: `${benchmarkName(row.k, row.covariate)}: ${formatLevel(kind === 'estimate' ? row.correctedEstimate : value(row.r2dz, row.r2yz), kind)}`,
       labelSide: 'right',
     });
   }
-  if (benchmarkShown) legend.push({ label: 'k × as strong as a covariate', color: palette.reference, swatch: 'square' });
+  if (benchmarkShown) legend.push({ label: 'a confounder as strong as an observed covariate (or k times)', color: markers.benchmark.color, swatch: markers.benchmark.shape });
   if (scenario && inDomain(scenario.r2dz, scenario.r2yz)) {
-    marks.push({ kind: 'point', x: frame.x(scenario.r2dz), y: frame.y(scenario.r2yz), shape: 'cross', color: palette.second, size: 6, label: `chosen: ${formatLevel(value(scenario.r2dz, scenario.r2yz), kind)}`, labelSide: 'above' });
-    legend.push({ label: 'chosen strength', color: palette.second, swatch: 'cross' });
+    marks.push({ kind: 'point', x: frame.x(scenario.r2dz), y: frame.y(scenario.r2yz), ...markers.chosen, size: 6, label: `chosen: ${formatLevel(value(scenario.r2dz, scenario.r2yz), kind)}`, labelSide: 'above' });
+    legend.push({ label: 'chosen strength', color: markers.chosen.color, swatch: markers.chosen.shape });
   }
-
-  placePointLabels(marks, inner);
 
   return framedPlotSpec(frame, {
     id: kind === 'estimate' ? 'ovb-estimate-contours' : 'ovb-t-contours',
@@ -180,85 +178,6 @@ export function ovbContourPlot(result: OvbResult, options: OvbContourOptions): P
     legend,
     table: dataTable(result, kind, value, unadjusted, boundary.curves, scenario ?? null),
   });
-}
-
-/** Where a label goes relative to its point: offset of the text anchor and the anchor itself. */
-interface LabelSpot {
-  readonly dx: number;
-  readonly dy: number;
-  readonly anchor: 'start' | 'middle' | 'end';
-}
-
-/**
- * Writes each labelled point's label as a text mark at the spot (of eight around the point) that hides the
- * least of the other labels and points and stays inside the plot, in left-to-right order; the point keeps its
- * label as its tooltip only. Text is about 6.2 px per character at 11 px, as the SVG renderer draws it.
- */
-function placePointLabels(marks: PlotMark[], inner: { left: number; right: number; top: number; bottom: number }): void {
-  type Box = [number, number, number, number];
-  const boxes: Box[] = [];
-  const pointBoxes: Box[] = [];
-  const points = marks
-    .map((m, i) => ({ m, i }))
-    .filter((e) => e.m.kind === 'point')
-    .sort((a, b) => (a.m as { x: number }).x - (b.m as { x: number }).x);
-  for (const { m } of points) {
-    if (m.kind !== 'point') continue;
-    const r = m.size ?? 5;
-    pointBoxes.push([m.x - r, m.y - r, m.x + r, m.y + r]);
-  }
-  const area = (a: Box, b: Box) => Math.max(0, Math.min(a[2], b[2]) - Math.max(a[0], b[0])) * Math.max(0, Math.min(a[3], b[3]) - Math.max(a[1], b[1]));
-  const labels: PlotMark[] = [];
-  for (const { m, i } of points) {
-    if (m.kind !== 'point' || !m.label) continue;
-    const r = m.size ?? 5;
-    const gap = r + 4;
-    const w = m.label.length * 6.2;
-    const spots: Record<string, LabelSpot> = {
-      right: { dx: gap, dy: 4, anchor: 'start' },
-      left: { dx: -gap, dy: 4, anchor: 'end' },
-      above: { dx: 0, dy: -gap, anchor: 'middle' },
-      below: { dx: 0, dy: gap + 9, anchor: 'middle' },
-      aboveRight: { dx: -r, dy: -gap, anchor: 'start' },
-      belowRight: { dx: -r, dy: gap + 9, anchor: 'start' },
-      aboveLeft: { dx: r, dy: -gap, anchor: 'end' },
-      belowLeft: { dx: r, dy: gap + 9, anchor: 'end' },
-    };
-    const boxOf = (spot: LabelSpot): Box => {
-      const x = m.x + spot.dx;
-      const y = m.y + spot.dy;
-      const x0 = spot.anchor === 'start' ? x : spot.anchor === 'end' ? x - w : x - w / 2;
-      return [x0, y - 11, x0 + w, y + 3];
-    };
-    const own: Box = [m.x - r, m.y - r, m.x + r, m.y + r];
-    // Cost: area hidden under other labels; far more for hiding a point; most for leaving the plot.
-    const cost = (box: Box) => {
-      let c = 0;
-      for (const b of boxes) c += area(b, box);
-      for (const b of pointBoxes) if (!(b[0] === own[0] && b[1] === own[1] && b[2] === own[2])) c += 60 * area(b, box);
-      const full = (box[2] - box[0]) * (box[3] - box[1]);
-      const within = area(box, [inner.left, inner.top - 2, inner.right + 16, inner.bottom + 2]);
-      return c + 100 * (full - within);
-    };
-    const preferred = m.labelSide ?? 'right';
-    const order = [preferred, ...Object.keys(spots).filter((k) => k !== preferred)];
-    let chosen = spots[preferred];
-    let best = cost(boxOf(chosen));
-    for (const key of order) {
-      if (best === 0) break;
-      const c = cost(boxOf(spots[key]));
-      if (c < best) {
-        chosen = spots[key];
-        best = c;
-      }
-    }
-    boxes.push(boxOf(chosen));
-    labels.push({ kind: 'text', x: m.x + chosen.dx, y: m.y + chosen.dy, text: m.label, anchor: chosen.anchor, color: palette.ink, size: 11 });
-    // The text mark draws the label; the point itself goes unlabelled.
-    const { label: _drawnAsText, ...point } = m;
-    marks[i] = point;
-  }
-  marks.push(...labels);
 }
 
 interface Boundary {
@@ -535,8 +454,26 @@ function formatContourLabel(v: number): string {
   return plainNumber(Number(v.toPrecision(6)));
 }
 
-function percentTick(v: number): string {
-  return formatPercent(v, v !== 0 && v < 0.1 ? 1 : 0);
+/** Percent ticks with as many decimals as the step needs, the same on every tick of the axis. */
+export function percentTick(v: number, values: readonly number[]): string {
+  const labels = uniformPercentLabels(values);
+  const i = values.indexOf(v);
+  return i >= 0 ? labels[i] : formatPercent(v);
+}
+
+/** The x-axis title of the regression figures, in plain words. */
+export function treatmentShareTitle(exposure: string): string {
+  return `Confounder's share of the unexplained variance of ${exposure} (partial R²)`;
+}
+
+/** The y-axis title of the contour figures, in plain words. */
+export function outcomeShareTitle(outcome: string): string {
+  return `Confounder's share of the unexplained variance of ${outcome} (partial R²)`;
+}
+
+/** "as strong as age" for k = 1, "2 times age" otherwise. */
+export function benchmarkName(k: number, covariate: string): string {
+  return k === 1 ? `as strong as ${covariate}` : `${plainNumber(k)} times ${covariate}`;
 }
 
 function describe(result: OvbResult, kind: OvbContourKind, exposure: string, outcome: string, unshown: readonly string[]): string {
@@ -556,11 +493,11 @@ function dataTable(
 ): DataTable {
   const rows: string[][] = [];
   const pct = (v: number) => formatPercent(v, 1);
-  rows.push(['unadjusted', pct(0), pct(0), formatLevel(unadjusted, kind)]);
+  rows.push(['as reported', pct(0), pct(0), formatLevel(unadjusted, kind)]);
   if (kind === 'estimate') rows.push(['robustness value RV', pct(result.rv), pct(result.rv), formatLevel(value(result.rv, result.rv), kind)]);
   else rows.push(['robustness value at α', pct(result.rvAlpha), pct(result.rvAlpha), formatLevel(value(result.rvAlpha, result.rvAlpha), kind)]);
   for (const row of result.benchmarks) {
-    const name = `${plainNumber(row.k)} × ${row.covariate}`;
+    const name = benchmarkName(row.k, row.covariate);
     if (row.unavailable !== null) rows.push([name, 'not available', 'not available', row.unavailable]);
     else rows.push([name, pct(row.r2dz), pct(row.r2yz), formatLevel(value(row.r2dz, row.r2yz), kind)]);
   }
@@ -572,7 +509,7 @@ function dataTable(
   }
   return {
     caption: kind === 'estimate' ? 'Adjusted estimate at marked confounder strengths and along the flip boundary' : 'Adjusted t at marked confounder strengths and along the flip boundary',
-    columns: ['point', 'R²(D~Z|X)', 'R²(Y~Z|D,X)', kind === 'estimate' ? 'adjusted estimate' : 'adjusted t'],
+    columns: ['point', 'share of treatment variance (partial R²)', 'share of outcome variance (partial R²)', kind === 'estimate' ? 'adjusted estimate' : 'adjusted t'],
     rows,
   };
 }

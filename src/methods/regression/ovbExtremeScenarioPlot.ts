@@ -6,7 +6,8 @@ import { exposureLabel, outcomeLabel, unitsSuffix, type StudyLabels } from '../.
 import { plainNumber } from './text';
 import { createFrame } from '../../plot/frame';
 import { framedPlotSpec } from '../../plot/framedPlotSpec';
-import { palette, seriesColors, seriesDashes } from '../../plot/palette';
+import { markers, palette, seriesColors, seriesDashes } from '../../plot/palette';
+import { percentTick, treatmentShareTitle } from './ovbContourPlot';
 import { polylinePath } from '../../plot/pathData';
 import type { LegendItem, PlotMark, PlotSpec } from '../../plot/plotSpec';
 
@@ -40,7 +41,8 @@ export function ovbExtremeScenarioPlot(result: OvbResult, options: OvbExtremeSce
   const firstK = result.k[0];
   const benchmarks = result.benchmarks.filter((b) => b.unavailable === null && b.k === firstK);
   const crossings = result.extremeScenarios.map((e) => e.r2dzToReach).filter((v) => Number.isFinite(v));
-  const wanted = [...crossings.map((v) => v * 1.3), ...benchmarks.map((b) => b.r2dz * 1.2), 0.1];
+  // Room for every crossing (with the curves running on past it) and every benchmark, not much more.
+  const wanted = [...crossings.map((v) => Math.min(0.95, v * 2.5)), ...benchmarks.map((b) => b.r2dz * 1.25), 0.02];
   const maxX = options.maxR2dz !== undefined && options.maxR2dz > 0 && options.maxR2dz < 1 ? options.maxR2dz : roundUp(Math.max(...wanted));
   const reported = { estimate: result.estimate, se: result.se, df: result.df };
   const curves = EXTREME_SCENARIO_R2YZ.map((r2yz) => {
@@ -64,7 +66,7 @@ export function ovbExtremeScenarioPlot(result: OvbResult, options: OvbExtremeSce
     width,
     height,
     margin: { left: 72, right: 24, top: 16, bottom: 56 },
-    x: { domain: [0, maxX], label: `Partial R² of the confounder with ${exposure}, R²(D~Z|X)`, tickFormat: (v) => formatPercent(v, v !== 0 && v < 0.1 ? 1 : 0) },
+    x: { domain: [0, maxX], label: treatmentShareTitle(exposure), tickFormat: percentTick },
     y: { domain: [lo - pad, hi + pad], label: `Adjusted estimate${unitsSuffix(options.study) ? ` (${unitsSuffix(options.study).trim()})` : ''}` },
   });
   const { inner } = frame;
@@ -81,18 +83,20 @@ export function ovbExtremeScenarioPlot(result: OvbResult, options: OvbExtremeSce
       dash: seriesDashes[i] || undefined,
       label: `Confounder explaining ${formatPercent(c.r2yz, 0)} of ${outcome}'s residual variance`,
     });
-    legend.push({ label: `R²(Y~Z|D,X) = ${formatPercent(c.r2yz, 0)}`, color: seriesColors[i], swatch: 'line', ...(seriesDashes[i] ? { dash: seriesDashes[i] } : {}) });
+    legend.push({ label: `it explains ${c.r2yz === 1 ? 'all' : formatPercent(c.r2yz, 0)} of ${outcome}'s unexplained variance`, color: seriesColors[i], swatch: 'line', ...(seriesDashes[i] ? { dash: seriesDashes[i] } : {}) });
   });
   result.extremeScenarios.forEach((e, i) => {
     if (!(Number.isFinite(e.r2dzToReach) && e.r2dzToReach <= maxX)) return;
-    marks.push({ kind: 'point', x: frame.x(e.r2dzToReach), y: frame.y(result.threshold), shape: 'circle', color: seriesColors[i], size: 5, label: formatPercent(e.r2dzToReach), labelSide: i % 2 === 0 ? 'above' : 'below' });
+    marks.push({ kind: 'point', x: frame.x(e.r2dzToReach), y: frame.y(result.threshold), shape: markers.tippingEstimate.shape, color: seriesColors[i], size: 5, label: formatPercent(e.r2dzToReach), labelSide: i % 2 === 0 ? 'above' : 'below' });
   });
   for (const b of benchmarks) {
     if (b.r2dz > maxX) continue;
     marks.push({ kind: 'rule', x1: frame.x(b.r2dz), x2: frame.x(b.r2dz), y1: inner.bottom, y2: inner.bottom - 10, stroke: palette.reference, strokeWidth: 2, label: `${b.covariate}: R²(D~Xj) bound ${formatPercent(b.r2dz)}` });
     marks.push({ kind: 'text', x: frame.x(b.r2dz), y: inner.bottom - 14, text: b.covariate, anchor: 'middle', color: palette.reference, size: 10 });
   }
-  if (benchmarks.some((b) => b.r2dz <= maxX)) legend.push({ label: `R²(D~Z|X) of a confounder ${plainNumber(firstK)}× as strong as a covariate`, color: palette.reference, swatch: 'line' });
+  if (benchmarks.some((b) => b.r2dz <= maxX)) {
+    legend.push({ label: `share of ${exposure}'s variance of a confounder ${firstK === 1 ? 'as strong as' : `${plainNumber(firstK)} times`} a covariate (tick at the bottom)`, color: palette.reference, swatch: 'line' });
+  }
   const rows: string[][] = result.extremeScenarios.map((e) => [formatPercent(e.r2yz, 0), 'crossing', Number.isFinite(e.r2dzToReach) ? formatPercent(e.r2dzToReach) : 'none', formatNumber(result.threshold, { significant: 3 })]);
   for (const c of curves) {
     for (let i = 0; i <= CURVE_POINTS; i += CURVE_POINTS / 10) rows.push([formatPercent(c.r2yz, 0), 'curve', formatPercent(c.points[i][0]), formatNumber(c.points[i][1], { significant: 4 })]);
@@ -106,7 +110,7 @@ export function ovbExtremeScenarioPlot(result: OvbResult, options: OvbExtremeSce
       .join(' ')}`,
     marks,
     legend,
-    table: { caption: 'Adjusted estimate under extreme scenarios', columns: ['R²(Y~Z|D,X)', 'row', 'R²(D~Z|X)', 'adjusted estimate'], rows },
+    table: { caption: 'Adjusted estimate under extreme scenarios', columns: ['share of outcome variance (partial R²)', 'row', 'share of treatment variance (partial R²)', 'adjusted estimate'], rows },
   });
 }
 

@@ -5,6 +5,9 @@ import { jointStrengthPlot } from '../../../src/methods/evalue/jointStrengthPlot
 import type { PathMark, PointMark } from '../../../src/plot/plotSpec';
 import { renderSvgString } from '../../../src/plot/svgString';
 import { expectClose } from '../../support/expectClose';
+import { markers } from '../../../src/plot/palette';
+import { figureTextBoxes, layoutFigure, overlappingTextPairs } from '../../../src/plot/figureLayout';
+import { PRINT_SIZES, screenLayout } from '../../../src/plot/printSize';
 
 // VanderWeele & Ding 2017 worked example: RR 3.9 (1.8 to 8.7) → E-values 7.26 and 3.00
 const published = analyseEValue({ measure: 'rr', estimate: 3.9, lower: 1.8, upper: 8.7 });
@@ -41,13 +44,13 @@ describe('jointStrengthPlot', () => {
     expectClose(invertAxis(spec.xAxis, e.x), 7.263034344160047, { rel: 1e-9 });
     expectClose(invertAxis(spec.yAxis, e.y), 7.263034344160047, { rel: 1e-9 });
     expect(points.some((p) => p.label === 'interval 3.00')).toBe(true);
-    expect(points.filter((p) => p.shape === 'square').map((p) => p.label)).toEqual(['age', 'income']);
+    expect(points.filter((p) => p.shape === markers.benchmark.shape).map((p) => p.label)).toEqual(['age', 'income']);
   });
 
   it('shades the regions that would explain away the estimate and the interval', () => {
     const shaded = spec.marks.filter((m): m is PathMark => m.kind === 'path' && m.fill !== undefined && m.fill !== 'none');
     expect(shaded).toHaveLength(2);
-    expect(spec.legend.map((l) => l.label)).toEqual(['would reach the interval limit', 'would explain away the estimate', 'estimate', 'interval limit', 'reference confounder']);
+    expect(spec.legend.map((l) => l.label)).toEqual(['would reach the interval limit', 'would explain away the estimate', 'estimate', 'interval limit', 'E-value of the estimate', 'E-value of the interval limit', 'reference confounder']);
   });
 
   it('extends the axes to every reference confounder', () => {
@@ -82,7 +85,7 @@ describe('jointStrengthPlot', () => {
 });
 
 describe('jointStrengthPlot: labels', () => {
-  it('moves a label that would cover another one', () => {
+  it('draws no label over another one, at screen and print sizes', () => {
     // The demo's protective estimate: the interval E-value (1.63) sits next to a reference point at (1.8, 1.5).
     const result = analyseEValue({ measure: 'rr', estimate: 0.72, lower: 0.61, upper: 0.85 });
     const confounders = [
@@ -90,21 +93,10 @@ describe('jointStrengthPlot: labels', () => {
       assessReferenceConfounder(result, { name: 'smoking', rrExposure: 1.3, rrOutcome: 1.6 }),
     ];
     const spec = jointStrengthPlot(result, { confounders });
-    const points = spec.marks.filter((m): m is PointMark => m.kind === 'point');
-    const boxes = points.map((p) => {
-      const width = (p.label ?? '').length * 6.4;
-      const gap = (p.size ?? 5) + 4;
-      const side = p.labelSide ?? 'right';
-      const left = side === 'right' ? p.x + gap : side === 'left' ? p.x - gap - width : p.x - width / 2;
-      const top = side === 'above' ? p.y - gap - 11 : side === 'below' ? p.y + gap : p.y - 7;
-      return { left, right: left + width, top, bottom: top + 12 };
-    });
-    for (let i = 0; i < boxes.length; i++) {
-      for (let j = i + 1; j < boxes.length; j++) {
-        const [a, b] = [boxes[i], boxes[j]];
-        const overlap = a.left < b.right && b.left < a.right && a.top < b.bottom && b.top < a.bottom;
-        expect(overlap, `${points[i].label} and ${points[j].label}`).toBe(false);
-      }
+    for (const options of [screenLayout(640), screenLayout(340), PRINT_SIZES.column.layout]) {
+      const layout = layoutFigure(spec, options);
+      expect(overlappingTextPairs(figureTextBoxes(layout))).toEqual([]);
+      expect(layout.texts.some((t) => t.text === 'leisure-time exercise' || layout.keyEntries.some((k) => k.endsWith('leisure-time exercise')))).toBe(true);
     }
   });
 });

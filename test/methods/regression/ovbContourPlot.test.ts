@@ -8,6 +8,7 @@ import { ovbContourPlot } from '../../../src/methods/regression/ovbContourPlot';
 import { ovbExtremeScenarioPlot } from '../../../src/methods/regression/ovbExtremeScenarioPlot';
 import { renderSvgString } from '../../../src/plot/svgString';
 import { createFrame } from '../../../src/plot/frame';
+import { boundaryColor, markers } from '../../../src/plot/palette';
 import { readReferenceJson } from '../../support/reference';
 import { expectClose } from '../../support/expectClose';
 
@@ -32,7 +33,7 @@ function toData(spec: ReturnType<typeof ovbContourPlot>, px: number, py: number)
 }
 
 function boundaryPoints(spec: ReturnType<typeof ovbContourPlot>): [number, number][] {
-  const path = spec.marks.find((m) => m.kind === 'path' && m.stroke && m.dash === '7 3');
+  const path = spec.marks.find((m) => m.kind === 'path' && m.stroke === boundaryColor);
   expect(path).toBeDefined();
   const d = (path as { d: string }).d;
   return [...d.matchAll(/([\d.]+),([\d.]+)/g)].map((m) => toData(spec, Number(m[1]), Number(m[2])));
@@ -53,11 +54,11 @@ describe('omitted-variable-bias plots', () => {
       const adj = adjustForConfounder(swissInput as any, { r2dz: b, r2yz: a });
       expect(Math.abs(adj.estimate)).toBeLessThan(0.02 * Math.abs(swiss.estimate));
     }
-    const labels = spec.marks.filter((m) => m.kind === 'text').map((m) => (m as { text: string }).text);
-    expect(labels.some((l) => l.startsWith('1× Agriculture'))).toBe(true);
-    expect(labels.some((l) => l.startsWith('unadjusted -0.871'))).toBe(true);
-    expect(labels.some((l) => l.startsWith('RV 51.7%'))).toBe(true);
-    expect(spec.table.rows.some((r) => r[0] === '2 × Examination' && r[1] === 'not available')).toBe(true);
+    const labels = spec.marks.flatMap((m) => (m.kind === 'text' ? [m.text] : m.kind === 'point' && m.label ? [m.label] : []));
+    expect(labels.some((l) => l.startsWith('as strong as Agriculture'))).toBe(true);
+    expect(labels.some((l) => l.startsWith('as reported -0.871'))).toBe(true);
+    expect(labels.some((l) => l.startsWith('robustness value 51.7%'))).toBe(true);
+    expect(spec.table.rows.some((r) => r[0] === '2 times Examination' && r[1] === 'not available')).toBe(true);
     // the estimate's level lines are exact too: every vertex of the −0.4 line has an adjusted estimate of −0.4
     const level = spec.marks.find((m) => m.kind === 'path' && (m as { label?: string }).label === 'Adjusted estimate -0.400') as { d: string };
     const vertices = [...level.d.matchAll(/([\d.]+),([\d.]+)/g)].map((m) => toData(spec, Number(m[1]), Number(m[2])));
@@ -116,8 +117,8 @@ describe('omitted-variable-bias plots', () => {
     for (const t of [4.18, 30]) {
       const r = analyseOvb({ estimate: t, se: 1, df: 100 });
       const spec = ovbContourPlot(r, { kind: 't', maxR2dz: 0.95, maxR2yz: 0.95 });
-      expect(spec.marks.some((m) => m.kind === 'text' && m.text.startsWith('RV at α'))).toBe(true);
-      const point = spec.marks.find((m) => m.kind === 'point' && m.shape === 'diamond') as { x: number; y: number };
+      expect(spec.marks.some((m) => m.kind === 'point' && (m.label ?? '').startsWith('robustness value at α'))).toBe(true);
+      const point = spec.marks.find((m) => m.kind === 'point' && m.shape === markers.tippingInterval.shape) as { x: number; y: number };
       const [b, a] = toData(spec, point.x, point.y);
       expectClose(b, r.rvAlpha, { rel: 1e-9 });
       const adj = adjustForConfounder({ estimate: t, se: 1, df: 100 }, { r2dz: b, r2yz: a });
