@@ -15,9 +15,17 @@ export function processIo(): CliIo {
   return {
     out: (text) => void process.stdout.write(text),
     err: (text) => void process.stderr.write(text),
-    readText: (path) => readFile(path, 'utf8'),
-    openStream: (path) => createReadStream(path),
+    // "-" is standard input.
+    readText: (path) => (path === '-' ? readAll(process.stdin) : readFile(path, 'utf8')),
+    openStream: (path) => (path === '-' ? process.stdin : createReadStream(path)),
   };
+}
+
+/** Everything a stream gives, as UTF-8 text. */
+async function readAll(stream: Readable): Promise<string> {
+  const chunks: Buffer[] = [];
+  for await (const chunk of stream) chunks.push(typeof chunk === 'string' ? Buffer.from(chunk, 'utf8') : (chunk as Buffer));
+  return Buffer.concat(chunks).toString('utf8');
 }
 
 /** Collects output in memory: for tests. */

@@ -364,7 +364,7 @@ export function analysePairs(input: PairsInput): PairsResult {
     n = nonZero + (d.concordant ?? 0);
     zeros = d.concordant ?? 0;
   }
-  if (zeros > 0 && !differences) warnings.push(`${zeros} concordant ${zeros === 1 ? 'pair' : 'pairs'} (both or neither had the event) carry no information and ${zeros === 1 ? 'was' : 'were'} left out of the test.`);
+  if (zeros > 0 && !differences && !summary) warnings.push(`${zeros} concordant ${zeros === 1 ? 'pair' : 'pairs'} (both or neither had the event) carry no information and ${zeros === 1 ? 'was' : 'were'} left out of the test.`);
   else if (zeros > 0 && zeroRule === 'pratt') warnings.push(`${zeros} ${zeros === 1 ? 'pair has' : 'pairs have'} a difference of zero; by Pratt's rule ${zeros === 1 ? 'it was' : 'they were'} ranked with the others and scored 0.`);
   else if (zeros > 0) warnings.push(`${zeros} ${zeros === 1 ? 'pair has' : 'pairs have'} a difference of zero and ${zeros === 1 ? 'was' : 'were'} left out of the test.`);
   if (ranks?.tiedMagnitudes) warnings.push('Some differences have equal sizes; they share average ranks (handled exactly).');
