@@ -8,7 +8,7 @@ import { emptyEValueForm, evaluateEValueForm, normaliseEValueForm, type EValueFo
 import { eValueStatement } from './statement';
 import { readEValueSummary, summariseEValue, type EValueSummary } from './summary';
 import { E_VALUE_CAUTION } from './text';
-import { twoByTwoSql } from './twoByTwoSql';
+import { eValueSummaryQuery } from './summaryQuery';
 import { queryReport, readSummaryArgument, SUMMARY_ARGUMENT_RULE } from '../summaryArgument';
 
 const OPTIONS = {
@@ -100,7 +100,6 @@ const FIELD_OPTIONS: Record<string, string> = {
   file: '--file',
   fileName: '--file',
   exposure: '--exposure',
-  sqlTable: '--sql',
   exposureColumn: '--exposure',
   outcome: '--outcome',
   outcomeColumn: '--outcome',
@@ -196,9 +195,9 @@ export function eValueOptionOf(field: string): string {
 /** Reads the form (and the file it names) with the request reader, and reports; bad input is thrown by field. */
 async function runEValueCommand(form: EValueFormInputs, values: OptionValues, context: CommandContext) {
   if (values.sql !== undefined) {
-    const spec = { table: form.summaryTable ?? '', exposureColumn: form.exposureColumn.trim(), outcomeColumn: form.outcomeColumn.trim(), exposedValues: form.exposedValues, outcomeValues: form.outcomeValues };
-    const query = twoByTwoSql(spec);
-    return queryReport(query, { table: spec.table, exposure: spec.exposureColumn, outcome: spec.outcomeColumn, exposedValues: [...form.exposedValues], outcomeValues: [...form.outcomeValues] });
+    const { sql, problems } = eValueSummaryQuery(form);
+    if (problems.length > 0) throw new InputError(problems);
+    return queryReport(sql, { table: form.summaryTable, exposure: form.exposureColumn.trim(), outcome: form.outcomeColumn.trim(), exposedValues: [...form.exposedValues], outcomeValues: [...form.outcomeValues] });
   }
   if (form.source === 'summary') form = { ...form, summaryResult: await readSummaryArgument(form.summaryResult ?? '', context, 'summaryResult') };
   let table: CsvTable | null = null;
