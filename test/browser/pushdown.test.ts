@@ -75,3 +75,25 @@ describe('<lurk-evalue> from summary statistics', () => {
     expect(text('#summaryResult-error')).toMatch(/column b must be a whole number of 0 or more/);
   });
 });
+
+describe('<lurk-ovb> summary statistics with a categorical covariate', () => {
+  it('shows the levels query first, then, with the pasted levels, the summary query with indicators', async () => {
+    await import('../../components/lurk-ovb');
+    ({ element } = await mountElement('lurk-ovb', { viewport: { width: 1280, height: 1800 } }));
+    await page.getByLabelText('Summary statistics from a database').click();
+    await userEvent.fill(page.getByLabelText('Table or view'), 'survey.swiss');
+    await userEvent.fill(page.getByLabelText('Outcome column'), 'Fertility');
+    await userEvent.fill(page.getByLabelText('Treatment column'), 'Education');
+    await userEvent.fill(page.getByLabelText('Covariate columns'), 'Agriculture, region');
+    await userEvent.fill(page.getByLabelText('Categorical covariates'), 'region');
+    await until(() => /SELECT DISTINCT/.test(text('#sql')));
+    // Fictional levels, as the levels query returns them (out of order: Lurk sorts them itself).
+    await userEvent.fill(page.getByLabelText('Rows of the levels query'), 'lurk_query,column_name,level\nlurk-regression-levels,region,south\nlurk-regression-levels,region,mid\nlurk-regression-levels,region,north');
+    await until(() => /lurk_levels/.test(text('#sql')));
+    expect(text('#sql')).toMatch(/CAST\("region" AS VARCHAR\) = 'north'/);
+    expect(text('#sql')).toMatch(/CAST\("region" AS VARCHAR\) = 'south'/);
+    expect(text('#sql')).not.toMatch(/= 'mid'/); // the reference level: first in character order
+    const check = await axe.run(element);
+    expect(check.violations.map((v) => v.id)).toEqual([]);
+  });
+});
