@@ -372,9 +372,11 @@ function summaryLevelsOf(form: OvbFormInputs, row: Record<string, unknown>, prob
 /** The query's result row, pasted: a JSON object, or CSV text with a header row and one data row. */
 export function parseSummaryRow(text: string): Record<string, unknown> {
   const trimmed = text.replace(/^\uFEFF/, '').trim();
-  if (trimmed.startsWith('{')) {
+  if (trimmed.startsWith('{') || trimmed.startsWith('[')) {
     try {
-      const parsed = JSON.parse(trimmed) as unknown;
+      let parsed = JSON.parse(trimmed) as unknown;
+      // A driver's or a database shell's JSON output: an array holding the one row.
+      if (Array.isArray(parsed) && parsed.length === 1) parsed = parsed[0];
       if (parsed && typeof parsed === 'object' && !Array.isArray(parsed)) return parsed as Record<string, unknown>;
     } catch {
       // reported below
