@@ -316,11 +316,24 @@ function summaryRegression(form: OvbFormInputs, problems: InputProblem[]): OvbRe
   const levels = summaryLevelsOf(form, row, problems);
   if (!levels) return null;
   const layout = summaryDesign(variables.slice(0, -2), form.treatment.trim(), form.outcome.trim(), levels);
-  const design = collect(
-    problems,
-    () => designFromCrossProducts(crossProductsFromSqlRow(row, layout.variables)),
-    (p) => (p.field === 'summary' || /^[a-z]_?\d|^n$/.test(p.field) ? { ...p, field: 'summaryResult', message: p.field === 'summary' ? p.message : `column ${p.field} ${p.message}` } : p),
-  );
+  const names = layout.variables.map((v) => ('level' in v ? `${v.column}=${v.level}` : v.column));
+  const input = collect(problems, () => crossProductsFromSqlRow(row, layout.variables), (p) => resultColumnProblem(p));
+  if (!input) return null;
+  if (!(Number.isInteger(input.rowCount) && input.rowCount >= 2)) {
+    problems.push(inputProblem('summaryResult', 'not-a-count', `column n must be a whole number of rows, at least 2; got ${input.rowCount}.`, input.rowCount));
+    return null;
+  }
+  if (input.kind === 'covariance') {
+    input.covariance.forEach((r, i) => {
+      if (!(r[i] > 0)) {
+        problems.push(
+          inputProblem('summaryResult', r[i] === 0 ? 'no-variation' : 'negative-variance', `column c_${i + 1}_${i + 1}: "${names[i]}" has ${r[i] === 0 ? 'no variation (a variance of 0)' : 'a negative variance'} in the rows used, so its effect cannot be estimated.`, r[i]),
+        );
+      }
+    });
+    if (problems.length > 0) return null;
+  }
+  const design = collect(problems, () => designFromCrossProducts(input), (p) => resultColumnProblem(p));
   if (!design) return null;
   return collect(
     problems,
@@ -334,6 +347,25 @@ function summaryRegression(form: OvbFormInputs, problems: InputProblem[]): OvbRe
     }),
     (p) => (p.field === 'treatment' || p.field === 'outcome' ? p : { ...p, field: /^benchmarks/.test(p.field) ? 'benchmarks' : 'summaryColumns' }),
   );
+}
+
+/**
+ * A problem of the pasted result (a result column, or the design made from it) as a problem of the paste box,
+ * its message naming the result column: `m_2`, `rowCount` → n, `covariance[0][1]` → c_1_2, `means[1]` → m_2.
+ */
+function resultColumnProblem(p: InputProblem): InputProblem {
+  const column = (text: string) => ({ ...p, field: 'summaryResult', message: `column ${text} ${p.message}` });
+  if (/^(n|[mdsc]_\d+(_\d+)?)$/.test(p.field)) return column(p.field);
+  if (p.field === 'rowCount') return column('n');
+  const cell = /^(?:covariance|crossProducts)\[(\d+)\]\[(\d+)\]$/.exec(p.field);
+  if (cell) {
+    const [i, j] = [Number(cell[1]), Number(cell[2])].sort((x, y) => x - y);
+    return column(`c_${i + 1}_${j + 1}`);
+  }
+  const mean = /^(?:means|sums)\[(\d+)\]$/.exec(p.field);
+  if (mean) return column(`m_${Number(mean[1]) + 1}`);
+  if (p.field === 'summary' || p.field === 'covariance' || p.field === 'crossProducts') return { ...p, field: 'summaryResult', message: p.field === 'summary' ? p.message : `the sums of products ${p.message}` };
+  return p;
 }
 
 /**
