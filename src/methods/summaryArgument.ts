@@ -7,8 +7,9 @@ import type { CommandContext, CommandReport } from './methodModule';
  * anything else is the path of a file that holds it, and `-` reads standard input.
  */
 export const SUMMARY_ARGUMENT_RULE =
-  'ROW is the result itself when it starts with { or [ or holds a line break (JSON object, or CSV header line\n' +
-  'and row); otherwise it names a file holding the result ("-": standard input).';
+  'ROW is the result itself when it starts with { or [ or holds a line break\n' +
+  '(a JSON object, or CSV: the header line and the row); otherwise it names\n' +
+  'a file that holds the result ("-": standard input).';
 
 /** Whether the value of --summary is the result itself (see {@link SUMMARY_ARGUMENT_RULE}). */
 export function isInlineResult(value: string): boolean {

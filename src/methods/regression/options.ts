@@ -44,7 +44,8 @@ From raw data (a CSV; read in chunks, so the file may be larger than memory):
 From summary statistics computed in your own database:
   lurk ovb --sql TABLE --outcome COL --treatment COL --covariates a,b,...   prints the query to run
   lurk ovb --summary ROW --outcome COL --treatment COL --covariates a,b,...
-      ROW: the query's one result row. ${SUMMARY_ARGUMENT_RULE.replace(/\n/g, '\n      ')}
+      ROW: the query's one result row.
+      ${SUMMARY_ARGUMENT_RULE.replace(/\n/g, '\n      ')}
   Categorical covariates (--categorical c,...): --sql first prints a query for their levels; run it and give
   its rows to --levels (same rule as ROW; or a JSON object {"c": ["level", ...]}) to print the summary query.
   Its result carries the levels, so --summary needs no --levels. The first level in character order is the
