@@ -125,7 +125,8 @@ export function summaryDesign(
  * `column=level+level+… column=…`, each name percent-encoded (no comma, quote or space inside).
  */
 export function encodeCategoryLevels(levels: CategoryLevels): string {
-  return [...levels].map(([column, list]) => `${encodeURIComponent(column)}=${list.map(encodeURIComponent).join('+')}`).join(' ');
+  const encode = (text: string) => encodeURIComponent(text).replace(/'/g, '%27');
+  return [...levels].map(([column, list]) => `${encode(column)}=${list.map(encode).join('+')}`).join(' ');
 }
 
 /** The levels read back from `lurk_levels` ({@link encodeCategoryLevels}); null when the text is not of that form. */
