@@ -212,4 +212,12 @@ describe('lurk pairs --sql / --summary: the pairs stay in the database', () => {
     expect(stderr).toMatch(/--summary: cannot read "none.json"/);
     expect((await lurk(['pairs', '--sql', 'x', '--file', 'f.csv', '--diff', 'd'])).stderr).toMatch(/--sql: cannot be combined with --file/);
   });
+  test('the built command reads the result from standard input with --summary -', async () => {
+    const cli = await buildCliForTest();
+    const row = { lurk_query: 'lurk-pairs-signed-ranks', rows_read: 5, pairs: 5, zeros: 1, non_zero: 4, positive: 3, rank_sum_positive: 8, rank_sum: 10, rank_sum_squares: 30 };
+    const run = spawnSync(process.execPath, [cli.lurk, 'pairs', '--summary', '-', '--json'], { input: Object.keys(row).join(',') + '\n' + Object.values(row).join(',') + '\n', encoding: 'utf8' });
+    cli.remove();
+    expect(run.stderr).toBe('');
+    expect(JSON.parse(run.stdout).statistic).toBe(8);
+  }, 120_000);
 });
