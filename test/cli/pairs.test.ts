@@ -211,6 +211,7 @@ describe('lurk pairs --sql / --summary: the pairs stay in the database', () => {
     expect(code).toBe(2);
     expect(stderr).toMatch(/--summary: cannot read "none.json"/);
     expect((await lurk(['pairs', '--sql', 'x', '--file', 'f.csv', '--diff', 'd'])).stderr).toMatch(/--sql: cannot be combined with --file/);
+    expect((await lurk(['pairs', '--summary', 'r.json', '--diff', 'd'])).stderr).toMatch(/--diff: goes with --file or --sql/);
   });
   test('the built command reads the result from standard input with --summary -', async () => {
     const cli = await buildCliForTest();

@@ -86,6 +86,10 @@ export function pairsFormFromOptions(values: OptionValues): PairsFormInputs {
       throw new InputError([inputProblem(`--${summarySources[0]}`, 'mixed-sources', `cannot be combined with ${others.join(' and ')}: give one source of the pairs`)]);
     }
   }
+  if (given('summary')) {
+    const columns = ['diff', 'treated', 'control', 'outcome-type'].filter(given).map((o) => `--${o}`);
+    if (columns.length > 0) throw new InputError([inputProblem(columns[0], 'other-source', 'goes with --file or --sql; the result given to --summary already holds what the query read')]);
+  }
   if (given('discordant')) {
     const others = ['file', 'diff', 'treated', 'control', 'outcome-type'].filter(given).map((o) => `--${o}`);
     if (others.length > 0) {
