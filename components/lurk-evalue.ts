@@ -16,6 +16,7 @@ import type { EValueView } from './evalue/view';
 import type { PlotPointerDetail } from './lurk-plot';
 import { baseStyles } from './styles/base';
 import { calculatorLayoutStyles } from './styles/calculator';
+import { queryBoxStyles } from './queryBox';
 import { eValueStyles } from './styles/evalue';
 
 /** Detail of `lurk-result`: the new result, or null with the problems that prevent one. */
@@ -51,7 +52,7 @@ export interface EValueResultDetail {
  */
 @customElement('lurk-evalue')
 export class LurkEValue extends CalculatorElement<EValueFormInputs, EValueFormOutcome> {
-  static override styles = [baseStyles, calculatorLayoutStyles, eValueStyles];
+  static override styles = [baseStyles, calculatorLayoutStyles, eValueStyles, queryBoxStyles];
 
   protected readonly method = evalueMethod;
   protected outcome: EValueFormOutcome;

@@ -14,6 +14,7 @@ import { fileFields, reportedFields, settingFields, summaryFields, type OvbFormV
 import { results, type OvbResultsView } from './regression/resultTemplates';
 import { baseStyles } from './styles/base';
 import { calculatorLayoutStyles } from './styles/calculator';
+import { queryBoxStyles } from './queryBox';
 import { ovbStyles } from './styles/ovb';
 import './lurk-plot';
 import { sourceChoice } from './sourceChoice';
@@ -57,7 +58,7 @@ const SOURCES: ReadonlyArray<{ id: OvbFormInputs['source']; label: string }> = [
  */
 @customElement('lurk-ovb')
 export class LurkOvb extends CalculatorElement<OvbFormInputs, OvbFormOutcome> {
-  static override styles = [baseStyles, calculatorLayoutStyles, ovbStyles];
+  static override styles = [baseStyles, calculatorLayoutStyles, ovbStyles, queryBoxStyles];
 
   protected readonly method = regressionMethod;
   protected outcome: OvbFormOutcome = evaluateOvbForm(regressionMethod.form.empty(), null);

@@ -15,6 +15,7 @@ import { pairsFormTemplate } from './pairs/pairsFormView';
 import { pairsResultsTemplate, type PairsPlotSpecs } from './pairs/pairsResultsView';
 import { baseStyles } from './styles/base';
 import { calculatorLayoutStyles } from './styles/calculator';
+import { queryBoxStyles } from './queryBox';
 import { pairsStyles } from './styles/pairs';
 
 /** Detail of `lurk-result`: the new result, or null with the problems that prevent one. */
@@ -52,7 +53,7 @@ const NO_PLOTS: PairsPlotSpecs = { pValue: null, estimate: null, amplification: 
  */
 @customElement('lurk-pairs')
 export class LurkPairs extends CalculatorElement<PairsFormInputs, PairsOutcome> {
-  static override styles = [baseStyles, calculatorLayoutStyles, pairsStyles];
+  static override styles = [baseStyles, calculatorLayoutStyles, pairsStyles, queryBoxStyles];
 
   protected readonly method = pairsMethod;
   @state() protected outcome: PairsOutcome = NO_OUTCOME;

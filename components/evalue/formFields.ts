@@ -5,11 +5,13 @@ import type { EValueSource } from '../../src/methods/evalue/request';
 import { guessYesValues } from '../../src/methods/evalue/twoByTwoFromCsv';
 import { sourceChoice } from '../sourceChoice';
 import type { EValueView } from './view';
+import { eValueSummaryFields } from './summaryFields';
 
 const SOURCES: ReadonlyArray<{ id: EValueSource; label: string }> = [
   { id: 'reported', label: 'A reported estimate' },
   { id: 'counts', label: 'A 2×2 table of counts' },
   { id: 'file', label: 'A CSV file, one row per person' },
+  { id: 'summary', label: 'Summary statistics from your database' },
 ];
 
 const MEASURE_CHOICES: ReadonlyArray<{ id: EffectMeasure; label: string }> = [
@@ -32,7 +34,8 @@ export function eValueForm(v: EValueView): TemplateResult {
   const source = v.form.source;
   return html`<form @submit=${(e: Event) => e.preventDefault()} novalidate aria-label="E-value inputs">
     ${sourceChoice('Start from', SOURCES, source, (s) => v.edit({ source: s }))}
-    ${source === 'reported' ? reportedFields(v) : source === 'counts' ? countFields(v) : fileFields(v)} ${sharedFields(v)} ${confounderFields(v)}
+    ${source === 'reported' ? reportedFields(v) : source === 'counts' ? countFields(v) : source === 'summary' ? eValueSummaryFields(v) : fileFields(v)}
+    ${sharedFields(v)} ${confounderFields(v)}
   </form>`;
 }
 
@@ -193,7 +196,8 @@ function valueChoices(v: EValueView, key: 'exposedValues' | 'outcomeValues', leg
   </fieldset>`;
 }
 
-function tableMeasureField(v: EValueView): TemplateResult {
+/** The choice of a risk or odds ratio for a 2×2 table (counts, a file, or a database's counts). */
+export function tableMeasureField(v: EValueView): TemplateResult {
   const f = v.form;
   return html`
     <div class="field">

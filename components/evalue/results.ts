@@ -11,7 +11,9 @@ export function eValueResults(v: EValueView): TemplateResult {
     return html`<p class="waiting" role="status">
       ${shown.length > 0
         ? `Fix the ${shown.length === 1 ? 'field' : `${shown.length} fields`} marked in the form to see the E-values.`
-        : v.form.source === 'file'
+        : v.form.source === 'summary'
+          ? 'Paste the result of the counting query to see the E-values.'
+          : v.form.source === 'file'
           ? 'Choose a CSV file and its two columns to see the E-values.'
           : 'Enter an estimate to see its E-values.'}
     </p>`;

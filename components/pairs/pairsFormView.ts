@@ -2,6 +2,7 @@ import { html, nothing, type TemplateResult } from 'lit';
 import type { InputProblem } from '../../src/core/inputProblem';
 import type { PairsFormInputs, PairsSource } from '../../src/methods/pairs/request';
 import { sourceChoice } from '../sourceChoice';
+import { pairsSummaryFields } from './pairsSummaryFields';
 
 /** What the matched-pairs form needs from its element: the form, the file's columns, problems and the edit hooks. */
 export interface PairsFormView {
@@ -21,6 +22,7 @@ const SOURCES: ReadonlyArray<{ id: PairsSource; label: string }> = [
   { id: 'file', label: 'A CSV file of pairs' },
   { id: 'pasted', label: 'Numbers pasted in' },
   { id: 'discordant', label: 'Discordant counts (binary outcome)' },
+  { id: 'summary', label: 'Summary statistics from your database' },
 ];
 
 /** The matched-pairs form: the source of the pairs, its fields, and the analysis settings. */
@@ -28,7 +30,8 @@ export function pairsFormTemplate(v: PairsFormView): TemplateResult {
   const source = v.form.source;
   return html`<form @submit=${(e: Event) => e.preventDefault()} novalidate aria-label="Matched-pairs inputs">
     ${sourceChoice('The pairs', SOURCES, source, (s) => v.edit({ source: s }))}
-    ${source === 'file' ? fileFields(v) : source === 'pasted' ? pastedFields(v) : discordantFields(v)} ${analysisFields(v)}
+    ${source === 'file' ? fileFields(v) : source === 'pasted' ? pastedFields(v) : source === 'summary' ? pairsSummaryFields(v) : discordantFields(v)}
+    ${analysisFields(v)}
   </form>`;
 }
 

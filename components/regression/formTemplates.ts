@@ -1,6 +1,27 @@
 import { html, nothing, type TemplateResult } from 'lit';
 import type { InputProblem } from '../../src/core/inputProblem';
 import { ovbSummarySql, type OvbFormInputs } from '../../src/methods/regression/request';
+import { queryBox } from '../queryBox';
+
+const categoricalOf = (text: string) => text.split(',').some((s) => s.trim() !== '');
+
+/** The pasted rows of the levels query (the summary query needs the levels of the categorical covariates). */
+function levelsBox(v: OvbFormView): TemplateResult {
+  const problem = v.problemFor('summaryLevels');
+  return html`<div class="field">
+    <label for="summaryLevels">Rows of the levels query</label>
+    <textarea
+      id="summaryLevels"
+      spellcheck="false"
+      aria-describedby="summaryLevels-hint summaryLevels-error"
+      aria-invalid=${problem ? 'true' : 'false'}
+      .value=${v.form.summaryLevels ?? ''}
+      @input=${(e: Event) => v.edit({ summaryLevels: (e.target as HTMLTextAreaElement).value })}
+    ></textarea>
+    <div class="hint" id="summaryLevels-hint">As CSV with its header line, or JSON. The summary query then appears above.</div>
+    <div class="field-error" id="summaryLevels-error">${problem ? problem.message : ''}</div>
+  </div>`;
+}
 
 /** What the regression form's templates need from the element: the form, its state and its actions. */
 export interface OvbFormView {
@@ -138,7 +159,7 @@ export function fileFields(v: OvbFormView): TemplateResult {
 
 export function summaryFields(v: OvbFormView): TemplateResult {
   const f = v.form;
-  const { sql, problem } = ovbSummarySql(f);
+  const { sql, problem, stage } = ovbSummarySql(f);
   const resultProblem = v.problemFor('summaryResult');
   return html`
     <p class="hint">For data too large or too private to move: run one query in your own database and paste its single result row here.</p>
@@ -147,10 +168,11 @@ export function summaryFields(v: OvbFormView): TemplateResult {
       ${v.field('outcome', 'Outcome column', f.outcome, (t) => ({ outcome: t }))}
       ${v.field('treatment', 'Treatment column', f.treatment, (t) => ({ treatment: t }))}
     </div>
-    ${v.field('summaryColumns', 'Covariate columns', f.summaryColumns, (t) => ({ summaryColumns: t }), 'Numeric columns, separated by commas')}
-    ${sql
-      ? html`<label for="sql">The query to run</label><pre class="sql" id="sql" tabindex="0">${sql}</pre>`
-      : html`<p class="hint">${problem?.message ? `The query appears here once you ${problem.message.replace(/\.$/, '')}.` : ''}</p>`}
+    ${v.field('summaryColumns', 'Covariate columns', f.summaryColumns, (t) => ({ summaryColumns: t }), 'Separated by commas')}
+    ${v.field('categorical', 'Categorical covariates', f.categorical, (t) => ({ categorical: t }), 'Covariates that are categories (e.g. region); the first level in character order is the reference')}
+    ${categoricalOf(f.categorical) && stage === 'levels' ? html`<p class="hint">First run this query for the levels of the categorical covariates and paste all its rows below.</p>` : nothing}
+    ${sql ? queryBox(sql, undefined) : html`<p class="hint">${problem?.message ? `The query appears here once you fix this: ${problem.message.replace(/\.$/, '')}.` : ''}</p>`}
+    ${categoricalOf(f.categorical) ? levelsBox(v) : nothing}
     <div class="field">
       <label for="summaryResult">Its result row</label>
       <textarea

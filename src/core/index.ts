@@ -19,6 +19,7 @@ export * from './flipBoundary';
 export * from './ovbAnalysis';
 export * from './upperNormalTail';
 export * from './signedRanks';
+export * from './signedRankSummary';
 export * from './weightedBernoulliSumTail';
 export * from './signedRankBound';
 export * from './binomialUpperTail';

@@ -7,6 +7,7 @@ import { tippingGamma, type TippingGamma } from './tippingGamma';
 import { walshAverages } from './walshAverages';
 import { effectUnderBias, exactCriticalValueAndTail, type EffectUnderBias } from './hodgesLehmannRange';
 import { readableAmplifications, type AmplifiedPair } from './amplification';
+import { signedRanksFromSummary, validateSignedRankSummary, type SignedRankSummary } from './signedRankSummary';
 
 /** The data of a matched-pairs study, in one of three forms. */
 export type PairsData =
@@ -21,7 +22,12 @@ export type PairsData =
       readonly controlOnly: number;
       /** Pairs where both or neither had the event, when known (counted in n; they carry no information). */
       readonly concordant?: number;
-    };
+    }
+  /**
+   * The sums of the signed-rank test, e.g. from a database query (Wilcoxon's rule, mid-ranks): the bounds use
+   * the normal approximation; no Hodges–Lehmann estimate (that needs every difference).
+   */
+  | ({ readonly kind: 'signed-rank-summary' } & SignedRankSummary);
 
 export type PairsTest = 'signrank' | 'sign';
 export type PairsAlternative = 'greater' | 'less';
@@ -188,8 +194,10 @@ export function validatePairsInput(input: PairsInput): InputProblem[] {
         inputProblem('data', 'too-few-pairs', 'needs at least two discordant pairs (pairs where exactly one unit had the event)'),
       );
     }
+  } else if (data.kind === 'signed-rank-summary') {
+    problems.push(...validateSignedRankSummary(data, 'data'));
   } else {
-    problems.push(inputProblem('data.kind', 'unknown-kind', 'must be differences, outcomes or discordant', (data as { kind?: unknown }).kind));
+    problems.push(inputProblem('data.kind', 'unknown-kind', 'must be differences, outcomes, discordant or signed-rank-summary', (data as { kind?: unknown }).kind));
   }
   if (input?.test !== undefined && input.test !== 'signrank' && input.test !== 'sign') {
     problems.push(inputProblem('test', 'not-a-choice', 'must be signrank or sign', input.test));
@@ -318,13 +326,16 @@ export function analysePairs(input: PairsInput): PairsResult {
         ? Float64Array.from({ length: data.treated.length }, (_, i) => data.treated[i] - data.control[i])
         : null;
 
-  let test: PairsTest = input.test ?? (differences ? 'signrank' : 'sign');
-  if (!differences && test === 'signrank') {
+  const summary = data.kind === 'signed-rank-summary' ? data : null;
+  let test: PairsTest = input.test ?? (differences || summary ? 'signrank' : 'sign');
+  if (!differences && !summary && test === 'signrank') {
     warnings.push('With a binary outcome (discordant counts) the signed-rank test is the sign test; the sign test was used.');
     test = 'sign';
   }
-  const zeroRule: ZeroRule = test === 'signrank' ? requestedZeroRule : 'wilcoxon';
-  if (test === 'sign' && requestedZeroRule === 'pratt') {
+  const zeroRule: ZeroRule = test === 'signrank' && !summary ? requestedZeroRule : 'wilcoxon';
+  if (summary && test === 'signrank' && requestedZeroRule === 'pratt') {
+    warnings.push("Pratt's rule needs the differences themselves; the summary follows Wilcoxon's rule (zero differences left out of the test).");
+  } else if (test === 'sign' && requestedZeroRule === 'pratt') {
     warnings.push("Pratt's rule for zero differences applies to the signed-rank test only; the sign test leaves them out.");
   }
 
@@ -340,6 +351,12 @@ export function analysePairs(input: PairsInput): PairsResult {
     zeros = ranks.zeros;
     nonZero = ranks.nonZero;
     favourable = ranks.positive;
+  } else if (summary) {
+    ranks = signedRanksFromSummary(summary, direction);
+    n = ranks.pairs;
+    zeros = ranks.zeros;
+    nonZero = ranks.nonZero;
+    favourable = ranks.positive;
   } else {
     const d = data as Extract<PairsData, { kind: 'discordant' }>;
     favourable = direction === 1 ? d.treatedOnly : d.controlOnly;
@@ -347,7 +364,7 @@ export function analysePairs(input: PairsInput): PairsResult {
     n = nonZero + (d.concordant ?? 0);
     zeros = d.concordant ?? 0;
   }
-  if (zeros > 0 && !differences) warnings.push(`${zeros} concordant ${zeros === 1 ? 'pair' : 'pairs'} (both or neither had the event) carry no information and ${zeros === 1 ? 'was' : 'were'} left out of the test.`);
+  if (zeros > 0 && !differences && !summary) warnings.push(`${zeros} concordant ${zeros === 1 ? 'pair' : 'pairs'} (both or neither had the event) carry no information and ${zeros === 1 ? 'was' : 'were'} left out of the test.`);
   else if (zeros > 0 && zeroRule === 'pratt') warnings.push(`${zeros} ${zeros === 1 ? 'pair has' : 'pairs have'} a difference of zero; by Pratt's rule ${zeros === 1 ? 'it was' : 'they were'} ranked with the others and scored 0.`);
   else if (zeros > 0) warnings.push(`${zeros} ${zeros === 1 ? 'pair has' : 'pairs have'} a difference of zero and ${zeros === 1 ? 'was' : 'were'} left out of the test.`);
   if (ranks?.tiedMagnitudes) warnings.push('Some differences have equal sizes; they share average ranks (handled exactly).');
@@ -358,6 +375,11 @@ export function analysePairs(input: PairsInput): PairsResult {
     tailMethod = requested === 'normal' ? 'normal' : 'exact';
     tailMethodReason =
       tailMethod === 'exact' ? 'exact binomial tails (cheap for any number of pairs)' : 'normal approximation, as requested';
+  } else if (summary) {
+    // Exact bounding distributions need every rank; the summary has only their sums.
+    tailMethod = 'normal';
+    tailMethodReason = 'normal approximation (the summary holds the sums of the ranks, not the ranks the exact tails need)';
+    if (requested === 'exact') warnings.push('The exact tails need every rank; from a summary the normal approximation was used.');
   } else if (requested === 'auto') {
     // One rule (see EXACT_PAIRS_LIMIT): all pairs used, for the test and the estimates alike.
     tailMethod = n <= EXACT_PAIRS_LIMIT ? 'exact' : 'normal';
@@ -441,6 +463,9 @@ export function analysePairs(input: PairsInput): PairsResult {
     }
     estimate = effectUnderBias(walsh, n, 1, alpha, { method: 'normal' }).estimateLow;
   }
+  if (summary && test === 'signrank') {
+    warnings.push('The Hodges–Lehmann estimate and its range under each Γ need the differences themselves; a summary gives the p-value bounds only.');
+  }
 
   if (tipping.status === 'not-significant') {
     warnings.push(`The finding is not significant at α = ${alpha} even with no hidden bias (p = ${tipping.pAtOne.toPrecision(3)} at Γ = 1).`);
@@ -464,7 +489,7 @@ export function analysePairs(input: PairsInput): PairsResult {
     zeroDifferences: zeros,
     zeroRule,
     tieTolerance: differences ? RANK_TIE_TOLERANCE : 0,
-    conventions: pairsConventions({ test, zeroRule, withEstimates, numeric: differences !== null, tailMethod, continuityCorrection, alpha }),
+    conventions: pairsConventions({ test, zeroRule, withEstimates, numeric: differences !== null || summary !== null, tailMethod, continuityCorrection, alpha, exactTies: summary !== null }),
     nonZero,
     favourable,
     statistic: test === 'sign' || !ranks ? favourable : ranks.statistic,
@@ -492,6 +517,7 @@ function pairsConventions(settings: {
   tailMethod: TailMethod;
   continuityCorrection: boolean;
   alpha: number;
+  exactTies?: boolean;
 }): readonly AnalysisConvention[] {
   const conventions = conventionList();
   const add = conventions.add;
@@ -502,7 +528,8 @@ function pairsConventions(settings: {
         ? "Pairs with a difference of exactly zero are ranked together with the others by the size of their difference and score 0 in the test (Pratt's rule); they also count in the Hodges–Lehmann estimate and interval."
         : "Pairs with a difference of exactly zero are left out of the signed-rank test (Wilcoxon's rule) but count in the Hodges–Lehmann estimate and interval.",
     );
-    add('tied-differences', `Differences whose sizes agree within a relative ${RANK_TIE_TOLERANCE} (about 10 significant digits) count as tied and share the average of their ranks, so that differences equal on paper but not in binary arithmetic (1.3 − 1.2 and 2.3 − 2.2) tie.`);
+    if (settings.exactTies) add('tied-differences', 'Differences of exactly equal size (as the database computed them) count as tied and share the average of their ranks.');
+    else add('tied-differences', `Differences whose sizes agree within a relative ${RANK_TIE_TOLERANCE} (about 10 significant digits) count as tied and share the average of their ranks, so that differences equal on paper but not in binary arithmetic (1.3 − 1.2 and 2.3 − 2.2) tie.`);
   } else {
     add('zero-differences', settings.numeric
       ? 'Pairs with a difference of exactly zero are left out of the sign test.'

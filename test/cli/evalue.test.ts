@@ -7,6 +7,7 @@ import { memoryIo } from '../../src/cli/cliIo';
 import { runLurk } from '../../src/cli/main';
 import { expectClose } from '../support/expectClose';
 import { buildCliForTest } from '../support/builtCli';
+import { duckDbEngine, postgresEngine, type SqlEngine } from '../support/sqlEngines';
 
 async function lurk(args: string[], files: Record<string, string> = {}) {
   const io = memoryIo(files);
@@ -220,5 +221,66 @@ describe('the built command', () => {
     const failed = await run('node', [join(outDir, 'lurk.js'), 'evalue', '--measure', 'rr', '--estimate', 'x']).catch((e) => e);
     expect(failed.code).toBe(2);
     expect(failed.stderr).toBe('lurk evalue: --estimate: must be a number, got "x"\n');
+  });
+});
+
+describe('lurk evalue --sql / --summary: the rows stay in the database', () => {
+  // Fictional cohort: text exposure (yes/no), numeric outcome, missing cells (NULL in the database, NA in the
+  // file). Reference: the file path (--file) on the same rows.
+  const n = 400;
+  const exposure = Array.from({ length: n }, (_, i) => (i % 31 === 7 ? null : i % 3 === 0 ? 'yes' : 'no'));
+  const outcome = Array.from({ length: n }, (_, i) => (i % 37 === 11 ? null : (i * 7919) % 10 < (i % 3 === 0 ? 4 : 2) ? 1 : 0));
+  const csv = 'smoker,cancer\n' + exposure.map((e, i) => `${e ?? 'NA'},${outcome[i] ?? 'NA'}`).join('\n') + '\n';
+
+  for (const [engineName, open] of [
+    ['DuckDB', duckDbEngine],
+    ['PostgreSQL', postgresEngine],
+  ] as const) {
+    describe(engineName, () => {
+      let engine: SqlEngine;
+      beforeAll(async () => {
+        engine = await open();
+        await engine.table(['cohort', 'people'], [
+          { name: 'smoker', type: 'VARCHAR', values: exposure },
+          { name: 'cancer', type: 'INTEGER', values: outcome },
+        ]);
+      }, 120_000);
+      afterAll(async () => engine?.close());
+
+      it('gives the same E-values as --file, for a risk ratio and an odds ratio, as JSON and as CSV', async () => {
+        const { query } = await lurkJson(['--sql', 'cohort.people', '--exposure', 'smoker', '--outcome', 'cancer']);
+        const row = await engine.row(query);
+        const asCsv = Object.keys(row).join(',') + '\n' + Object.values(row).join(',') + '\n';
+        for (const measure of [['--measure', 'rr'], ['--measure', 'or', '--outcome-prevalence', 'common']]) {
+          const fromFile = await lurkJson(['--file', 'people.csv', '--exposure', 'smoker', '--outcome', 'cancer', ...measure], { 'people.csv': csv });
+          for (const pasted of [JSON.stringify(row), asCsv]) {
+            const fromSummary = await lurkJson(['--summary', pasted, ...measure]);
+            expect(fromSummary.eValueEstimate).toBe(fromFile.eValueEstimate);
+            expect(fromSummary.eValueInterval).toBe(fromFile.eValueInterval);
+            expect(fromSummary.table ?? fromSummary.counts).toEqual(fromFile.table ?? fromFile.counts);
+            expect(fromSummary.warnings.join(' ')).toMatch(/left out because the exposure or the outcome was missing/);
+          }
+        }
+      });
+
+      it('with the values that mean yes given', async () => {
+        const { query } = await lurkJson(['--sql', 'cohort.people', '--exposure', 'smoker', '--outcome', 'cancer', '--exposed-values', 'no', '--outcome-values', '0']);
+        const fromSummary = await lurkJson(['--summary', JSON.stringify(await engine.row(query))]);
+        const fromFile = await lurkJson(['--file', 'p.csv', '--exposure', 'smoker', '--outcome', 'cancer', '--exposed-values', 'no', '--outcome-values', '0'], { 'p.csv': csv });
+        expect(fromSummary.eValueEstimate).toBe(fromFile.eValueEstimate);
+      });
+    });
+  }
+
+  it('bad results: one line naming the column, or the other query', async () => {
+    const good = { lurk_query: 'lurk-2x2-counts', a: 3, b: 7, c: 1, d: 9, rows_missing: 0 };
+    expect(await errorLine(['--summary', JSON.stringify({ ...good, c: undefined })])).toMatch(/^lurk evalue: --summary: column c is missing/);
+    expect(await errorLine(['--summary', JSON.stringify({ ...good, a: 'x' })])).toMatch(/--summary: column a must be a whole number/);
+    expect(await errorLine(['--summary', JSON.stringify({ ...good, b: -2 })])).toMatch(/--summary: column b must be a whole number of 0 or more/);
+    expect(await errorLine(['--summary', JSON.stringify({ lurk_query: 'lurk-pairs-signed-ranks', pairs: 4 })])).toMatch(/--summary: is the result of another query/);
+    expect(await errorLine(['--summary', '{"n": 10, "m_1": 3}'])).toMatch(/--summary: looks like the result of another calculator/);
+    expect(await errorLine(['--summary', 'no-such-result.csv'])).toMatch(/--summary: cannot read/);
+    expect(await errorLine(['--sql', 't', '--exposure', 'e'])).toMatch(/--outcome: needs the name of the outcome column/);
+    expect(await errorLine(['--summary', JSON.stringify(good), '--exposure', 'e'])).toMatch(/--exposure: goes with --file or --sql/);
   });
 });

@@ -1,10 +1,11 @@
-import { describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { duckDbEngine, postgresEngine, type SqlEngine, type TestColumn } from '../support/sqlEngines';
 import { spawnSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { runLurk } from '../../src/cli/main';
 import { memoryIo } from '../../src/cli/cliIo';
 import { expectClose } from '../support/expectClose';
-import { readReferenceJson, referencePath } from '../support/reference';
+import { readReferenceJson, readReferenceText, referencePath } from '../support/reference';
 import { buildCliForTest } from '../support/builtCli';
 
 const ovb = readReferenceJson('ovb.json');
@@ -240,4 +241,79 @@ describe('lurk ovb', () => {
     expect(bad.stderr).toMatch(/--df/);
     cli.remove();
   }, 120_000);
+});
+
+describe('lurk ovb --sql / --summary with categorical covariates: levels query, summary query, analysis', () => {
+  // Data: test/reference/swiss_regions.csv (R's swiss with a fictional region), plus a fictional numeric zone
+  // code and one more missing region (missing: NULL in the database, empty or NA in the file). Reference: the CSV path (--file) on the same rows.
+  const lines = readReferenceText('swiss_regions.csv').trim().split(/\r?\n/);
+  const header = lines[0].split(',');
+  const rows = lines.slice(1).map((l) => l.split(','));
+  const zone = rows.map((_, i) => (i * 7) % 3 + 1);
+  rows[5][header.indexOf('region')] = 'NA';
+  const csv = [[...header, 'zone'].join(','), ...rows.map((r, i) => [...r, zone[i]].join(','))].join('\n') + '\n';
+  const columns: TestColumn[] = [
+    ...header.map((name, j): TestColumn =>
+      name === 'region'
+        ? { name, type: 'VARCHAR', values: rows.map((r) => (r[j] === 'NA' || r[j] === '' ? null : r[j])) }
+        : { name, type: 'DOUBLE PRECISION', values: rows.map((r) => Number(r[j])) },
+    ),
+    { name: 'zone', type: 'INTEGER', values: zone },
+  ];
+  const model = ['--outcome', 'Fertility', '--treatment', 'Education', '--covariates', 'Agriculture,region,Catholic,zone', '--categorical', 'region,zone'];
+
+  for (const [engineName, open] of [
+    ['DuckDB', duckDbEngine],
+    ['PostgreSQL', postgresEngine],
+  ] as const) {
+    describe(engineName, () => {
+      let engine: SqlEngine;
+      beforeAll(async () => {
+        engine = await open();
+        await engine.table(['survey', 'swiss regions'], columns);
+      }, 120_000);
+      afterAll(async () => engine?.close());
+
+      it('equals the CSV path (estimate, se, robustness values, benchmark bounds) to 1e-9, from a schema-qualified table', async () => {
+        const table = 'survey."swiss regions"';
+        const first = await lurk(['--sql', table, ...model, '--json']);
+        expect(first.err).toBe('');
+        const levelsQuery = JSON.parse(first.out);
+        expect(levelsQuery.stage).toBe('levels');
+        expect(levelsQuery.query).toMatch(/SELECT DISTINCT/);
+        const levelRows = await engine.rows(levelsQuery.query);
+        const levelsCsv = 'lurk_query,column_name,level\n' + levelRows.map((r) => `${r.lurk_query},${r.column_name},${r.level}`).join('\n') + '\n';
+        const second = await lurk(['--sql', table, ...model, '--levels', levelsCsv, '--json']);
+        expect(second.err).toBe('');
+        const summaryQuery = JSON.parse(second.out);
+        expect(summaryQuery.stage).toBe('summary');
+        const row = await engine.row(summaryQuery.query);
+        const fromSummary = await lurk(['--summary', JSON.stringify(row), ...model, '--json']);
+        expect(fromSummary.err).toBe('');
+        const fromFile = await lurk(['--file', 'swiss.csv', ...model, '--json'], { 'swiss.csv': csv });
+        expect(fromFile.err).toBe('');
+        const s = JSON.parse(fromSummary.out);
+        const f = JSON.parse(fromFile.out);
+        for (const key of ['estimate', 'se', 'rv', 'rvAlpha', 'partialR2']) expectClose(s[key], f[key], { rel: 1e-9 }, key);
+        expect(s.df).toBe(f.df);
+        expect(s.benchmarks.map((b: any) => b.covariate)).toEqual(f.benchmarks.map((b: any) => b.covariate));
+        s.benchmarks.forEach((b: any, i: number) => {
+          expectClose(b.r2dz, f.benchmarks[i].r2dz, { rel: 1e-9, abs: 1e-15 });
+          expectClose(b.r2yz, f.benchmarks[i].r2yz, { rel: 1e-9, abs: 1e-15 });
+        });
+        // The levels typed as a JSON object give the same summary query.
+        const typed = JSON.stringify({ region: [...new Set(levelRows.filter((r) => r.column_name === 'region').map((r) => r.level))], zone: ['3', '1', '2'] });
+        expect(JSON.parse((await lurk(['--sql', table, ...model, '--levels', typed, '--json'])).out).query).toBe(summaryQuery.query);
+      });
+    });
+  }
+
+  it('refuses levels of another query, one level, and a categorical column that is not a covariate', async () => {
+    const base = ['--sql', 't', '--outcome', 'y', '--treatment', 'd', '--covariates', 'a,r', '--categorical', 'r'];
+    expect((await lurk([...base, '--levels', '{"r": ["x"]}'])).err).toMatch(/--levels: "r" has only one level/);
+    expect((await lurk([...base, '--levels', 'lurk_query,column_name,level\nlurk-2x2-counts,r,x\n'])).err).toMatch(/--levels: is the result of another query/);
+    expect((await lurk(['--sql', 't', '--outcome', 'y', '--treatment', 'd', '--covariates', 'a', '--categorical', 'd'])).err).toMatch(/--categorical: "d" is not among the covariate columns/);
+    const pairsRow = JSON.stringify({ lurk_query: 'lurk-pairs-signed-ranks', pairs: 3 });
+    expect((await lurk(['--summary', pairsRow, '--outcome', 'y', '--treatment', 'd', '--covariates', 'a'])).err).toMatch(/--summary: is the result of another calculator's query/);
+  });
 });

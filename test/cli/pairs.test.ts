@@ -1,4 +1,5 @@
-import { describe, expect, test } from 'vitest';
+import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+import { duckDbEngine, postgresEngine, type SqlEngine } from '../support/sqlEngines';
 import { spawnSync } from 'node:child_process';
 import { runLurk } from '../../src/cli/main';
 import { memoryIo } from '../../src/cli/cliIo';
@@ -130,5 +131,94 @@ describe('the built command', () => {
     expect(bad.stderr).toMatch(/^lurk pairs: --discordant: /);
     expect(readReferenceText('rosenbaum_small_n15.csv').length).toBeGreaterThan(0);
     cli.remove();
+  }, 120_000);
+});
+
+describe('lurk pairs --sql / --summary: the pairs stay in the database', () => {
+  // Fictional pairs: halves (exact in binary, so the database's exact ties and the file's tolerance agree), with
+  // ties, zero differences and missing values. Reference: the file path with --method normal on the same data.
+  const control = Array.from({ length: 240 }, (_, i) => 50 + ((i * 37) % 11) * 0.5);
+  const treated: Array<number | null> = control.map((c, i) => (i % 29 === 3 ? null : i % 13 === 0 ? c : c + (((i * 7919) % 15) - 5) * 0.5));
+  const csv = 'treated,control\n' + treated.map((t, i) => `${t === null ? 'NA' : t},${control[i]}`).join('\n') + '\n';
+
+  describe.each([
+    ['DuckDB', duckDbEngine],
+    ['PostgreSQL', postgresEngine],
+  ] as const)('on %s', (_name, open) => {
+    let engine: SqlEngine;
+    beforeAll(async () => {
+      engine = await open();
+      await engine.table(['trial', 'pairs'], [
+        { name: 'treated', type: 'DOUBLE PRECISION', values: treated },
+        { name: 'control', type: 'DOUBLE PRECISION', values: control },
+      ]);
+    }, 120_000);
+    afterAll(async () => engine?.close());
+
+    test('the pasted result gives the table, tipping Γ, sign-test value and amplification of --method normal on the file (to 1e-9)', async () => {
+      const printed = await lurk(['pairs', '--sql', 'trial.pairs', '--treated', 'treated', '--control', 'control', '--json']);
+      expect(printed.code).toBe(0);
+      const { query } = JSON.parse(printed.stdout);
+      const row = await engine.row(query);
+      for (const [pasted, files] of [
+        [JSON.stringify(row), {}],
+        ['result.csv', { 'result.csv': Object.keys(row).join(',') + '\n' + Object.values(row).join(',') + '\n' }],
+      ] as const) {
+        const fromSummary = await lurk(['pairs', '--summary', pasted, '--gamma', '1,1.5,2,3', '--json'], files);
+        expect(fromSummary.stderr).toBe('');
+        const fromFile = await lurk(['pairs', '--file', 'pairs.csv', '--treated', 'treated', '--control', 'control', '--method', 'normal', '--gamma', '1,1.5,2,3', '--json'], { 'pairs.csv': csv });
+        const s = JSON.parse(fromSummary.stdout);
+        const f = JSON.parse(fromFile.stdout);
+        expect([s.n, s.droppedRows, s.zeroDifferences, s.nonZero, s.favourable]).toEqual([f.n, f.droppedRows, f.zeroDifferences, f.nonZero, f.favourable]);
+        expect(f.zeroDifferences).toBeGreaterThan(0);
+        s.rows.forEach((r: any, i: number) => {
+          expectClose(r.pUpper, f.rows[i].pUpper, { rel: 1e-9 });
+          expectClose(r.pLower, f.rows[i].pLower, { rel: 1e-9 });
+        });
+        expectClose(s.sensitivityValue, f.sensitivityValue, { rel: 1e-9 });
+        expect(s.signTestSensitivityValue).toBe(f.signTestSensitivityValue);
+        s.amplification.forEach((a: any, i: number) => expectClose(a.delta, f.amplification[i].delta, { rel: 1e-9 }));
+        expect(s.estimates).toEqual([]);
+        expect(s.warnings.join(' ')).toMatch(/need the differences themselves/);
+      }
+    });
+
+    test('a difference column and the alternative "less" agree too', async () => {
+      await engine.run('DROP TABLE IF EXISTS diffs');
+      await engine.run('CREATE TABLE diffs AS SELECT treated - control AS "diff" FROM trial.pairs');
+      const { stdout } = await lurk(['pairs', '--sql', 'diffs', '--diff', 'diff']);
+      const row = await engine.row(stdout);
+      const s = JSON.parse((await lurk(['pairs', '--summary', JSON.stringify(row), '--alternative', 'less', '--json'])).stdout);
+      const f = JSON.parse((await lurk(['pairs', '--file', 'p.csv', '--treated', 'treated', '--control', 'control', '--alternative', 'less', '--method', 'normal', '--json'], { 'p.csv': csv })).stdout);
+      s.rows.forEach((r: any, i: number) => expectClose(r.pUpper, f.rows[i].pUpper, { rel: 1e-9 }));
+    });
+  });
+
+  test('bad results: one message naming the column, or the other query', async () => {
+    const good = { lurk_query: 'lurk-pairs-signed-ranks', rows_read: 5, pairs: 5, zeros: 1, non_zero: 4, positive: 3, rank_sum_positive: 8, rank_sum: 10, rank_sum_squares: 30 };
+    const bad = async (row: Record<string, unknown>) => {
+      const { code, stderr } = await lurk(['pairs', '--summary', JSON.stringify(row)]);
+      expect(code).toBe(2);
+      return stderr;
+    };
+    expect(await bad({ ...good, rank_sum: undefined })).toMatch(/--summary: column rank_sum is missing/);
+    expect(await bad({ ...good, positive: 'many' })).toMatch(/--summary: column positive must be a whole number/);
+    expect(await bad({ ...good, zeros: -1 })).toMatch(/--summary: column zeros must be a whole number of 0 or more/);
+    expect(await bad({ ...good, rank_sum_squares: 0 })).toMatch(/--summary: column rank_sum_squares must lie between/);
+    expect(await bad({ lurk_query: 'lurk-2x2-counts', a: 1, b: 2, c: 3, d: 4 })).toMatch(/--summary: is the result of another query/);
+    expect(await bad({ lurk_query: 'lurk-regression-summary', n: 9, m_1: 2 })).toMatch(/another query/);
+    const { code, stderr } = await lurk(['pairs', '--summary', 'none.json']);
+    expect(code).toBe(2);
+    expect(stderr).toMatch(/--summary: cannot read "none.json"/);
+    expect((await lurk(['pairs', '--sql', 'x', '--file', 'f.csv', '--diff', 'd'])).stderr).toMatch(/--sql: cannot be combined with --file/);
+    expect((await lurk(['pairs', '--summary', 'r.json', '--diff', 'd'])).stderr).toMatch(/--diff: goes with --file or --sql/);
+  });
+  test('the built command reads the result from standard input with --summary -', async () => {
+    const cli = await buildCliForTest();
+    const row = { lurk_query: 'lurk-pairs-signed-ranks', rows_read: 5, pairs: 5, zeros: 1, non_zero: 4, positive: 3, rank_sum_positive: 8, rank_sum: 10, rank_sum_squares: 30 };
+    const run = spawnSync(process.execPath, [cli.lurk, 'pairs', '--summary', '-', '--json'], { input: Object.keys(row).join(',') + '\n' + Object.values(row).join(',') + '\n', encoding: 'utf8' });
+    cli.remove();
+    expect(run.stderr).toBe('');
+    expect(JSON.parse(run.stdout).statistic).toBe(8);
   }, 120_000);
 });

@@ -15,6 +15,8 @@ export interface SqlEngine {
   run(sql: string): Promise<void>;
   /** Runs a query and returns its first row with lower-cased keys (numbers as JS numbers where exact). */
   row(sql: string): Promise<Record<string, unknown>>;
+  /** Runs a query and returns every row (keys lower-cased, as `row`). */
+  rows(sql: string): Promise<Array<Record<string, unknown>>>;
   /** Creates (or replaces) a table, under a schema when the name has one ("research.visits"). */
   table(parts: readonly string[], columns: readonly TestColumn[]): Promise<void>;
   close(): Promise<void>;
@@ -52,6 +54,10 @@ export async function duckDbEngine(): Promise<SqlEngine> {
       const reader = await connection.runAndReadAll(sql);
       return plainRow(reader.getRowObjectsJS()[0] as Record<string, unknown>);
     },
+    async rows(sql) {
+      const reader = await connection.runAndReadAll(sql);
+      return reader.getRowObjectsJS().map((r) => plainRow(r as Record<string, unknown>));
+    },
     table: (parts, columns) => createTable(engine, parts, columns),
     async close() {
       connection.closeSync();
@@ -75,6 +81,11 @@ export async function postgresEngine(): Promise<SqlEngine> {
       const result = await client.query(sql);
       const rows = Array.isArray(result) ? result[result.length - 1].rows : result.rows;
       return plainRow(rows[0] as Record<string, unknown>);
+    },
+    async rows(sql) {
+      const result = await client.query(sql);
+      const last = Array.isArray(result) ? result[result.length - 1] : result;
+      return last.rows.map((r: Record<string, unknown>) => plainRow(r));
     },
     table: (parts, columns) => createTable(engine, parts, columns),
     async close() {

@@ -8,6 +8,8 @@ import { emptyEValueForm, evaluateEValueForm, normaliseEValueForm, type EValueFo
 import { eValueStatement } from './statement';
 import { readEValueSummary, summariseEValue, type EValueSummary } from './summary';
 import { E_VALUE_CAUTION } from './text';
+import { eValueSummaryQuery } from './summaryQuery';
+import { queryReport, readSummaryArgument, SUMMARY_ARGUMENT_RULE } from '../summaryArgument';
 
 const OPTIONS = {
   measure: { type: 'string', short: 'm' },
@@ -26,6 +28,8 @@ const OPTIONS = {
   'exposed-values': { type: 'string' },
   'outcome-values': { type: 'string' },
   'reference-confounders': { type: 'string' },
+  sql: { type: 'string' },
+  summary: { type: 'string' },
 } as const;
 
 const HELP = `lurk evalue — the E-value: how strongly a hidden confounder would have to be associated with both the
@@ -39,6 +43,11 @@ From a 2×2 table of counts:
 From a CSV file with one row per person:
   lurk evalue --file data.csv --exposure COLUMN --outcome COLUMN [--exposed-values V,…] [--outcome-values V,…]
               [--measure rr|or] [--json]
+From a table in your own database (no row leaves it):
+  lurk evalue --sql TABLE --exposure COLUMN --outcome COLUMN [--exposed-values V,… --outcome-values V,…]
+              prints one standard SQL query that counts the 2×2 table; run it, then
+  lurk evalue --summary ROW [--measure rr|or] [--json]      gives the same E-values as --file on the same data
+              ${SUMMARY_ARGUMENT_RULE.replace(/\n/g, '\n              ')}
 
 Options:
   --measure             rr (risk ratio), or (odds ratio), hr (hazard ratio), smd (standardized mean
@@ -97,6 +106,8 @@ const FIELD_OPTIONS: Record<string, string> = {
   exposedValues: '--exposed-values',
   outcomeValues: '--outcome-values',
   input: '--estimate',
+  summaryTable: '--sql',
+  summaryResult: '--summary',
 };
 
 /**
@@ -107,12 +118,15 @@ const FIELD_OPTIONS: Record<string, string> = {
 export function eValueFormFromOptions(values: OptionValues): EValueFormInputs {
   const text = (name: string) => (typeof values[name] === 'string' ? (values[name] as string) : '');
   const given = (name: string) => values[name] !== undefined;
-  const sources = (['estimate', 'counts', 'file'] as const).filter(given);
+  const sources = (['estimate', 'counts', 'file', 'sql', 'summary'] as const).filter(given);
   if (sources.length > 1) refuse(`--${sources[1]}`, 'combined-sources', `cannot be combined with --${sources[0]}: give one source of the estimate`);
   const source = sources[0] ?? 'estimate';
+  // The query of --sql reads the same columns as --file; its result (--summary) needs none of them.
+  const allowed = source === 'estimate' ? SOURCE_OPTIONS.estimate : source === 'file' || source === 'sql' ? SOURCE_OPTIONS.file : [];
   for (const [owner, names] of Object.entries(SOURCE_OPTIONS)) {
-    if (owner === source) continue;
-    for (const name of names) if (given(name)) refuse(`--${name}`, 'other-source', `goes with --${owner}, not with --${source}`);
+    for (const name of names) {
+      if (given(name) && !allowed.includes(name)) refuse(`--${name}`, 'other-source', `goes with --${owner === 'file' ? 'file or --sql' : owner}, not with --${source}`);
+    }
   }
   const base = emptyEValueForm();
   const shared = {
@@ -138,6 +152,19 @@ export function eValueFormFromOptions(values: OptionValues): EValueFormInputs {
     });
   }
   const tableMeasure = (text('measure') || 'rr') as EValueFormInputs['tableMeasure'];
+  if (source === 'sql' || source === 'summary') {
+    return Object.freeze({
+      ...shared,
+      source: 'summary',
+      tableMeasure,
+      summaryTable: text('sql'),
+      summaryResult: text('summary'),
+      exposureColumn: text('exposure'),
+      outcomeColumn: text('outcome'),
+      exposedValues: Object.freeze(valueList(values['exposed-values'])),
+      outcomeValues: Object.freeze(valueList(values['outcome-values'])),
+    });
+  }
   if (source === 'counts') {
     const items = splitCounts(text('counts'));
     if (items.length !== 4) {
@@ -166,7 +193,13 @@ export function eValueOptionOf(field: string): string {
 }
 
 /** Reads the form (and the file it names) with the request reader, and reports; bad input is thrown by field. */
-async function runEValueCommand(form: EValueFormInputs, _values: OptionValues, context: CommandContext) {
+async function runEValueCommand(form: EValueFormInputs, values: OptionValues, context: CommandContext) {
+  if (values.sql !== undefined) {
+    const { sql, problems } = eValueSummaryQuery(form);
+    if (problems.length > 0) throw new InputError(problems);
+    return queryReport(sql, { table: form.summaryTable, exposure: form.exposureColumn.trim(), outcome: form.outcomeColumn.trim(), exposedValues: [...form.exposedValues], outcomeValues: [...form.outcomeValues] });
+  }
+  if (form.source === 'summary') form = { ...form, summaryResult: await readSummaryArgument(form.summaryResult ?? '', context, 'summaryResult') };
   let table: CsvTable | null = null;
   if (form.source === 'file') {
     let content: string;

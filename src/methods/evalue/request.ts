@@ -12,9 +12,11 @@ import type { NumberKind } from '../../data/numberText';
 import { fieldReader } from '../fieldReader';
 import { twoByTwoFromCsv } from './twoByTwoFromCsv';
 import type { TwoByTwoFromCsv } from './twoByTwoFromCsv';
+import { readResultRow } from '../../data/sqlText';
+import { twoByTwoFromSqlRow } from './twoByTwoSql';
 
 /** Where the estimate comes from. */
-export type EValueSource = 'reported' | 'counts' | 'file';
+export type EValueSource = 'reported' | 'counts' | 'file' | 'summary';
 
 /** A reference confounder as typed. */
 export interface ConfounderText {
@@ -51,6 +53,9 @@ export interface EValueFormInputs {
   readonly exposedValues: readonly string[];
   readonly outcomeValues: readonly string[];
   readonly confounders: readonly ConfounderText[];
+  /** Summary statistics: the table the counting query reads (columns as for a file), and its pasted result. */
+  readonly summaryTable?: string;
+  readonly summaryResult?: string;
 }
 
 export function emptyEValueForm(): EValueFormInputs {
@@ -74,6 +79,8 @@ export function emptyEValueForm(): EValueFormInputs {
     exposedValues: Object.freeze([]),
     outcomeValues: Object.freeze([]),
     confounders: Object.freeze([]),
+    summaryTable: '',
+    summaryResult: '',
   });
 }
 
@@ -106,7 +113,7 @@ export function normaliseEValueForm(saved: unknown): EValueFormInputs {
         )
     : [];
   return Object.freeze({
-    source: pick('source', ['reported', 'counts', 'file'] as const),
+    source: pick('source', ['reported', 'counts', 'file', 'summary'] as const),
     measure: pick('measure', EFFECT_MEASURES),
     estimate: text('estimate'),
     intervalBy: pick('intervalBy', ['limits', 'se'] as const),
@@ -125,6 +132,8 @@ export function normaliseEValueForm(saved: unknown): EValueFormInputs {
     exposedValues: Object.freeze(strings(s.exposedValues)),
     outcomeValues: Object.freeze(strings(s.outcomeValues)),
     confounders: Object.freeze(confounders),
+    summaryTable: text('summaryTable'),
+    summaryResult: text('summaryResult'),
   });
 }
 
@@ -206,8 +215,17 @@ export function evaluateEValueForm(form: EValueFormInputs, table: CsvTable | nul
     }
   } else {
     const tableMeasure = reader.choice('tableMeasure', form.tableMeasure, ['rr', 'or'] as const);
-    const counts = countsFrom(form, table, number, problems, (c) => (csv = c));
-    started = form.source === 'counts' ? Object.values(form.counts).some((t) => String(t).trim() !== '') : table !== null;
+    let summaryWarnings: readonly string[] = [];
+    const counts =
+      form.source === 'summary'
+        ? countsFromSummary(form.summaryResult ?? '', problems, (w) => (summaryWarnings = w))
+        : countsFrom(form, table, number, problems, (c) => (csv = c));
+    started =
+      form.source === 'counts'
+        ? Object.values(form.counts).some((t) => String(t).trim() !== '')
+        : form.source === 'summary'
+          ? (form.summaryResult ?? '').trim() !== ''
+          : table !== null;
     if (counts && tableMeasure !== null) {
       const input: EValueCountsInput = {
         counts,
@@ -217,8 +235,8 @@ export function evaluateEValueForm(form: EValueFormInputs, table: CsvTable | nul
         target,
       };
       run(
-        () => validateEValueCountsInput(input),
-        () => withFileWarnings(analyseEValueFromCounts(input), csv),
+        () => validateEValueCountsInput(input).map((p) => (form.source === 'summary' ? asSummaryProblem(p) : p)),
+        () => withWarnings(withFileWarnings(analyseEValueFromCounts(input), csv), summaryWarnings),
       );
     }
   }
@@ -252,6 +270,47 @@ export function evaluateEValueForm(form: EValueFormInputs, table: CsvTable | nul
 function withFileWarnings(result: EValueResult, csv: TwoByTwoFromCsv | null): EValueResult {
   if (!csv || csv.warnings.length === 0) return result;
   return Object.freeze({ ...result, warnings: Object.freeze([...csv.warnings, ...result.warnings]) });
+}
+
+/** A problem of the counts (`counts.a`) as a problem of the pasted result, naming its column (`a`). */
+function asSummaryProblem(p: InputProblem): InputProblem {
+  const cell = /^counts\.([abcd])$/.exec(p.field)?.[1];
+  if (cell) return { ...p, field: 'summaryResult', message: `column ${cell} ${p.message}` };
+  return p.field === 'counts' ? { ...p, field: 'summaryResult', message: `the counted table ${p.message}` } : p;
+}
+
+/** Warnings of the data (rows left out of a database's counts) go first among the result's warnings. */
+function withWarnings(result: EValueResult, warnings: readonly string[]): EValueResult {
+  if (warnings.length === 0) return result;
+  return Object.freeze({ ...result, warnings: Object.freeze([...warnings, ...result.warnings]) });
+}
+
+/**
+ * The 2×2 counts from the pasted result of the counting query (a JSON object, or CSV header line and row).
+ * Problems are named `summaryResult`, each message naming the result's column.
+ */
+function countsFromSummary(text: string, problems: InputProblem[], keepWarnings: (warnings: readonly string[]) => void) {
+  if (text.trim() === '') {
+    problems.push(inputProblem('summaryResult', 'required', 'paste the one row the counting query returned'));
+    return null;
+  }
+  const row = readResultRow(text);
+  if (!row) {
+    problems.push(inputProblem('summaryResult', 'not-a-result', "must be the query's one result row: a JSON object, or CSV text with the header line and the row"));
+    return null;
+  }
+  try {
+    const read = twoByTwoFromSqlRow(row);
+    keepWarnings(read.warnings);
+    return { ...read.counts };
+  } catch (error) {
+    if (!(error instanceof InputError)) throw error;
+    for (const p of error.problems) {
+      const column = /^summary\.(.+)$/.exec(p.field)?.[1];
+      problems.push({ ...p, field: 'summaryResult', message: column ? `column ${column} ${p.message}` : p.message });
+    }
+    return null;
+  }
 }
 
 /** "95" and "0.95" both mean 95%: a number above 1 and below 100 is read as a percentage. */

@@ -1,5 +1,6 @@
 import { NUMBER_READING_RULE } from '../../data/numberText';
 import { PAIRS_CAUTION } from './text';
+import { SUMMARY_ARGUMENT_RULE } from '../summaryArgument';
 
 /** The text of `lurk pairs --help`. */
 export const PAIRS_HELP = `lurk pairs — Rosenbaum bounds for a matched-pairs study: how large a hidden bias Γ would have to be before
@@ -9,6 +10,8 @@ two matched units may differ in their odds of treatment because of an unmeasured
   lurk pairs --file data.csv --treated COLUMN --control COLUMN [options]
   lurk pairs --file data.csv --diff COLUMN [options]
   lurk pairs --discordant A,B [options]
+  lurk pairs --sql TABLE --diff COLUMN | --treated COLUMN --control COLUMN   prints a query for your database
+  lurk pairs --summary ROW [options]                                     analyses its one result row
 
 Data (one source: a file with its columns, or discordant counts):
   --file F            a CSV file (comma, semicolon or tab separated) with a header row, one row per pair;
@@ -18,6 +21,10 @@ Data (one source: a file with its columns, or discordant counts):
   --diff COLUMN       or one column of treated − control differences
   --discordant A,B    a binary outcome: A pairs where only the treated unit had the event, B where only the control did
   --outcome-type T    auto (default), numeric, or binary (insist on 0/1 columns)
+  --sql TABLE         the pairs stay in your database: print one standard SQL query (signed-rank sums) over
+                      TABLE (or schema.table); run it there and give its one result row to --summary
+  --summary ROW       the query's result row; bounds by the normal approximation, no Hodges–Lehmann estimate.
+                      ${SUMMARY_ARGUMENT_RULE.replace(/\n/g, '\n                      ')}
 
 Analysis:
   --test T            signrank (Wilcoxon signed-rank, default) or sign (sign test; McNemar for binary outcomes)

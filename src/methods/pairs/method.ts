@@ -8,6 +8,8 @@ import { emptyPairsForm, normalisePairsForm, pairsColumnsOf, readPairsSettings, 
 import { analysePairsForm, type PairsOutcome } from './runner';
 import { pairsStatement } from './statement';
 import { readPairsSummary, summarisePairs, type PairsSummary } from './summary';
+import { pairsQueryOfForm } from './pairsFromSummary';
+import { queryReport, readSummaryArgument } from '../summaryArgument';
 
 /** The options of `lurk pairs` (--json is added by the generic command). */
 const OPTIONS = {
@@ -23,6 +25,8 @@ const OPTIONS = {
   alternative: { type: 'string' },
   method: { type: 'string' },
   'continuity-correction': { type: 'boolean' },
+  sql: { type: 'string' },
+  summary: { type: 'string' },
 } as const;
 
 /** Form fields (and the fields of the readers' problems) → the option that holds them. */
@@ -46,11 +50,15 @@ const OPTION_OF: Readonly<Record<string, string>> = {
   alpha: '--alpha',
   gammas: '--gamma',
   continuityCorrection: '--continuity-correction',
+  summaryTable: '--sql',
+  summaryResult: '--summary',
+  summary: '--summary',
 };
 
 /** The option a form field stands for: `gammas[1]` → `--gamma`, `data.controlOnly` → `--file`, … */
 export function pairsOptionOf(field: string, form?: PairsFormInputs): string {
   const base = field.replace(/\[.*$/, '');
+  if (base.startsWith('data') && form?.source === 'summary') return '--summary';
   if (base.startsWith('data')) return form?.source === 'discordant' ? '--discordant' : '--file';
   return OPTION_OF[base] ?? field;
 }
@@ -71,6 +79,17 @@ function discordantItems(typed: string): string[] {
  */
 export function pairsFormFromOptions(values: OptionValues): PairsFormInputs {
   const given = (name: string) => values[name] !== undefined;
+  const summarySources = ['sql', 'summary'].filter(given);
+  if (summarySources.length > 0) {
+    const others = [...summarySources.slice(1), 'file', 'discordant'].filter(given).map((o) => `--${o}`);
+    if (others.length > 0) {
+      throw new InputError([inputProblem(`--${summarySources[0]}`, 'mixed-sources', `cannot be combined with ${others.join(' and ')}: give one source of the pairs`)]);
+    }
+  }
+  if (given('summary')) {
+    const columns = ['diff', 'treated', 'control', 'outcome-type'].filter(given).map((o) => `--${o}`);
+    if (columns.length > 0) throw new InputError([inputProblem(columns[0], 'other-source', 'goes with --file or --sql; the result given to --summary already holds what the query read')]);
+  }
   if (given('discordant')) {
     const others = ['file', 'diff', 'treated', 'control', 'outcome-type'].filter(given).map((o) => `--${o}`);
     if (others.length > 0) {
@@ -92,7 +111,9 @@ export function pairsFormFromOptions(values: OptionValues): PairsFormInputs {
   }
   return Object.freeze({
     ...emptyPairsForm(),
-    source: given('discordant') ? 'discordant' : 'file',
+    source: given('discordant') ? 'discordant' : given('sql') || given('summary') ? 'summary' : 'file',
+    summaryTable: text(values.sql),
+    summaryResult: text(values.summary),
     fileName: text(values.file),
     columnsBy: given('diff') ? 'difference' : 'outcomes',
     treatedColumn: text(values.treated),
@@ -114,8 +135,17 @@ export function pairsFormFromOptions(values: OptionValues): PairsFormInputs {
  * `lurk pairs`: reads the form (and the file it names) with the request reader, analyses, and reports.
  * @throws InputError with every problem, named by form field (the generic command names the options)
  */
-export async function runPairsCommand(form: PairsFormInputs, _values: OptionValues, context: CommandContext): Promise<CommandReport> {
+export async function runPairsCommand(form: PairsFormInputs, values: OptionValues, context: CommandContext): Promise<CommandReport> {
   const settings = readPairsSettings(form);
+  if (values.sql !== undefined) {
+    const { sql, problems } = pairsQueryOfForm({ ...form, summaryTable: form.summaryTable ?? '' });
+    if (problems.length > 0) throw new InputError(problems);
+    const columns = form.columnsBy === 'difference' ? { difference: form.differenceColumn } : { treated: form.treatedColumn, control: form.controlColumn };
+    return queryReport(sql, { table: form.summaryTable, ...columns });
+  }
+  if (form.source === 'summary') {
+    form = { ...form, summaryResult: await readSummaryArgument(form.summaryResult ?? '', context, 'summaryResult') };
+  }
   let read: PairsRead | null = null;
   if (form.source === 'file') {
     if (form.fileName.trim() === '') {

@@ -4,9 +4,10 @@ import type { TailMethod } from '../../core/signedRankBound';
 import { fieldReader } from '../fieldReader';
 import type { PairsColumns, PairsRead } from './pairsFromCsv';
 import { discordantFromText, pairsFromPastedText } from './pairsFromText';
+import { pairsFromSummaryText } from './pairsFromSummary';
 
 /** Where the pairs come from. */
-export type PairsSource = 'file' | 'pasted' | 'discordant';
+export type PairsSource = 'file' | 'pasted' | 'discordant' | 'summary';
 
 /** The choices of the analysis, as the request reader accepts them (without regard to case). */
 export const PAIRS_TESTS = ['signrank', 'sign'] as const;
@@ -44,6 +45,9 @@ export interface PairsFormInputs {
   readonly method: string;
   /** The ½ continuity correction of the normal approximation. */
   readonly continuityCorrection: boolean;
+  /** Summary statistics: the table the query reads (its columns are the column fields above), and its pasted result. */
+  readonly summaryTable?: string;
+  readonly summaryResult?: string;
 }
 
 export function emptyPairsForm(): PairsFormInputs {
@@ -64,6 +68,8 @@ export function emptyPairsForm(): PairsFormInputs {
     gammas: '',
     method: 'auto',
     continuityCorrection: false,
+    summaryTable: '',
+    summaryResult: '',
   });
 }
 
@@ -86,7 +92,7 @@ export function normalisePairsForm(saved: unknown): PairsFormInputs {
     return choices.find((c) => c === value) ?? (base[key] as T);
   };
   return Object.freeze({
-    source: pick('source', ['file', 'pasted', 'discordant'] as const),
+    source: pick('source', ['file', 'pasted', 'discordant', 'summary'] as const),
     fileName: text('fileName'),
     columnsBy: pick('columnsBy', ['outcomes', 'difference'] as const),
     treatedColumn: text('treatedColumn'),
@@ -102,6 +108,8 @@ export function normalisePairsForm(saved: unknown): PairsFormInputs {
     gammas: text('gammas'),
     method: pick('method', PAIRS_TAIL_METHODS),
     continuityCorrection: s.continuityCorrection === true,
+    summaryTable: text('summaryTable'),
+    summaryResult: text('summaryResult'),
   });
 }
 
@@ -178,13 +186,16 @@ export function pairsInputFromForm(form: PairsFormInputs, read: PairsRead | null
     else if (form.source === 'pasted') {
       used = pairsFromPastedText(form.pasted, 'pasted');
       data = used.data;
+    } else if (form.source === 'summary') {
+      used = pairsFromSummaryText(form.summaryResult ?? '', 'summaryResult');
+      data = used.data;
     } else if (read) data = read.data;
     else problems.push(inputProblem('file', 'required', 'choose a CSV file of pairs'));
   } catch (error) {
     if (error instanceof InputError) problems.push(...error.problems);
     else throw error;
   }
-  if (form.source !== 'pasted' && form.source !== 'file') used = null;
+  if (form.source === 'discordant') used = null;
   if (!data) return { input: null, read: used, problems };
   const input: PairsInput = {
     data,
@@ -196,10 +207,23 @@ export function pairsInputFromForm(form: PairsFormInputs, read: PairsRead | null
     continuityCorrection: options.continuityCorrection,
     droppedRows: used?.droppedRows ?? 0,
   };
-  const field = form.source === 'pasted' ? 'pasted' : form.source === 'file' ? 'file' : 'treatedOnly';
+  const field = form.source === 'pasted' ? 'pasted' : form.source === 'file' ? 'file' : form.source === 'summary' ? 'summaryResult' : 'treatedOnly';
   for (const p of validatePairsInput(input)) {
     if (options.problems.some((q) => q.field === p.field || (q.field === 'gammas' && p.field.startsWith('gammas')))) continue;
-    problems.push(p.field.startsWith('data') ? { ...p, field: p.field === 'data.controlOnly' ? 'controlOnly' : field } : p);
+    const column = form.source === 'summary' ? SUMMARY_COLUMNS[p.field.replace(/^data\./, '')] : undefined;
+    if (column) problems.push({ ...p, field, message: `column ${column} ${p.message}` });
+    else problems.push(p.field.startsWith('data') ? { ...p, field: p.field === 'data.controlOnly' ? 'controlOnly' : field } : p);
   }
   return { input: problems.length === 0 ? input : null, read: used, problems };
 }
+
+/** The result columns of the matched-pairs query that hold each field of a signed-rank summary. */
+const SUMMARY_COLUMNS: Readonly<Record<string, string>> = {
+  pairs: 'pairs',
+  zeros: 'zeros',
+  nonZero: 'non_zero',
+  positive: 'positive',
+  statistic: 'rank_sum_positive',
+  sumRanks: 'rank_sum',
+  sumSquaredRanks: 'rank_sum_squares',
+};

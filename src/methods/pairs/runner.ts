@@ -126,6 +126,7 @@ export function needsWorker(input: PairsInput): boolean {
     const total = data.treatedOnly + data.controlOnly;
     return total > WORKER_DISCORDANT_PAIRS || (input.method === 'exact' && total > WORKER_PAIRS * 100);
   }
+  if (data.kind === 'signed-rank-summary') return false;
   const pairs = data.kind === 'differences' ? data.differences.length : data.treated.length;
   return pairs > WORKER_PAIRS && input.method !== 'normal';
 }

@@ -8,6 +8,7 @@ import { ovbCommandReport, ovbSqlReport, ovbSvgReport, type OvbDataOrigin } from
 import { emptyOvbForm, evaluateOvbForm, normaliseOvbForm, ovbSummarySql, type OvbFormInputs, type OvbFormOutcome } from './request';
 import { ovbStatement } from './statement';
 import { ovbSummary, readOvbSummary, type OvbSummary } from './summary';
+import { isInlineResult, readSummaryArgument } from '../summaryArgument';
 
 const PLOTS = ['estimate', 't', 'extreme'] as const;
 
@@ -55,9 +56,11 @@ async function runOvbCommand(form: OvbFormInputs, values: OptionValues, context:
   if (reader.problems.length > 0) throw new InputError(reader.problems);
   if (plot && values.json) throw new InputError([inputProblem('--svg', 'usage', 'cannot be combined with --json')]);
   if (values.sql !== undefined) {
-    const { sql, problem } = ovbSummarySql(form);
+    const read = (form.summaryLevels ?? '') !== '' ? { ...form, summaryLevels: await readSummaryArgument(form.summaryLevels ?? '', context, 'summaryLevels') } : form;
+    const { sql, problem, stage } = ovbSummarySql(read);
     if (problem) throw new InputError([problem]);
-    return ovbSqlReport(sql, { table: form.summaryTable, outcome: form.outcome, treatment: form.treatment, covariates: covariatesOf(form) });
+    const report = ovbSqlReport(sql, { table: form.summaryTable, outcome: form.outcome, treatment: form.treatment, covariates: covariatesOf(form) });
+    return { ...report, json: { ...(report.json as Record<string, unknown>), stage } };
   }
   let fitted: FittedFile | null = null;
   let read = form;
@@ -65,15 +68,15 @@ async function runOvbCommand(form: OvbFormInputs, values: OptionValues, context:
     const file = context.open(form.fileName);
     fitted = await readOrRefuse(file, '--file', () => fitFileStream(file.bytes(), form));
   } else if (form.source === 'summary') {
-    const file = context.open(form.fileName);
-    read = { ...form, summaryResult: await readOrRefuse(file, '--summary', () => file.text()) };
+    read = { ...form, summaryResult: await readSummaryArgument(form.fileName, context, 'summaryResult') };
+    if ((form.summaryLevels ?? '') !== '') read = { ...read, summaryLevels: await readSummaryArgument(form.summaryLevels ?? '', context, 'summaryLevels') };
   }
   const outcome = evaluateOvbForm(read, fitted?.fileData ?? null);
   if (outcome.problems.length > 0 || !outcome.result) throw new InputError(outcome.problems);
   const origin: OvbDataOrigin = fitted
     ? { kind: 'file', path: form.fileName, data: fitted.data }
     : form.source === 'summary'
-      ? { kind: 'summary', path: form.fileName, n: outcome.regression?.n ?? 0, outcome: form.outcome, treatment: form.treatment, covariates: covariatesOf(form) }
+      ? { kind: 'summary', path: isInlineResult(form.fileName) ? 'the result given to --summary' : form.fileName, n: outcome.regression?.n ?? 0, outcome: form.outcome, treatment: form.treatment, covariates: covariatesOf(form) }
       : { kind: 'reported' };
   return plot ? ovbSvgReport(outcome.result, origin, plot) : ovbCommandReport(outcome.result, origin);
 }

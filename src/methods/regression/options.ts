@@ -1,6 +1,7 @@
 import { DEFAULT_BENCHMARK_MULTIPLES } from '../../core/ovbAnalysis';
 import { InputError, inputProblem } from '../../core/inputProblem';
 import { NUMBER_READING_RULE } from '../../data/numberText';
+import { SUMMARY_ARGUMENT_RULE } from '../summaryArgument';
 import type { OptionSpec, OptionValues } from '../methodModule';
 import { emptyOvbForm, type CovariateR2Text, type CovariateTText, type OvbFormInputs } from './request';
 
@@ -20,6 +21,7 @@ export const OVB_OPTIONS: Readonly<Record<string, OptionSpec>> = {
   treatment: { type: 'string' },
   covariates: { type: 'string' },
   categorical: { type: 'string' },
+  levels: { type: 'string' },
   benchmark: { type: 'string' },
   k: { type: 'string' },
   q: { type: 'string' },
@@ -41,12 +43,19 @@ From raw data (a CSV; read in chunks, so the file may be larger than memory):
   lurk ovb --file F --outcome COL --treatment COL [--covariates a,b,...] [--categorical c,...]
 From summary statistics computed in your own database:
   lurk ovb --sql TABLE --outcome COL --treatment COL --covariates a,b,...   prints the query to run
-  lurk ovb --summary RESULT --outcome COL --treatment COL --covariates a,b,...
-      RESULT: the query's one result row, as CSV (header and one row) or as a JSON object
+  lurk ovb --summary ROW --outcome COL --treatment COL --covariates a,b,...
+      ROW: the query's one result row.
+      ${SUMMARY_ARGUMENT_RULE.replace(/\n/g, '\n      ')}
+  Categorical covariates (--categorical c,...): --sql first prints a query for their levels; run it and give
+  its rows to --levels (same rule as ROW; or a JSON object {"c": ["level", ...]}) to print the summary query.
+  Its result carries the levels, so --summary needs no --levels. The first level in character order is the
+  reference, as for a CSV file.
 
 Options:
   --covariates    covariate columns (default: every other column); text columns are dummy-coded
-  --categorical   numeric columns to treat as categories (e.g. a region code)
+  --categorical   numeric columns to treat as categories (e.g. a region code); with --sql/--summary, every
+                  categorical covariate
+  --levels        with --sql: the levels of the categorical covariates (the levels query's result)
   --benchmark     covariates to compare with (default: all), a group as a+b: --benchmark age,income+education
                   (with reported numbers: a choice among the --covariate-t names)
   --covariate-t   with reported numbers: a covariate's t in the outcome regression and, if known, in the
@@ -159,6 +168,8 @@ export function ovbFormFromOptions(values: OptionValues): OvbFormInputs {
     source: 'summary',
     summaryTable: source === 'sql' ? text('sql')!.trim() : '',
     summaryColumns: covariates.join(', '),
+    categorical: text('categorical') ?? '',
+    summaryLevels: text('levels') ?? '',
     fileName: source === 'summary' ? text('summary')! : '',
   }) as OvbFormInputs;
 }
@@ -181,6 +192,7 @@ const FIELD_OPTIONS: [RegExp, string][] = [
   [/^benchmarks\b/, '--benchmark'],
   [/^(file|fileName|rowCount)$/, '--file'],
   [/^summaryResult$/, '--summary'],
+  [/^summaryLevels$/, '--levels'],
   [/^summaryTable$/, '--sql'],
   [/^(estimate|se|df|n|parameters|outcome|treatment|k|q|alpha|direction|r2dz|r2yz)$/, ''],
 ];

@@ -8,6 +8,7 @@ import { fieldReader, type FieldReader } from '../fieldReader';
 import { readCsvText } from '../../data/csv';
 import { crossProductsFromSqlRow, summaryStatisticsSql } from './summaryStatisticsSql';
 import { parseBenchmarkList } from './ovbRegressionData';
+import { categoryLevelsSql, decodeCategoryLevels, encodeCategoryLevels, readCategoryLevels, summaryDesign, type CategoryLevels } from './categoryLevels';
 
 /** Where the regression's numbers come from. */
 export type OvbSource = 'reported' | 'file' | 'summary';
@@ -62,6 +63,8 @@ export interface OvbFormInputs {
   readonly summaryTable: string;
   readonly summaryColumns: string;
   readonly summaryResult: string;
+  /** Summary statistics with categorical covariates: the pasted result of the levels query (or {"column": [levels]}). */
+  readonly summaryLevels?: string;
   readonly k: string;
   readonly q: string;
   readonly alpha: string;
@@ -93,6 +96,7 @@ export function emptyOvbForm(): OvbFormInputs {
     summaryTable: '',
     summaryColumns: '',
     summaryResult: '',
+    summaryLevels: '',
     k: '1, 2, 3',
     q: '1',
     alpha: '0.05',
@@ -141,6 +145,7 @@ export function normaliseOvbForm(saved: unknown): OvbFormInputs {
     summaryTable: text('summaryTable'),
     summaryColumns: text('summaryColumns'),
     summaryResult: text('summaryResult'),
+    summaryLevels: asText(s.summaryLevels),
     k: text('k'),
     q: text('q'),
     alpha: text('alpha'),
@@ -243,17 +248,46 @@ export interface FileRegression {
   readonly spec: OvbRegressionSpec;
 }
 
-/** The SQL to run for summary statistics, or a problem naming the missing field. */
-export function ovbSummarySql(form: OvbFormInputs): { sql: string; problem: InputProblem | null } {
+/**
+ * The SQL to run for summary statistics, or a problem naming the missing field. With categorical covariates
+ * and no levels yet, the query that lists their levels (`stage: 'levels'`); with the levels, the summary query
+ * with an indicator for each level but the first (`stage: 'summary'`).
+ */
+export function ovbSummarySql(form: OvbFormInputs): { sql: string; problem: InputProblem | null; stage: 'levels' | 'summary' } {
   const variables = summaryVariables(form);
-  if (form.summaryTable.trim() === '') return { sql: '', problem: inputProblem('summaryTable', 'required', 'needs the name of the table (or view) in your database.') };
-  if (!variables) return { sql: '', problem: inputProblem('summaryColumns', 'required', 'name the outcome, the treatment and the covariates.') };
+  const fail = (problem: InputProblem) => ({ sql: '', problem, stage: 'summary' as const });
+  if (form.summaryTable.trim() === '') return fail(inputProblem('summaryTable', 'required', 'needs the name of the table (or view) in your database.'));
+  if (!variables) return fail(inputProblem('summaryColumns', 'required', 'name the outcome, the treatment and the covariates.'));
+  const categorical = categoricalOf(form);
+  const problems: InputProblem[] = [];
+  let levels: CategoryLevels = new Map();
+  if (categorical.length > 0) {
+    const outside = categorical.find((c) => !variables.slice(0, -2).includes(c));
+    if (outside !== undefined) return fail(inputProblem('categorical', 'not-a-covariate', `"${outside}" is not among the covariate columns; only covariates can be categorical here.`, outside));
+    if ((form.summaryLevels ?? '').trim() === '') {
+      try {
+        return { sql: categoryLevelsSql({ table: form.summaryTable, columns: variables, categorical }), problem: null, stage: 'levels' };
+      } catch (error) {
+        if (error instanceof InputError) return fail(error.problems[0]);
+        throw error;
+      }
+    }
+    levels = collect(problems, () => readCategoryLevels(form.summaryLevels ?? '', categorical)) ?? levels;
+    if (problems.length > 0) return fail(problems[0]);
+  }
+  const design = summaryDesign(variables.slice(0, -2), variables[variables.length - 2], variables[variables.length - 1], levels);
   try {
-    return { sql: summaryStatisticsSql({ table: form.summaryTable.trim().split('.'), variables: variables.map((column) => ({ column })) }), problem: null };
+    const sql = summaryStatisticsSql({ table: form.summaryTable.trim(), variables: design.variables, ...(levels.size > 0 ? { levels: encodeCategoryLevels(levels) } : {}) });
+    return { sql, problem: null, stage: 'summary' };
   } catch (error) {
-    if (error instanceof InputError) return { sql: '', problem: { ...error.problems[0], field: 'summaryColumns' } };
+    if (error instanceof InputError) return fail({ ...error.problems[0], field: 'summaryColumns' });
     throw error;
   }
+}
+
+/** The categorical columns named in the form (commas between). */
+function categoricalOf(form: OvbFormInputs): string[] {
+  return form.categorical.split(',').map((s) => s.trim()).filter((s) => s !== '');
 }
 
 /** Covariates…, treatment, outcome: the order of the summary query's variables. */
@@ -279,16 +313,35 @@ function summaryRegression(form: OvbFormInputs, problems: InputProblem[]): OvbRe
   }
   const row = collect(problems, () => parseSummaryRow(form.summaryResult));
   if (!row) return null;
-  const design = collect(problems, () => designFromCrossProducts(crossProductsFromSqlRow(row, variables.map((column) => ({ column })))));
+  const levels = summaryLevelsOf(form, row, problems);
+  if (!levels) return null;
+  const layout = summaryDesign(variables.slice(0, -2), form.treatment.trim(), form.outcome.trim(), levels);
+  const names = layout.variables.map((v) => ('level' in v ? `${v.column}=${v.level}` : v.column));
+  const input = collect(problems, () => crossProductsFromSqlRow(row, layout.variables), (p) => resultColumnProblem(p));
+  if (!input) return null;
+  if (!(Number.isInteger(input.rowCount) && input.rowCount >= 2)) {
+    problems.push(inputProblem('summaryResult', 'not-a-count', `column n must be a whole number of rows, at least 2; got ${input.rowCount}.`, input.rowCount));
+    return null;
+  }
+  if (input.kind === 'covariance') {
+    input.covariance.forEach((r, i) => {
+      if (!(r[i] > 0)) {
+        problems.push(
+          inputProblem('summaryResult', r[i] === 0 ? 'no-variation' : 'negative-variance', `column c_${i + 1}_${i + 1}: "${names[i]}" has ${r[i] === 0 ? 'no variation (a variance of 0)' : 'a negative variance'} in the rows used, so its effect cannot be estimated.`, r[i]),
+        );
+      }
+    });
+    if (problems.length > 0) return null;
+  }
+  const design = collect(problems, () => designFromCrossProducts(input), (p) => resultColumnProblem(p));
   if (!design) return null;
-  const covariates = variables.slice(0, -2);
   return collect(
     problems,
     () =>
     ovbRegressionSummary(design, {
       outcome: form.outcome.trim(),
       treatment: form.treatment.trim(),
-      covariates: covariates.map((c) => ({ name: c, designColumns: [c] })),
+      covariates: layout.covariates,
       intercept: INTERCEPT_NAME,
       ...benchmarkGroups(form),
     }),
@@ -296,12 +349,66 @@ function summaryRegression(form: OvbFormInputs, problems: InputProblem[]): OvbRe
   );
 }
 
+/**
+ * A problem of the pasted result (a result column, or the design made from it) as a problem of the paste box,
+ * its message naming the result column: `m_2`, `rowCount` → n, `covariance[0][1]` → c_1_2, `means[1]` → m_2.
+ */
+function resultColumnProblem(p: InputProblem): InputProblem {
+  const column = (text: string) => ({ ...p, field: 'summaryResult', message: `column ${text} ${p.message}` });
+  if (/^(n|[mdsc]_\d+(_\d+)?)$/.test(p.field)) return column(p.field);
+  if (p.field === 'rowCount') return column('n');
+  const cell = /^(?:covariance|crossProducts)\[(\d+)\]\[(\d+)\]$/.exec(p.field);
+  if (cell) {
+    const [i, j] = [Number(cell[1]), Number(cell[2])].sort((x, y) => x - y);
+    return column(`c_${i + 1}_${j + 1}`);
+  }
+  const mean = /^(?:means|sums)\[(\d+)\]$/.exec(p.field);
+  if (mean) return column(`m_${Number(mean[1]) + 1}`);
+  if (p.field === 'summary' || p.field === 'covariance' || p.field === 'crossProducts') return { ...p, field: 'summaryResult', message: p.field === 'summary' ? p.message : `the sums of products ${p.message}` };
+  return p;
+}
+
+/**
+ * The levels of the categorical covariates: from the result's `lurk_levels` when the query wrote them, else from
+ * the pasted levels; they must agree when both are given. Null (with a problem) when they cannot be had.
+ */
+function summaryLevelsOf(form: OvbFormInputs, row: Record<string, unknown>, problems: InputProblem[]): CategoryLevels | null {
+  const categorical = categoricalOf(form);
+  const written = typeof row.lurk_levels === 'string' ? decodeCategoryLevels(row.lurk_levels) : null;
+  if (typeof row.lurk_levels === 'string' && !written) {
+    problems.push(inputProblem('summaryResult', 'bad-levels', 'column lurk_levels is not as the query wrote it (run the whole query unchanged).'));
+    return null;
+  }
+  const pasted = (form.summaryLevels ?? '').trim() !== '' ? collect(problems, () => readCategoryLevels(form.summaryLevels ?? '', categorical)) : new Map<string, string[]>();
+  if (!pasted) return null;
+  if (written) {
+    const same = (a: CategoryLevels, b: CategoryLevels) => [...a].every(([c, l]) => (b.get(c) ?? []).join('\u0000') === l.join('\u0000')) && a.size === b.size;
+    const extra = [...written.keys()].find((c) => !categorical.includes(c));
+    if (extra !== undefined || categorical.some((c) => !written.has(c))) {
+      problems.push(inputProblem('categorical', 'other-levels', `must name the categorical columns of the query that made the result (${[...written.keys()].join(', ') || 'none'}).`));
+      return null;
+    }
+    if (pasted.size > 0 && !same(written, pasted)) {
+      problems.push(inputProblem('summaryLevels', 'other-levels', 'differ from the levels the summary query was printed with; print the query again.'));
+      return null;
+    }
+    return written;
+  }
+  if (categorical.length > 0 && pasted.size === 0) {
+    problems.push(inputProblem('summaryLevels', 'required', 'paste the result of the levels query (the summary query needs the levels of the categorical columns).'));
+    return null;
+  }
+  return pasted;
+}
+
 /** The query's result row, pasted: a JSON object, or CSV text with a header row and one data row. */
 export function parseSummaryRow(text: string): Record<string, unknown> {
   const trimmed = text.replace(/^\uFEFF/, '').trim();
-  if (trimmed.startsWith('{')) {
+  if (trimmed.startsWith('{') || trimmed.startsWith('[')) {
     try {
-      const parsed = JSON.parse(trimmed) as unknown;
+      let parsed = JSON.parse(trimmed) as unknown;
+      // A driver's or a database shell's JSON output: an array holding the one row.
+      if (Array.isArray(parsed) && parsed.length === 1) parsed = parsed[0];
       if (parsed && typeof parsed === 'object' && !Array.isArray(parsed)) return parsed as Record<string, unknown>;
     } catch {
       // reported below

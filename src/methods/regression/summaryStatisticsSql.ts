@@ -13,6 +13,8 @@ export interface SummarySqlSpec {
   readonly table: string | readonly string[];
   /** The variables, in design order (e.g. covariates…, treatment, outcome). */
   readonly variables: readonly SummaryVariable[];
+  /** The categorical columns' levels as one text (see categoryLevels.ts), returned as `lurk_levels` so that the result describes itself. */
+  readonly levels?: string;
 }
 
 /** Name of a variable as the design calls it: the column, or `column=level` for an indicator. */
@@ -88,6 +90,7 @@ export function summaryStatisticsSql(spec: SummarySqlSpec): string {
   lines.push(')');
   lines.push('SELECT');
   const select: string[] = [`  ${quoteSqlString(REGRESSION_QUERY_MARK)} AS lurk_query`, '  MIN(means.n) AS n'];
+  if (spec.levels) select.push(`  ${quoteSqlString(spec.levels)} AS lurk_levels`);
   for (let i = 1; i <= k; i++) select.push(`  MIN(means.m_${i}) AS m_${i}`);
   for (let i = 1; i <= k; i++) select.push(`  SUM(v_${i} - means.m_${i}) AS d_${i}`);
   for (let i = 1; i <= k; i++) {
@@ -106,7 +109,8 @@ function tableParts(text: string): string[] {
 
 function variableExpression(v: SummaryVariable): string {
   const column = quoteSqlIdentifier(v.column);
-  if ('level' in v) return `CASE WHEN ${column} = ${quoteSqlString(v.level)} THEN 1.0 ELSE 0.0 END`;
+  // Compared as text, as the levels query lists them (so a numeric code compares the same on every engine).
+  if ('level' in v) return `CASE WHEN CAST(${column} AS VARCHAR) = ${quoteSqlString(v.level)} THEN 1.0 ELSE 0.0 END`;
   return `CAST(${column} AS DOUBLE PRECISION)`;
 }
 

@@ -107,7 +107,9 @@ describe('the regression form', () => {
     expect(twice.problems.map((p) => `${p.field}:${p.code}`)).toEqual(['summaryColumns:chosen-twice']);
     const missing = evaluateOvbForm({ ...f, summaryResult: '{"n": 10}' }, null);
     // The centred summary query's first per-variable column is m_1 (the mean).
-    expect(missing.problems[0].field).toBe('m_1');
+    // A problem of the pasted result is the paste box's, and its message names the result column.
+    expect(missing.problems[0].field).toBe('summaryResult');
+    expect(missing.problems[0].message).toMatch(/^column m_1 is missing/);
   });
 
   it('completes saved inputs from older or partial objects, keeping what was typed', () => {

@@ -54,7 +54,7 @@ describe('summaryStatisticsSql', () => {
     const sql = summaryStatisticsSql({ table: ['research', 'visits'], variables: [{ column: 'dose' }, { column: 'site', level: 'b' }] });
     expect(sql).toContain('COUNT(*) AS n');
     expect(sql).toContain('CAST("dose" AS DOUBLE PRECISION) AS v_1');
-    expect(sql).toContain(`CASE WHEN "site" = 'b' THEN 1.0 ELSE 0.0 END AS v_2`);
+    expect(sql).toContain(`CASE WHEN CAST("site" AS VARCHAR) = 'b' THEN 1.0 ELSE 0.0 END AS v_2`);
     expect(sql).toContain('AVG(v_1) AS m_1');
     expect(sql).toContain('SUM(v_1 - means.m_1) AS d_1');
     expect(sql).toContain('SUM((v_1 - means.m_1) * (v_2 - means.m_2)) AS c_1_2');
