@@ -45,3 +45,4 @@ export * from './weightingBounds';
 export * from './weightingPreparation';
 export * from './weightingBootstrap';
 export * from './weightingAnalysis';
+export * from './logisticStandardErrors';
