@@ -39,7 +39,8 @@ if (threads && !threads.isMainThread && (threads.workerData as ThreadTask | null
 export async function bootstrapInThreads(prepared: PreparedWeighting, threadCount = 2, moduleUrl: URL = new URL(import.meta.url)): Promise<BootstrapChunk[]> {
   const parts = splitBootstrap(prepared.bootstrap, threadCount);
   const wt = workerThreads();
-  if (wt === null || parts.length <= 1) return parts.map((request) => runBootstrapChunk(prepared, request));
+  // Without worker threads, with one part, or run from the TypeScript sources (tests), the parts run here.
+  if (wt === null || parts.length <= 1 || moduleUrl.pathname.endsWith('.ts')) return parts.map((request) => runBootstrapChunk(prepared, request));
   const started: NodeWorker[] = [];
   try {
     return await Promise.all(
