@@ -8,3 +8,4 @@ export { LurkBatch } from './lurk-batch';
 export { LurkApp } from './lurk-app';
 export { LurkPairs } from './lurk-pairs';
 export { LurkOvb } from './lurk-ovb';
+export { LurkWeighting } from './lurk-weighting';

@@ -54,7 +54,7 @@ export async function readWeightingFileColumns(file: Blob & { name: string }): P
 /** Guesses the treatment and outcome columns from a header ("treat…", "outcome"/"y"-like names). */
 export function guessWeightingColumns(columns: readonly string[]): { treatment: string; outcome: string } {
   const find = (pattern: RegExp) => columns.find((c) => pattern.test(c.trim())) ?? '';
-  return { treatment: find(/^(treat|treated|treatment|exposed|exposure|am)$|treat/i), outcome: find(/^(outcome|y|response|mpg)$|outcome/i) };
+  return { treatment: find(/^(treat|treated|treatment|exposed|exposure)$|treat/i), outcome: find(/^(outcome|y|response)$|outcome/i) };
 }
 
 /**
