@@ -45,4 +45,3 @@ export * from './weightingBounds';
 export * from './weightingPreparation';
 export * from './weightingBootstrap';
 export * from './weightingAnalysis';
-export * from './logisticStandardErrors';

@@ -1,5 +1,4 @@
 import { InputError, inputProblem } from '../../core/inputProblem';
-import { logisticStandardErrors } from '../../core/logisticStandardErrors';
 import { runBootstrapChunk, type BootstrapChunk } from '../../core/weightingBootstrap';
 import { finishWeighting, type WeightingResult } from '../../core/weightingAnalysis';
 import { prepareWeighting, type PreparedWeighting } from '../../core/weightingPreparation';
@@ -35,9 +34,14 @@ export function prepareFromRead(settings: WeightingSettings, read: WeightingRead
   }
 }
 
-/** The result and the standard errors from a prepared analysis and its bootstrap chunks (any split). */
-export function finishAnalysis(prepared: PreparedWeighting, chunks: readonly BootstrapChunk[]): WeightingAnalysis {
+/**
+ * The result and the standard errors from a prepared analysis and its bootstrap chunks (any split). The
+ * standard errors' module (and mathjs, which takes seconds to load) is imported only here, so that starting
+ * the command line or the page does not wait for it.
+ */
+export async function finishAnalysis(prepared: PreparedWeighting, chunks: readonly BootstrapChunk[]): Promise<WeightingAnalysis> {
   const result = finishWeighting(prepared, chunks);
+  const { logisticStandardErrors } = await import('../../core/logisticStandardErrors');
   const standardErrors = Object.freeze(logisticStandardErrors(prepared.design, prepared.columnCount, prepared.propensities));
   return Object.freeze({ result, standardErrors });
 }

@@ -96,7 +96,7 @@ export async function runWeightingCommand(form: WeightingFormInputs, _values: Op
   // Node-only code, loaded only here: the page never reaches it.
   const { bootstrapInThreads } = await import('./weightingThreads');
   const chunks = await bootstrapInThreads(prepared, 2);
-  return weightingReport(finishAnalysis(prepared, chunks), read.summary);
+  return weightingReport(await finishAnalysis(prepared, chunks), read.summary);
 }
 
 /** The weighting method: sensitivity of an inverse-probability-weighted estimate (marginal sensitivity model). */

@@ -104,5 +104,5 @@ export async function analyseWeightingStream(source: ByteSource, settings: Weigh
   if (settings.problems.length > 0) throw new InputError(settings.problems);
   const read = await readWeightingColumns(source, settings.columns);
   const prepared = prepareFromRead(settings, read);
-  return { analysis: finishAnalysis(prepared, bootstrapInPieces(prepared)!), read: read.summary };
+  return { analysis: await finishAnalysis(prepared, bootstrapInPieces(prepared)!), read: read.summary };
 }

@@ -54,7 +54,7 @@ self.onmessage = async (event: MessageEvent<WeightingWorkerRequest>) => {
         report(done === prepared.bootstrap);
       },
     })!;
-    post({ type: 'done', analysis: finishAnalysis(prepared, chunks), read: read.summary });
+    post({ type: 'done', analysis: await finishAnalysis(prepared, chunks), read: read.summary });
   } catch (error) {
     post(endReplyFor(error));
   }
