@@ -7,6 +7,9 @@ import { parseNumberText } from '../../data/numberText';
 import { printable } from '../../data/printable';
 import type { WeightingColumns, WeightingSettings } from './request';
 
+/** A text covariate with more levels than this is refused (likely an identifier; common practice, no source). */
+export const MAX_LEVELS = 100;
+
 /** What was read from a file, without the numbers: rows, columns used, coding and the reader's notes. */
 export interface WeightingReadSummary {
   readonly rowsRead: number;
@@ -152,6 +155,19 @@ export async function readWeightingColumns(
     covariates.map((c) => c.raw()),
     columns.categorical.filter((c) => covariateNames.includes(c)),
   );
+  const tooMany = coding.codings.filter((c) => c.levels.length > MAX_LEVELS);
+  if (tooMany.length > 0) {
+    throw new InputError(
+      tooMany.map((c) =>
+        inputProblem(
+          'covariates',
+          'too-many-levels',
+          `"${printable(c.column)}" has ${c.levels.length.toLocaleString('en')} different text values (more than ${MAX_LEVELS}); is it an identifier? Leave it out of the covariates or code it numerically`,
+          c.column,
+        ),
+      ),
+    );
+  }
   const badTreatment = treatmentValues.map((v) => (v === 0 || v === 1 ? v : NaN));
   return {
     data: {

@@ -75,6 +75,11 @@ describe('reading the columns of a file', () => {
     ]);
     expect(problems[0].message).toContain('first at data row 2: "yes"');
   });
+  test('a text covariate with more than 100 levels is refused as a likely identifier', async () => {
+    const rows = Array.from({ length: 120 }, (_, i) => `${i % 2},${i},id${i}`).join('\n');
+    const problems = await thrownProblems(() => readWeightingColumns(textSource(`t,y,name\n${rows}\n`), { treatment: 't', outcome: 'y', covariates: [], categorical: [] }));
+    expect(problems).toMatchObject([{ field: 'covariates', code: 'too-many-levels', value: 'name' }]);
+  });
   test('unknown columns are named', async () => {
     const problems = await thrownProblems(() => readWeightingColumns(textSource('t,y\n1,2\n'), { treatment: 'T', outcome: 'y', covariates: ['q'], categorical: [] }));
     expect(problems.map((p) => p.field)).toEqual(['treatment', 'covariates']);
