@@ -199,7 +199,7 @@ describe('accessibility and layout', () => {
       } finally {
         await session.close();
       }
-    });
+    }, 120_000);
   }
 
   it('reaches every tab by keyboard with a visible focus', async () => {
