@@ -26,8 +26,10 @@ const upload = () => userEvent.upload(page.getByLabelText('CSV file', { exact: t
 
 describe('<lurk-weighting>', () => {
   it('loads a fictional CSV, shows the worker\'s progress, then the bounds, the model and three plots', async () => {
-    await userEvent.fill(page.getByLabelText('Bootstrap resamples'), '40');
     await upload();
+    // The file starts a run with the default 1,000 resamples; a new setting replaces it.
+    await until(() => shadow().querySelector('#weighting-progress') !== null);
+    await userEvent.fill(page.getByLabelText('Bootstrap resamples'), '40');
     let sawProgress = false;
     await until(() => {
       if (shadow().querySelector('#weighting-progress')) sawProgress = true;
