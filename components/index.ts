@@ -9,3 +9,4 @@ export { LurkApp } from './lurk-app';
 export { LurkPairs } from './lurk-pairs';
 export { LurkSets } from './lurk-sets';
 export { LurkOvb } from './lurk-ovb';
+export { LurkWeighting } from './lurk-weighting';

@@ -2,8 +2,10 @@
 // Entry point of the `lurk` command (built to dist/cli/lurk.js on install).
 import { runLurk } from './main';
 import { processIo } from './cliIo';
+import { isMainThread } from 'node:worker_threads';
 
-runLurk(process.argv.slice(2), processIo()).then(
+// A worker thread started from the bundle (the weighting bootstrap) loads it for its own task only.
+if (isMainThread) runLurk(process.argv.slice(2), processIo()).then(
   (code) => {
     process.exitCode = code;
   },

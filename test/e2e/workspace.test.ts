@@ -183,7 +183,7 @@ describe('accessibility and layout', () => {
         await page.locator('lurk-evalue').waitFor();
         await expect.poll(() => page.locator('#evalue-estimate').textContent()).toBe('2.12');
         await page.addScriptTag({ content: axeSource });
-        const views = ['Reported estimate', 'Matched pairs', 'Matched sets', 'Regression', 'Robustness statement', 'Bottom line', 'Many findings'];
+        const views = ['Reported estimate', 'Matched pairs', 'Matched sets', 'Regression', 'Weighting', 'Robustness statement', 'Bottom line', 'Many findings'];
         for (const view of views) {
           await page.getByRole('tab', { name: view }).click();
           const violations = await page.evaluate(async () => {
@@ -199,7 +199,7 @@ describe('accessibility and layout', () => {
       } finally {
         await session.close();
       }
-    });
+    }, 120_000);
   }
 
   it('reaches every tab by keyboard with a visible focus', async () => {

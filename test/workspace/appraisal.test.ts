@@ -50,7 +50,7 @@ describe('appraisal files', () => {
   it('ships a JSON Schema that requires the same top-level fields', () => {
     expect(schema.required).toEqual(['format', 'version', 'savedAt', 'study', 'calculators']);
     expect(Object.keys(schema.properties.study.properties)).toEqual(['finding', 'exposure', 'outcome', 'units', 'source']);
-    expect(Object.keys(schema.properties.calculators.properties)).toEqual(['evalue', 'pairs', 'sets', 'regression']);
+    expect(Object.keys(schema.properties.calculators.properties)).toEqual(['evalue', 'pairs', 'sets', 'regression', 'weighting']);
   });
 });
 
