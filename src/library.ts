@@ -45,6 +45,11 @@ export { regressionDataFromText, accumulateRegressionFromStream, type Regression
 export { summaryStatisticsSql, crossProductsFromSqlRow } from './methods/regression/summaryStatisticsSql';
 export { regressionMethod } from './methods/regression/method';
 
+// Weighting (marginal sensitivity model): request reader, runner (a Web Worker on the page), module.
+export { emptyWeightingForm, normaliseWeightingForm, readWeightingSettings, type WeightingFormInputs } from './methods/weighting/request';
+export { planWeighting, runWeightingPlan, analyseWeightingStream } from './methods/weighting/runner';
+export { weightingMethod } from './methods/weighting/method';
+
 // The workspace.
 export { createAppraisal, readAppraisal, type Appraisal } from './workspace/appraisal';
 export { encodeShareFragment, decodeShareFragment } from './workspace/shareLink';
