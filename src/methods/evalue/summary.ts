@@ -1,6 +1,7 @@
 import type { EValueResult } from '../../core/eValueAnalysis';
 import type { ReferenceConfounderAssessment } from '../../core/referenceConfounder';
 import type { RiskRatioConversion } from '../../core/riskRatioScale';
+import { readConventions, type SummaryConvention } from '../summaryConventions';
 import type { EValueFormOutcome } from './request';
 
 /** A reference confounder in the summary: its strengths and what it could do. */
@@ -39,17 +40,6 @@ export type EValueSummary = {
   /** The numbers as the user typed them (estimate, limits, target), to echo with the precision typed. */
   readonly typed?: { readonly estimate: string; readonly lower: string; readonly upper: string; readonly target: string };
 };
-
-/** A convention as kept in a summary: its id and its text. */
-export type SummaryConvention = { readonly id: string; readonly text: string };
-
-/** Conventions read back from a file: each {id, text} of strings; anything else is left out. */
-export function readConventions(value: unknown): SummaryConvention[] {
-  if (!Array.isArray(value)) return [];
-  return value
-    .filter((c): c is Record<string, unknown> => c !== null && typeof c === 'object' && typeof (c as Record<string, unknown>).id === 'string' && typeof (c as Record<string, unknown>).text === 'string')
-    .map((c) => ({ id: c.id as string, text: c.text as string }));
-}
 
 /** The summary of a result and its assessed reference confounders. */
 export function eValueSummary(

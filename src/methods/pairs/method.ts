@@ -23,6 +23,7 @@ const OPTIONS = {
   alternative: { type: 'string' },
   method: { type: 'string' },
   'continuity-correction': { type: 'boolean' },
+  zeros: { type: 'string' },
 } as const;
 
 /** Form fields (and the fields of the readers' problems) → the option that holds them. */
@@ -46,6 +47,8 @@ const OPTION_OF: Readonly<Record<string, string>> = {
   alpha: '--alpha',
   gammas: '--gamma',
   continuityCorrection: '--continuity-correction',
+  zeros: '--zeros',
+  zeroRule: '--zeros',
 };
 
 /** The option a form field stands for: `gammas[1]` → `--gamma`, `data.controlOnly` → `--file`, … */
@@ -107,6 +110,7 @@ export function pairsFormFromOptions(values: OptionValues): PairsFormInputs {
     gammas: text(values.gamma),
     method: text(values.method),
     continuityCorrection: values['continuity-correction'] === true,
+    zeros: text(values.zeros),
   });
 }
 

@@ -13,6 +13,8 @@ export const PAIRS_TESTS = ['signrank', 'sign'] as const;
 export const PAIRS_ALTERNATIVES = ['greater', 'less'] as const;
 export const PAIRS_TAIL_METHODS = ['auto', 'exact', 'normal'] as const;
 export const PAIRS_OUTCOME_TYPES = ['auto', 'numeric', 'binary'] as const;
+/** How the signed-rank test treats zero differences: Wilcoxon's rule (left out) or Pratt's (ranked, scored 0). */
+export const PAIRS_ZERO_RULES = ['wilcoxon', 'pratt'] as const;
 
 /**
  * Everything the matched-pairs form holds, as the user typed it (text, never parsed numbers), so nothing is
@@ -44,6 +46,8 @@ export interface PairsFormInputs {
   readonly method: string;
   /** The ½ continuity correction of the normal approximation. */
   readonly continuityCorrection: boolean;
+  /** Zero differences in the signed-rank test: `wilcoxon` (left out; the default when empty) or `pratt`. */
+  readonly zeros: string;
 }
 
 export function emptyPairsForm(): PairsFormInputs {
@@ -64,6 +68,7 @@ export function emptyPairsForm(): PairsFormInputs {
     gammas: '',
     method: 'auto',
     continuityCorrection: false,
+    zeros: 'wilcoxon',
   });
 }
 
@@ -102,6 +107,7 @@ export function normalisePairsForm(saved: unknown): PairsFormInputs {
     gammas: text('gammas'),
     method: pick('method', PAIRS_TAIL_METHODS),
     continuityCorrection: s.continuityCorrection === true,
+    zeros: pick('zeros', PAIRS_ZERO_RULES),
   });
 }
 
@@ -137,6 +143,7 @@ export interface PairsSettings {
   readonly alpha?: number;
   readonly gammas?: number[];
   readonly continuityCorrection: boolean;
+  readonly zeroRule?: 'wilcoxon' | 'pratt';
   readonly problems: InputProblem[];
 }
 
@@ -153,7 +160,8 @@ export function readPairsSettings(form: PairsFormInputs): PairsSettings {
   const outcome = reader.choice('outcomeType', form.outcomeType, PAIRS_OUTCOME_TYPES) ?? undefined;
   const alpha = reader.number('alpha', form.alpha, 'fraction') ?? undefined;
   const gammas = reader.numberList('gammas', form.gammas, 'decimal') ?? undefined;
-  return { test, alternative, method, outcome, alpha, gammas, continuityCorrection: form.continuityCorrection === true, problems: reader.problems };
+  const zeroRule = reader.choice('zeros', form.zeros ?? '', PAIRS_ZERO_RULES) ?? undefined;
+  return { test, alternative, method, outcome, alpha, gammas, continuityCorrection: form.continuityCorrection === true, zeroRule, problems: reader.problems };
 }
 
 /** α and the Γ list as typed, with problems named by the form's fields (see {@link readPairsSettings}). */
@@ -194,6 +202,7 @@ export function pairsInputFromForm(form: PairsFormInputs, read: PairsRead | null
     gammas: options.gammas,
     method: options.method,
     continuityCorrection: options.continuityCorrection,
+    ...(options.zeroRule ? { zeroRule: options.zeroRule } : {}),
     droppedRows: used?.droppedRows ?? 0,
   };
   const field = form.source === 'pasted' ? 'pasted' : form.source === 'file' ? 'file' : 'treatedOnly';
