@@ -34,7 +34,8 @@ describe('omitted-variable-bias text', () => {
     expect(ovbGoalText(1)).toBe('bring the estimate to zero');
     expect(ovbGoalText(0.5)).toBe('reduce the estimate by 50%');
     expect(ovbGoalText(1.5)).toBe('push the estimate past zero, to -0.5 times itself');
-    expect(ovbReading(analyseOvb({ estimate: 1, se: 1, df: 30 })).join(' ')).toMatch(/not statistically significant at the 5% level even without confounding/);
+    // Not significant before adjustment: said first, in plain words (t = 1 < t*(29) = 2.045, qt(0.975, 29) in base R).
+    expect(ovbReading(analyseOvb({ estimate: 1, se: 1, df: 30 }))[0]).toMatch(/^Even before any adjustment for hidden confounding, the estimate is not statistically significant at the 5% level \(t = 1\.00, threshold 2\.05\)/);
     expect(ovbReading(analyseOvb({ estimate: 1, se: 0.2, df: 30, direction: 'away-from-zero' })).join(' ')).toMatch(/away from zero/);
     expect(plainNumber(0.05)).toBe('0.05');
     expect(plainNumber(2)).toBe('2');
