@@ -1,6 +1,7 @@
 import { html, nothing, type TemplateResult } from 'lit';
 import { MEASURE_LABELS, describeEValue, describeReferenceConfounder, formatEValue, formatLevel, formatMeasureValue, formatPlain } from '../../src/methods/evalue/text';
 import type { EValueView } from './view';
+import { conventionsBlock } from '../conventionsBlock';
 import '../lurk-plot';
 
 /** The E-value calculator's results: the two E-values, the scale line, the readings, warnings, comparisons and plot. */
@@ -16,7 +17,7 @@ export function eValueResults(v: EValueView): TemplateResult {
           : 'Enter an estimate to see its E-values.'}
     </p>`;
   }
-  const reading = describeEValue(result, v.study);
+  const reading = describeEValue(result, v.study, v.form.target);
   const units = v.study.units;
   const own = (x: number) => formatMeasureValue(x, result.measure, units);
   const rr = result.riskRatioScale;
@@ -51,9 +52,15 @@ export function eValueResults(v: EValueView): TemplateResult {
         : `; target ${own(result.target)}`}.
       <span class="hint">${result.conversion.note}</span>
     </p>
-    <p class="headline" id="reading-estimate">${reading.estimate}</p>
-    ${reading.interval ? html`<p id="reading-interval">${reading.interval}</p>` : nothing}
+    ${reading.sentences.map((s, i) =>
+      s === reading.estimate
+        ? html`<p class=${i === 0 ? 'headline' : ''} id="reading-estimate">${s}</p>`
+        : s === reading.interval
+          ? html`<p class=${i === 0 ? 'headline' : ''} id="reading-interval">${s}</p>`
+          : html`<p>${s}</p>`,
+    )}
     ${result.warnings.map((w) => html`<p class="warning" role="note">${w}</p>`)}
+    ${conventionsBlock(result.conventions)}
     <p class="caution" role="note">${reading.caution}</p>
     ${confounders.length > 0
       ? html`<h3>Compared with the reference confounders</h3>

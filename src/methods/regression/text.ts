@@ -69,14 +69,32 @@ export function benchmarkSentence(result: OvbResult, row: OvbBenchmarkRow): stri
  * significant before any adjustment, that comes first.
  */
 export function ovbReading(result: OvbResult, study?: Partial<StudyLabels>): string[] {
+  const parts = ovbReadingParts(result, study);
+  return [...(parts.notSignificant ? [parts.notSignificant] : []), parts.estimate, parts.headline, ...parts.comparison];
+}
+
+/** The reading in its parts, for a page that lays them out: see {@link ovbReading} for the order. */
+export interface OvbReadingParts {
+  /** Said first when the estimate is not significant before any adjustment; else null. */
+  readonly notSignificant: string | null;
+  /** The estimate, its SE, t, df and partial R². */
+  readonly estimate: string;
+  /** How strong a confounder would have to be (the robustness values). */
+  readonly headline: string;
+  /** The strongest measured covariate and what a confounder like it would do. */
+  readonly comparison: readonly string[];
+}
+
+export function ovbReadingParts(result: OvbResult, study?: Partial<StudyLabels>): OvbReadingParts {
   const exposure = exposureLabel(study);
   const outcome = outcomeLabel(study);
   const sentences: string[] = [];
   const level = levelText(result.alpha);
   const significant = significantBeforeAdjustment(result);
+  let notSignificant: string | null = null;
   if (!significant) {
-    sentences.push(
-      `Even before any adjustment for hidden confounding, the estimate is not statistically significant at the ${level} level (t = ${formatNumber(result.t, { digits: 2 })}, threshold ${formatNumber(result.criticalT, { digits: 2 })}): the data are compatible with no effect of ${exposure} on ${outcome}.`,
+    notSignificant = (
+      `Even before any adjustment for hidden confounding, the estimate is not statistically significant at the ${level} level (t = ${formatNumber(result.t, { digits: 2 })}, threshold ${formatNumber(result.criticalT, { digits: 2 })}): the data are compatible with no effect of ${exposure} on ${outcome}.`
     );
   }
   sentences.push(
@@ -105,7 +123,8 @@ export function ovbReading(result: OvbResult, study?: Partial<StudyLabels>): str
     if (flips) sentences.push(benchmarkSentence(result, flips));
     else if (bounds.length > 0) sentences.push(benchmarkSentence(result, bounds[bounds.length - 1]));
   }
-  return sentences;
+  const [estimate, headline, ...comparison] = sentences;
+  return Object.freeze({ notSignificant, estimate, headline, comparison: Object.freeze(comparison) });
 }
 
 /** "as strong as" for k = 1, "2 times as strong as" otherwise; separate multiples named for each side. */
