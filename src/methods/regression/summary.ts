@@ -1,4 +1,5 @@
 import type { OvbResult } from '../../core/ovbAnalysis';
+import { withoutRoundingNoise } from '../../format/formatNumber';
 import { readConventions, summaryConventions, type SummaryConvention } from '../summaryConventions';
 
 /** A benchmark bound that is available, as kept in an appraisal file. */
@@ -64,7 +65,7 @@ export function ovbSummary(result: OvbResult): OvbSummary {
         k: finite(b.k),
         r2dz: finite(b.r2dz),
         r2yz: finite(b.r2yz),
-        correctedEstimate: finite(b.correctedEstimate),
+        correctedEstimate: finite(withoutRoundingNoise(b.correctedEstimate, Math.abs(result.estimate))),
         correctedT: finite(b.correctedT),
         kOutcome: finite(b.kOutcome),
         informative: b.informative,

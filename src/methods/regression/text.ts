@@ -1,5 +1,5 @@
 import type { OvbBenchmarkRow, OvbResult } from '../../core/ovbAnalysis';
-import { formatNumber, formatPercent } from '../../format/formatNumber';
+import { formatNumber, formatPercent, withoutRoundingNoise } from '../../format/formatNumber';
 import { exposureLabel, outcomeLabel, unitsSuffix, type StudyLabels } from '../../format/studyLabels';
 
 /** The caution that goes with every omitted-variable-bias report. */
@@ -48,7 +48,7 @@ function levelText(alpha: number): string {
 export function benchmarkSentence(result: OvbResult, row: OvbBenchmarkRow): string {
   const who = `a confounder ${multipleWords(row)} ${row.covariate}`;
   if (!row.informative) return `For ${who}, this bound is not informative: ${row.reason ?? 'it is not available'}.`;
-  const adjusted = formatNumber(row.correctedEstimate, { significant: 3 });
+  const adjusted = formatNumber(withoutRoundingNoise(row.correctedEstimate, Math.abs(result.estimate)), { significant: 3 });
   if (result.direction === 'toward-zero' && overturned(result, row)) {
     return `${capitalise(who)} would be enough to ${ovbGoalText(result.q)} (adjusted estimate ${adjusted}).`;
   }
@@ -170,7 +170,7 @@ export function ovbReport(result: OvbResult, options: { study?: Partial<StudyLab
     const s = result.scenario;
     lines.push(
       '',
-      `  With R²(D~Z|X) = ${pct(s.r2dz)} and R²(Y~Z|D,X) = ${pct(s.r2yz)}: adjusted estimate ${formatNumber(s.correctedEstimate, {
+      `  With R²(D~Z|X) = ${pct(s.r2dz)} and R²(Y~Z|D,X) = ${pct(s.r2yz)}: adjusted estimate ${formatNumber(withoutRoundingNoise(s.correctedEstimate, Math.abs(result.estimate)), {
         significant: 4,
       })}, SE ${formatNumber(s.correctedSe, { significant: 4 })}, t ${formatNumber(s.correctedT, { digits: 2 })}`,
     );
@@ -185,13 +185,13 @@ export function ovbReport(result: OvbResult, options: { study?: Partial<StudyLab
       b.unavailable !== null
         ? [b.covariate, kCell(b), '—', '—', `not available: ${b.unavailable}`, '', '']
         : !b.informative
-          ? [b.covariate, kCell(b), pct(b.r2dz), `${pct(b.r2yz)} (capped)`, formatNumber(b.correctedEstimate, { significant: 4 }), '—', '—']
+          ? [b.covariate, kCell(b), pct(b.r2dz), `${pct(b.r2yz)} (capped)`, formatNumber(withoutRoundingNoise(b.correctedEstimate, Math.abs(result.estimate)), { significant: 4 }), '—', '—']
           : [
               b.covariate,
               kCell(b),
               pct(b.r2dz),
               pct(b.r2yz),
-              formatNumber(b.correctedEstimate, { significant: 4 }),
+              formatNumber(withoutRoundingNoise(b.correctedEstimate, Math.abs(result.estimate)), { significant: 4 }),
               tShown ? formatNumber(b.correctedSe, { significant: 4 }) : '—',
               tShown ? formatNumber(b.correctedT, { digits: 2 }) : '—',
             ],
