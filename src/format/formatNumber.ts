@@ -46,7 +46,9 @@ export function formatPValue(p: number | null | undefined, missing = NOT_AVAILAB
   if (p === null || p === undefined || !Number.isFinite(p)) return missing;
   if (p < 1e-4) return '< 0.0001';
   if (p > 0.9999) return '> 0.9999';
-  return formatNumber(p, { significant: 3 });
+  const text = formatNumber(p, { significant: 3 });
+  // 0.9996 would round to "1.000", which reads as certainty: keep four decimals there.
+  return Number(text) >= 1 ? p.toFixed(4) : text;
 }
 
 /** A ratio such as an E-value or Γ with a fixed number of decimals (default 2). */

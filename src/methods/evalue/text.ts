@@ -78,7 +78,7 @@ export function describeEValue(result: EValueResult, study?: Partial<StudyLabels
   if (result.direction === 'at-target') {
     estimate = `The estimate already equals ${towards}: no hidden confounding is needed to ${result.targetIsNull ? 'explain it away' : 'reach it'}.`;
   } else if (intervalIncludes) {
-    estimate = `To ${goal} (the point estimate itself), ${strength(result.eValueEstimate)}.`;
+    estimate = `To ${result.targetIsNull ? 'explain away the point estimate itself' : `move the point estimate itself to ${targetShown}`}, ${strength(result.eValueEstimate)}.`;
   } else {
     estimate =
       `To ${goal}, ${strength(result.eValueEstimate)}. ` +

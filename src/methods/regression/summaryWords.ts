@@ -40,6 +40,7 @@ export function summaryBenchmarkOutcome(r: OvbSummary, b: OvbSummaryBenchmark): 
   if (!classical || b.correctedT === null || r.criticalT === null || r.criticalT === undefined) return adjusted;
   const t = formatNumber(b.correctedT, { digits: 2 });
   const threshold = formatNumber(r.criticalT, { digits: 2 });
+  if (!summarySignificant(r)) return `${adjusted} (t = ${t}; the estimate was not significant to begin with)`;
   return Math.abs(b.correctedT) <= r.criticalT
     ? `${adjusted}, with t = ${t}, at or below the ${threshold} needed for significance at α = ${num(r.alpha)}: the estimate would no longer be statistically significant`
     : `${adjusted}, still significant at α = ${num(r.alpha)} (t = ${t}, above ${threshold})`;

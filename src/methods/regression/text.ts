@@ -57,6 +57,9 @@ export function benchmarkSentence(result: OvbResult, row: OvbBenchmarkRow): stri
   }
   const t = formatNumber(row.correctedT, { digits: 2 });
   const threshold = formatNumber(result.criticalT, { digits: 2 });
+  if (!significantBeforeAdjustment(result)) {
+    return `${capitalise(who)} would leave an adjusted estimate of ${adjusted} (t = ${t}); the estimate was not statistically significant at the ${levelText(result.alpha)} level to begin with.`;
+  }
   if (Math.abs(row.correctedT) <= result.criticalT) {
     return `${capitalise(who)} would leave an adjusted estimate of ${adjusted}, but with t = ${t}, at or below the ${threshold} needed at the ${levelText(result.alpha)} level: the estimate would no longer be statistically significant.`;
   }
