@@ -3,7 +3,7 @@ import type { InputProblem } from '../../src/core/inputProblem';
 import type { OvbResult } from '../../src/core/ovbAnalysis';
 import { formatNumber, formatPercent } from '../../src/format/formatNumber';
 import type { StudyLabels } from '../../src/format/studyLabels';
-import { OVB_CAUTION, ovbReadingParts, plainNumber } from '../../src/methods/regression/text';
+import { OVB_CAUTION, notInformativeWords, ovbReadingParts, plainNumber } from '../../src/methods/regression/text';
 import { conventionsBlock } from '../conventionsBlock';
 import type { PlotSpec } from '../../src/plot/plotSpec';
 import type { PlotPointerDetail } from '../lurk-plot';
@@ -121,7 +121,7 @@ function benchmarkTable(result: OvbResult): TemplateResult | typeof nothing {
                     <td>${kCell(b)}</td>
                     <td>${formatPercent(b.r2dz)}</td>
                     <td>${formatPercent(b.r2yz)} (capped)</td>
-                    <td class="unavailable" colspan="3">This bound is not informative: ${b.reason}</td>
+                    <td class="unavailable" colspan="3">This bound is not informative: ${notInformativeWords(b)}</td>
                   </tr>`
                 : html`<tr>
                     <th scope="row">${b.covariate}</th>

@@ -28,8 +28,9 @@ export function ovbBottomLine(r: OvbSummary, study: StudyLabels): BottomLinePart
     if (significant) notChange.push(`Hidden factors accounting for less than ${formatPercent(r.rv)} of each could not remove the regression estimate.`);
     const strongest = summaryStrongest(r);
     if (strongest) {
+      const outcomeWords = summaryBenchmarkOutcome(r, strongest).replace(/^leave an adjusted estimate of /, `change the estimate from ${formatNumber(r.estimate, { significant: 3 })} to `);
       compared.push(
-        `The strongest measured factor, ${strongest.covariate}, accounts for ${formatPercent(strongest.r2dz)} of ${exposure} and ${formatPercent(strongest.r2yz)} of ${outcome} in the same terms; a hidden factor ${summaryMultiple(strongest)} it would ${summaryBenchmarkOutcome(r, strongest).replace(/^leave an adjusted estimate of /, `change the estimate from ${formatNumber(r.estimate, { significant: 3 })} to `)}.`,
+        `The strongest measured factor is ${strongest.covariate}. A hidden factor ${summaryMultiple(strongest)} it would account for ${formatPercent(strongest.r2dz)} of ${exposure} and ${formatPercent(strongest.r2yz)} of ${outcome} in the same terms, and would ${outcomeWords}.`,
       );
     }
   }

@@ -1,5 +1,6 @@
 import type { OvbResult } from '../../core/ovbAnalysis';
 import { withoutRoundingNoise } from '../../format/formatNumber';
+import { notInformativeWords } from './text';
 import { readConventions, summaryConventions, type SummaryConvention } from '../summaryConventions';
 
 /** A benchmark bound that is available, as kept in an appraisal file. */
@@ -69,7 +70,7 @@ export function ovbSummary(result: OvbResult): OvbSummary {
         correctedT: finite(b.correctedT),
         kOutcome: finite(b.kOutcome),
         informative: b.informative,
-        reason: b.reason,
+        reason: b.informative ? null : notInformativeWords(b),
       })),
     criticalT: finite(result.criticalT),
     strongestCovariate: result.strongestCovariate,

@@ -1,5 +1,6 @@
 import { formatNumber, formatPercent } from '../../format/formatNumber';
 import type { OvbSummary, OvbSummaryBenchmark } from './summary';
+import { CAPPED_BOUND_WORDS } from './text';
 
 /**
  * Words shared by the regression's statement paragraph and bottom line, written from its summary so that every
@@ -34,7 +35,7 @@ export function summaryMultiple(b: OvbSummaryBenchmark): string {
  * would": not informative (capped), lose significance (adjusted |t| at or below t*), or stay significant.
  */
 export function summaryBenchmarkOutcome(r: OvbSummary, b: OvbSummaryBenchmark): string {
-  if (b.informative === false) return `give a bound that is not informative: ${b.reason ?? 'the bound reaches 100% of the outcome’s residual variance'}`;
+  if (b.informative === false) return `give a bound that is not informative: ${b.reason ?? CAPPED_BOUND_WORDS}`;
   const adjusted = `leave an adjusted estimate of ${num(b.correctedEstimate)}`;
   const classical = (r.seKind ?? 'classical') === 'classical';
   if (!classical || b.correctedT === null || r.criticalT === null || r.criticalT === undefined) return adjusted;

@@ -31,6 +31,16 @@ export function strongestBenchmark(result: Pick<OvbResult, 'benchmarks' | 'stron
   return rows.find((b) => b.kTreatment === 1 && b.kOutcome === 1) ?? rows[0] ?? null;
 }
 
+/** Why a capped bound says nothing, in words a reader can use (no "standard error 0, t not available"). */
+export const CAPPED_BOUND_WORDS =
+  'a confounder this strong could account for all of the outcome’s remaining variation (the bound on R²(Y~Z|D,X) is capped at 100%), so the adjusted estimate’s precision, and with it its significance, cannot be judged';
+
+/** Why a benchmark bound is not informative, in words: the capped case in {@link CAPPED_BOUND_WORDS}, else the core's reason. */
+export function notInformativeWords(row: Pick<OvbBenchmarkRow, 'unavailable' | 'reason' | 'informative'>): string {
+  if (row.informative) return '';
+  return row.unavailable === null ? CAPPED_BOUND_WORDS : (row.reason ?? row.unavailable);
+}
+
 /** Whether the estimate is statistically significant before any adjustment (|t| above the threshold). */
 export function significantBeforeAdjustment(result: Pick<OvbResult, 't' | 'criticalT'>): boolean {
   return Math.abs(result.t) > result.criticalT;
@@ -47,7 +57,7 @@ function levelText(alpha: number): string {
  */
 export function benchmarkSentence(result: OvbResult, row: OvbBenchmarkRow): string {
   const who = `a confounder ${multipleWords(row)} ${row.covariate}`;
-  if (!row.informative) return `For ${who}, this bound is not informative: ${row.reason ?? 'it is not available'}.`;
+  if (!row.informative) return `For ${who}, this bound is not informative: ${notInformativeWords(row)}.`;
   const adjusted = formatNumber(withoutRoundingNoise(row.correctedEstimate, Math.abs(result.estimate)), { significant: 3 });
   if (result.direction === 'toward-zero' && overturned(result, row)) {
     return `${capitalise(who)} would be enough to ${ovbGoalText(result.q)} (adjusted estimate ${adjusted}).`;
@@ -204,7 +214,7 @@ export function ovbReport(result: OvbResult, options: { study?: Partial<StudyLab
     lines.push(fmt(header));
     for (const r of rows) lines.push(r[5] === '' ? `  ${r[0].padEnd(widths[0])}  ${r[1].padStart(widths[1])}  ${r[4]}` : fmt(r));
     for (const b of result.benchmarks) {
-      if (b.unavailable === null && !b.informative) lines.push(`  ${b.covariate} (${kCell(b)}): this bound is not informative: ${b.reason ?? 'it is capped'}.`);
+      if (b.unavailable === null && !b.informative) lines.push(`  ${b.covariate} (${kCell(b)}): this bound is not informative: ${notInformativeWords(b)}.`);
     }
     if (!tShown) lines.push(`  Adjusted SE and t are not shown: the standard error is ${result.seKind === 'unknown' ? 'of unknown kind' : result.seKind}, and they assume a classical one.`);
     if (result.strongestCovariate !== null) lines.push(`  Strongest measured covariate: ${result.strongestCovariate}`);
@@ -239,7 +249,7 @@ export function ovbJson(result: OvbResult, extra: Record<string, unknown> = {}):
     capped: b.capped,
     unavailable: b.unavailable,
     informative: b.informative,
-    reason: b.reason,
+    reason: b.informative ? null : notInformativeWords(b),
     sentence: benchmarkSentence(result, b),
   }));
   const body = {
