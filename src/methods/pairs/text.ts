@@ -142,7 +142,11 @@ export function pairsReading(result: PairsResult, study?: Partial<StudyLabels>):
       );
     }
   }
-  const last = result.estimates.length > 0 ? result.estimates[result.estimates.length - 1] : null;
+  const raw = result.estimates.length > 0 ? result.estimates[result.estimates.length - 1] : null;
+  const scale = estimateScale(result);
+  const last = raw
+    ? { ...raw, ...Object.fromEntries((['estimateLow', 'estimateHigh', 'intervalLow', 'intervalHigh'] as const).map((k) => [k, withoutRoundingNoise(raw[k], scale)])) }
+    : null;
   if (result.estimate !== null && last) {
     sentences.push(
       `With no hidden bias the Hodges–Lehmann estimate of the effect is ${formatEffect(cleanEstimate(result), study)}; allowing bias up to Γ = ${formatGammaValue(last.gamma)}, the estimate could lie anywhere from ${formatEffect(last.estimateLow, study)} to ${formatEffect(last.estimateHigh, study)}, with a ${formatAsTyped(result.intervalLevel * 100)}% sensitivity interval from ${formatEffect(last.intervalLow, study)} to ${formatEffect(last.intervalHigh, study)}. The interval is two-sided (${formatAsTyped((result.alpha * 100) / 2)}% in each tail), so it can reach no effect at a somewhat smaller Γ than the one-sided test.`,
@@ -153,7 +157,8 @@ export function pairsReading(result: PairsResult, study?: Partial<StudyLabels>):
 
 /** The result as one JSON-ready object (infinite interval limits become null, noted in `notes`). */
 export function pairsResultJson(result: PairsResult): Record<string, unknown> {
-  const finite = (x: number) => (Number.isFinite(x) ? x : null);
+  const scale = estimateScale(result);
+  const finite = (x: number) => (Number.isFinite(x) ? withoutRoundingNoise(x, scale) : null);
   return {
     method: result.method,
     test: result.test,
@@ -207,11 +212,13 @@ export function pairsTable(result: PairsResult, study?: Partial<StudyLabels>): {
   const header = ['Γ', 'p upper bound', 'p lower bound'];
   const units = study?.units?.trim() ? ` (${study.units.trim()})` : '';
   if (withEstimates) header.push(`estimate low${units}`, `estimate high${units}`, `${formatAsTyped(result.intervalLevel * 100)}% interval${units}`);
+  const scale = estimateScale(result);
   const rows = result.rows.map((row, i) => {
     const cells = [formatGammaValue(row.gamma), formatPValue(row.pUpper), formatPValue(row.pLower)];
     if (withEstimates) {
       const e = result.estimates[i];
-      cells.push(formatEffect(e.estimateLow), formatEffect(e.estimateHigh), `${formatEffect(e.intervalLow)} to ${formatEffect(e.intervalHigh)}`);
+      const tidy = (x: number) => formatEffect(withoutRoundingNoise(x, scale));
+      cells.push(tidy(e.estimateLow), tidy(e.estimateHigh), `${tidy(e.intervalLow)} to ${tidy(e.intervalHigh)}`);
     }
     return cells;
   });

@@ -33,3 +33,35 @@ describe('pairsStatement', () => {
     expect(part.paragraph).not.toMatch(/NaN|undefined|Infinity/);
   });
 });
+
+describe('pairsStatement wording', () => {
+  const plainWords = readReferenceJson('plain_words_cases.json');
+  const empty = { finding: '', exposure: '', outcome: '', units: '', source: '' };
+  test('writes "p < 0.0001", never "p = < 0.0001" (R: exact signed-rank p of 30 positive pairs = 2^-30)', () => {
+    const differences = Array.from({ length: 30 }, (_, i) => 0.5 * (i + 1));
+    const part = pairsStatement(pairsSummary(analysePairs({ data: { kind: 'differences', differences }, method: 'exact' })), study, () => '[1]');
+    expect(plainWords.pairs_tiny_p.p).toBeLessThan(1e-4);
+    expect(part?.paragraph).toContain('gave p < 0.0001 in the absence of hidden bias');
+    expect(part?.paragraph).not.toMatch(/p = [<>]/);
+  });
+  test('says "the odds of a higher outcome" when no outcome label was given (never "a higher the outcome")', () => {
+    const part = pairsStatement(summary, empty, () => '[1]');
+    expect(part?.paragraph).toMatch(/the odds of a higher outcome by/);
+    expect(part?.paragraph).not.toMatch(/a higher the outcome/);
+  });
+  test('says first that the data point the other way, and offers the other direction (R: p = 0.99707, HL −0.85)', () => {
+    const d = [-1.2, -0.5, 0.3, -2.1, -0.8, -1.1, 0.2, -0.9, -1.5, -0.65];
+    const p = pairsSummary(analysePairs({ data: { kind: 'differences', differences: d }, method: 'exact', alternative: 'greater' }));
+    expect(p.pValue).toBeCloseTo(plainWords.pairs_other_way.pGreater, 12);
+    expect(p.estimate).toBeCloseTo(plainWords.pairs_other_way.hodgesLehmann, 12);
+    const part = pairsStatement(p, study, () => '[1]');
+    expect(part?.paragraph).toMatch(/^The data point the other way: the Hodges–Lehmann estimate, -0\.85 mmHg, is opposite in sign to the hypothesis that cycling to work raises blood pressure/);
+    expect(part?.paragraph).toContain('the opposite direction would need its own, pre-specified test');
+  });
+  test('lists the result’s conventions among the assumptions, in the core’s words (Pratt’s rule included)', () => {
+    const result = analysePairs({ data: { kind: 'differences', differences: [1.5, -0.5, 0, 2, 0, 3.5, -1, 2] }, zeroRule: 'pratt', method: 'exact' });
+    const part = pairsStatement(pairsSummary(result), study, () => '[1]');
+    for (const c of result.conventions) expect(part?.assumptions).toContain(c.text);
+    expect(part?.assumptions.join(' ')).toMatch(/Pratt's rule/);
+  });
+});
