@@ -3,7 +3,7 @@ import type { InputProblem } from '../../src/core/inputProblem';
 import type { OvbResult } from '../../src/core/ovbAnalysis';
 import { formatNumber, formatPercent } from '../../src/format/formatNumber';
 import type { StudyLabels } from '../../src/format/studyLabels';
-import { OVB_CAUTION, notInformativeWords, ovbReadingParts, plainNumber } from '../../src/methods/regression/text';
+import { OVB_CAUTION, notInformativeWords, ovbReadingParts, plainNumber, shownWarnings } from '../../src/methods/regression/text';
 import { conventionsBlock } from '../conventionsBlock';
 import type { PlotSpec } from '../../src/plot/plotSpec';
 import type { PlotPointerDetail } from '../lurk-plot';
@@ -51,7 +51,7 @@ export function results(v: OvbResultsView): TemplateResult {
     <p class="${reading.notSignificant ? '' : 'headline'}" id="reading">${reading.headline}</p>
     ${reading.comparison.map((s) => html`<p>${s}</p>`)}
     <p class="hint">${reading.estimate}</p>
-    ${result.warnings.map((w) => html`<p class="warning" role="note">${w}</p>`)}
+    ${shownWarnings(result).map((w) => html`<p class="warning" role="note">${w}</p>`)}
     ${conventionsBlock(result.conventions)}
     <p class="caution" role="note">${OVB_CAUTION}</p>
     ${result.scenario ? scenarioLine(result) : nothing} ${benchmarkTable(result)}

@@ -41,6 +41,11 @@ export function notInformativeWords(row: Pick<OvbBenchmarkRow, 'unavailable' | '
   return row.unavailable === null ? CAPPED_BOUND_WORDS : (row.reason ?? row.unavailable);
 }
 
+/** The result's warnings as shown to people: a capped bound's note says why in words, not "standard error 0, t not available". */
+export function shownWarnings(result: Pick<OvbResult, 'warnings'>): string[] {
+  return result.warnings.map((w) => w.replace(/ \(adjusted standard error 0, adjusted t not available\)\.$/, `: ${CAPPED_BOUND_WORDS}.`));
+}
+
 /** Whether the estimate is statistically significant before any adjustment (|t| above the threshold). */
 export function significantBeforeAdjustment(result: Pick<OvbResult, 't' | 'criticalT'>): boolean {
   return Math.abs(result.t) > result.criticalT;
@@ -226,7 +231,7 @@ export function ovbReport(result: OvbResult, options: { study?: Partial<StudyLab
     }
   }
   lines.push('', ...ovbReading(result, options.study));
-  if (result.warnings.length > 0) lines.push('', ...result.warnings.map((w) => `Note: ${w}`));
+  if (result.warnings.length > 0) lines.push('', ...shownWarnings(result).map((w) => `Note: ${w}`));
   lines.push('', 'Conventions:', ...result.conventions.map((c) => `  - ${c.text}`));
   lines.push('', OVB_CAUTION, '');
   return lines.join('\n');
@@ -274,7 +279,7 @@ export function ovbJson(result: OvbResult, extra: Record<string, unknown> = {}):
     scenario: result.scenario,
     ...extra,
     reading: ovbReading(result).join(' '),
-    warnings: result.warnings,
+    warnings: shownWarnings(result),
     method: result.method,
     references: result.references,
     caution: OVB_CAUTION,
