@@ -1,6 +1,7 @@
 import { html, nothing, type TemplateResult } from 'lit';
 import { MEASURE_LABELS, describeEValue, describeReferenceConfounder, formatEValue, formatLevel, formatMeasureValue, formatPlain } from '../../src/methods/evalue/text';
 import type { EValueView } from './view';
+import { echoTyped } from '../../src/format/formatNumber';
 import { conventionsBlock } from '../conventionsBlock';
 import '../lurk-plot';
 
@@ -20,6 +21,11 @@ export function eValueResults(v: EValueView): TemplateResult {
   const reading = describeEValue(result, v.study, v.form.target);
   const units = v.study.units;
   const own = (x: number) => formatMeasureValue(x, result.measure, units);
+  // Numbers the user typed are echoed as typed ("1.10", not "1.1").
+  const typed = v.outcome.typed;
+  const echo = (x: number | null, text: string | undefined) =>
+    x === null ? '' : echoTyped(x, text, (y) => formatPlain(y)) + (result.measure === 'md' && units.trim() ? ` ${units.trim()}` : '');
+  const limitsTyped = result.interval?.source === 'limits' && v.form.source === 'reported';
   const rr = result.riskRatioScale;
   const intervalText = (lower: number | null, upper: number | null, show: (x: number) => string) =>
     lower === null || upper === null ? '' : ` (${formatLevel(result.level)} interval ${show(lower)} to ${show(upper)})`;
@@ -43,13 +49,11 @@ export function eValueResults(v: EValueView): TemplateResult {
       </div>
     </div>
     <p class="scale">
-      ${MEASURE_LABELS[result.measure].replace(/^./, (c) => c.toUpperCase())} ${own(result.input.estimate)}${intervalText(
-        result.interval?.lower ?? null,
-        result.interval?.upper ?? null,
-        own,
-      )}${result.conversion.kind === 'none' ? '' : html`; on the risk-ratio scale ${formatPlain(rr.estimate)}${intervalText(rr.lower, rr.upper, formatPlain)}`}${result.targetIsNull
+      ${MEASURE_LABELS[result.measure].replace(/^./, (c) => c.toUpperCase())} ${v.form.source === 'reported' ? echo(result.input.estimate, typed?.estimate) : own(result.input.estimate)}${limitsTyped && result.interval
+        ? ` (${formatLevel(result.level)} interval ${echo(result.interval.lower, typed?.lower)} to ${echo(result.interval.upper, typed?.upper)})`
+        : intervalText(result.interval?.lower ?? null, result.interval?.upper ?? null, own)}${result.conversion.kind === 'none' ? '' : html`; on the risk-ratio scale ${formatPlain(rr.estimate)}${intervalText(rr.lower, rr.upper, formatPlain)}`}${result.targetIsNull
         ? ''
-        : `; target ${own(result.target)}`}.
+        : `; target ${echo(result.target, typed?.target)}`}.
       <span class="hint">${result.conversion.note}</span>
     </p>
     ${reading.sentences.map((s, i) =>

@@ -74,7 +74,7 @@ async function runOvbCommand(form: OvbFormInputs, values: OptionValues, context:
     ? { kind: 'file', path: form.fileName, data: fitted.data }
     : form.source === 'summary'
       ? { kind: 'summary', path: form.fileName, n: outcome.regression?.n ?? 0, outcome: form.outcome, treatment: form.treatment, covariates: covariatesOf(form) }
-      : { kind: 'reported' };
+      : { kind: 'reported', typed: { estimate: form.estimate, se: form.se } };
   return plot ? ovbSvgReport(outcome.result, origin, plot) : ovbCommandReport(outcome.result, origin);
 }
 

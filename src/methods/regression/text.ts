@@ -1,5 +1,5 @@
 import type { OvbBenchmarkRow, OvbResult } from '../../core/ovbAnalysis';
-import { formatNumber, formatPercent, withoutRoundingNoise } from '../../format/formatNumber';
+import { echoTyped, formatNumber, formatPercent, withoutRoundingNoise } from '../../format/formatNumber';
 import { exposureLabel, outcomeLabel, unitsSuffix, type StudyLabels } from '../../format/studyLabels';
 
 /** The caution that goes with every omitted-variable-bias report. */
@@ -169,14 +169,17 @@ function overturned(result: OvbResult, row: OvbBenchmarkRow): boolean {
 }
 
 /** A readable multi-line report for the command line, ending with the caution. */
-export function ovbReport(result: OvbResult, options: { study?: Partial<StudyLabels>; dataNote?: string } = {}): string {
+export function ovbReport(
+  result: OvbResult,
+  options: { study?: Partial<StudyLabels>; dataNote?: string; typed?: { readonly estimate: string; readonly se: string } } = {},
+): string {
   const lines: string[] = [];
   lines.push('Omitted-variable bias: how strong would a hidden confounder have to be?', '');
   if (options.dataNote) lines.push(options.dataNote, '');
   const pct = (x: number) => formatPercent(x, 1);
   lines.push(
-    `  estimate              ${formatNumber(result.estimate, { significant: 6 })}`,
-    `  standard error        ${formatNumber(result.se, { significant: 6 })}`,
+    `  estimate              ${echoTyped(result.estimate, options.typed?.estimate, (x) => formatNumber(x, { significant: 6 }))}`,
+    `  standard error        ${echoTyped(result.se, options.typed?.se, (x) => formatNumber(x, { significant: 6 }))}`,
     `  t                     ${formatNumber(result.t, { digits: 3 })}`,
     `  residual df           ${plainNumber(result.df)}`,
     '',

@@ -108,3 +108,13 @@ describe('omitted-variable-bias words that agree with their numbers', () => {
     expect(JSON.parse(ovbJson(r)).conventions).toEqual(r.conventions);
   });
 });
+
+describe('typed numbers in the regression report', () => {
+  it('echoes the estimate and SE as typed ("0.50", "0.200"), not re-formatted ("0.500000")', () => {
+    const r = analyseOvb({ estimate: 0.5, se: 0.2, df: 100 });
+    const report = ovbReport(r, { typed: { estimate: '0.50', se: '0.200' } });
+    expect(report).toMatch(/ estimate +0\.50\n/);
+    expect(report).toMatch(/ standard error +0\.200\n/);
+    expect(ovbReport(r)).toMatch(/ estimate +0\.500000\n/);
+  });
+});
