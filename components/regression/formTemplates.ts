@@ -207,7 +207,7 @@ function seKindField(v: OvbFormView): TemplateResult {
   const kind = v.form.seKind ?? '';
   const problem = v.problemFor('seKind');
   return html`<div class="field">
-    <label for="se-kind">Kind of standard error</label>
+    <label for="se-kind">How the SE was computed</label>
     <select
       id="se-kind"
       aria-describedby="se-kind-hint"
