@@ -36,7 +36,7 @@ export function pairsStatement(p: PairsSummary, study: StudyLabels, cite: (refer
   );
   if (p.sensitivityValue !== null) {
     parts.push(
-      `The upper bound on the p-value stays at or below α = ${num(p.alpha)} up to Γ = ${formatGamma(p.sensitivityValue)} (${p.tailMethod === 'exact' ? 'exact bounding distribution' : 'normal approximation'}): ` +
+      `The upper bound on the p-value stays at or below α = ${num(p.alpha)} up to Γ = ${formatGamma(p.sensitivityValue)} (${p.tailMethod === 'exact' ? 'exact bounding distribution' : (p.tailMethodReason ?? 'normal approximation')}): ` +
         `the conclusion would hold unless such a covariate changed the odds of ${exposure} within pairs by a factor of more than ${formatGamma(p.sensitivityValue)}.`,
     );
     const amp = p.amplification?.find((a) => a.lambda !== null && a.delta !== null);

@@ -28,6 +28,8 @@ export interface PairsSummary extends MethodSummary {
   readonly amplification: ReadonlyArray<{ lambda: number | null; delta: number | null }>;
   /** Whether the data point against the alternative tested (see `pointsOtherWay` in text.ts); absent in older files. */
   readonly pointsOtherWay?: boolean;
+  /** How the tails were computed and why (with the measured error of the normal approximation); absent in older files. */
+  readonly tailMethodReason?: string;
   /** The zero rule of the signed-rank test; absent in older files. */
   readonly zeroRule?: string;
   /** The conventions the analysis followed, in the core's words; absent in older files. */
@@ -64,6 +66,7 @@ export function pairsSummary(result: PairsResult): PairsSummary {
       : null,
     amplification: result.amplification.slice(0, 3).map((a) => ({ lambda: finite(a.lambda), delta: finite(a.delta) })),
     pointsOtherWay: pointsOtherWay(result),
+    tailMethodReason: result.tailMethodReason,
     zeroRule: result.zeroRule,
     conventions: result.conventions.map((c) => ({ id: c.id, text: c.text })),
   };
@@ -129,6 +132,7 @@ export function readPairsSummary(saved: unknown): PairsSummary | null {
     rangeAt,
     amplification,
     pointsOtherWay: s.pointsOtherWay === true,
+    ...(typeof s.tailMethodReason === 'string' ? { tailMethodReason: s.tailMethodReason } : {}),
     ...(typeof s.zeroRule === 'string' ? { zeroRule: s.zeroRule } : {}),
     conventions: readConventions(s.conventions),
   };

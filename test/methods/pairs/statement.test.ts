@@ -65,3 +65,16 @@ describe('pairsStatement wording', () => {
     expect(part?.assumptions.join(' ')).toMatch(/Pratt's rule/);
   });
 });
+
+describe('pairsStatement: the normal approximation’s measured error', () => {
+  test('with more than 1,000 pairs the paragraph gives the reason for the normal approximation and its measured error', () => {
+    // Invented differences (fictional): 1,200 pairs, a modest shift; the error figure is the project's own measurement (NORMAL_APPROXIMATION_MEASURED_ERROR).
+    const differences = Array.from({ length: 1200 }, (_, i) => ((i * 7919) % 1000) / 100 - 4.7);
+    const result = analysePairs({ data: { kind: 'differences', differences } });
+    expect(result.tailMethod).toBe('normal');
+    const part = pairsStatement(pairsSummary(result), study, () => '[1]');
+    expect(result.sensitivityValue).not.toBeNull();
+    expect(part?.paragraph).toContain(result.tailMethodReason);
+    expect(result.tailMethodReason).toMatch(/relative error was measured at up to 1\.4%/);
+  });
+});
