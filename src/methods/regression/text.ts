@@ -33,7 +33,7 @@ export function strongestBenchmark(result: Pick<OvbResult, 'benchmarks' | 'stron
 
 /** Why a capped bound says nothing, in words a reader can use (no "standard error 0, t not available"). */
 export const CAPPED_BOUND_WORDS =
-  'a confounder this strong could account for all of the outcome’s remaining variation (the bound on R²(Y~Z|D,X) is capped at 100%), so the adjusted estimate’s precision, and with it its significance, cannot be judged';
+  'a confounder this strong could account for all of the outcome’s remaining variation (its bound on the share of the outcome’s residual variance is capped at 100%), so the adjusted estimate’s precision, and with it its significance, cannot be judged';
 
 /** Why a benchmark bound is not informative, in words: the capped case in {@link CAPPED_BOUND_WORDS}, else the core's reason. */
 export function notInformativeWords(row: Pick<OvbBenchmarkRow, 'unavailable' | 'reason' | 'informative'>): string {
