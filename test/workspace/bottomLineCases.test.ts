@@ -183,3 +183,16 @@ describe('the statement’s assumptions list each convention that applies', () =
     expect(buildRobustnessStatement(appraisal).assumptions).toContain(target?.text);
   });
 });
+
+describe('a regression analysed for confounding away from zero', () => {
+  it('says the robustness values describe the other direction, in the statement and the bottom line', () => {
+    const appraisal = createAppraisal(study, {
+      regression: { inputs: { source: 'reported', estimate: '4.18', se: '1', df: '783', direction: 'away-from-zero' }, summary: null },
+    } as Parameters<typeof createAppraisal>[1]);
+    // Cinelli & Hazlett 2020 published example: RV 13.9% (t = 4.18, df = 783).
+    const paragraphs = buildRobustnessStatement(appraisal).paragraphs.join(' ');
+    expect(paragraphs).toContain('The robustness value is 13.9%');
+    expect(paragraphs).toMatch(/the robustness values above describe confounding in the other direction/);
+    expect(buildBottomLine(appraisal).howStrong.join(' ')).toMatch(/the analysis assumed the opposite/);
+  });
+});

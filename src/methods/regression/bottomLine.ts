@@ -22,6 +22,9 @@ export function ovbBottomLine(r: OvbSummary, study: StudyLabels): BottomLinePart
     howStrong.push(
       `In the regression, a hidden factor would have to account for at least ${formatPercent(r.rv)} of the otherwise unexplained differences in both ${exposure} and ${outcome} to remove the estimated effect.`,
     );
+    if (r.direction === 'away-from-zero') {
+      howStrong.push('These numbers describe hidden factors that inflated the estimate; the analysis assumed the opposite (hidden factors that hid part of the effect), under which adjusting would only make the estimate larger.');
+    }
     if (significant && r.rvAlpha !== null && r.rvAlpha > 0) {
       change.push(`A hidden factor accounting for ${formatPercent(r.rvAlpha)} or more of both would leave the regression estimate no longer statistically distinguishable from zero.`);
     }

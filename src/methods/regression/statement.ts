@@ -29,6 +29,9 @@ export function ovbStatement(r: OvbSummary, study: StudyLabels, cite: (reference
     `The robustness value is ${formatPercent(r.rv)}: an unmeasured confounder explaining at least ${formatPercent(r.rv)} of the residual variance of both ${exposure} and ${outcome} would be strong enough to ${goal}` +
       (significant ? ', while one explaining less of each could not.' : '.'),
   );
+  if (r.direction === 'away-from-zero') {
+    parts.push('The analysis assumed confounding that hid part of the effect (adjusting for it would move the estimate away from zero), so under that assumption no such confounder could bring the estimate to zero; the robustness values above describe confounding in the other direction.');
+  }
   if (r.rvAlpha !== null && significant && r.rvAlpha > 0) {
     parts.push(`A confounder explaining at least ${formatPercent(r.rvAlpha)} of both would make the estimate lose significance at α = ${num(r.alpha)}.`);
   }
