@@ -103,3 +103,17 @@ describe('lurk batch: robustness values for coef rows only', () => {
     }
   });
 });
+
+describe('settings echoed as typed', () => {
+  it('lurk pairs --alpha 0.10 prints α = 0.10, not 0.1', async () => {
+    const { stdout } = await lurk(['pairs', '--file', 'a.csv', '--diff', 'diff', '--alpha', '0.10'], { 'a.csv': 'diff\n1\n2\n3\n-1\n4\n5\n' });
+    expect(stdout).toMatch(/one-sided\), α = 0\.10\./);
+  });
+  it('lurk ovb echoes the estimate, SE, q and α as typed', async () => {
+    const { stdout } = await lurk(['ovb', '--estimate', '0.50', '--se', '0.20', '--df', '100', '--alpha', '0.050', '--q', '1.0']);
+    expect(stdout).toMatch(/ estimate +0\.50\n/);
+    expect(stdout).toMatch(/ standard error +0\.20\n/);
+    expect(stdout).toMatch(/RV \(q = 1\.0\)/);
+    expect(stdout).toMatch(/at α = 0\.050 /);
+  });
+});

@@ -130,7 +130,7 @@ export async function runPairsCommand(form: PairsFormInputs, _values: OptionValu
   }
   const outcome = analysePairsForm(form, read);
   if (!outcome.result) throw new InputError([...outcome.problems]);
-  return pairsReport(outcome.result, outcome.read?.warnings ?? []);
+  return pairsReport(outcome.result, outcome.read?.warnings ?? [], form.alpha);
 }
 
 async function readPairsFile(form: PairsFormInputs, context: CommandContext): Promise<PairsRead> {

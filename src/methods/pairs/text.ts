@@ -1,6 +1,6 @@
 import type { PairsResult } from '../../core/pairsAnalysis';
 import type { AmplifiedPair } from '../../core/amplification';
-import { formatNumber, formatPValue, pValueClause, withoutRoundingNoise } from '../../format/formatNumber';
+import { echoTyped, formatNumber, formatPValue, pValueClause, withoutRoundingNoise } from '../../format/formatNumber';
 import { outcomeLabel, unitsSuffix, type StudyLabels } from '../../format/studyLabels';
 
 /** The caution that goes with every matched-pairs report. */
@@ -105,12 +105,12 @@ export function amplificationPhrase(pair: AmplifiedPair, study?: Partial<StudyLa
  * The plain-language reading of a matched-pairs result: what Γ means here, where the finding tips, an
  * amplification example, and what the estimate range shows.
  */
-export function pairsReading(result: PairsResult, study?: Partial<StudyLabels>): string[] {
+export function pairsReading(result: PairsResult, study?: Partial<StudyLabels>, typedAlpha?: string): string[] {
   const sentences: string[] = [];
   const testName = result.test === 'signrank' ? 'Wilcoxon signed-rank test' : 'sign test';
   const direction =
     result.alternative === 'greater' ? `${treatmentWords(study)} raises ${outcomeLabel(study)}` : `${treatmentWords(study)} lowers ${outcomeLabel(study)}`;
-  const alpha = formatAsTyped(result.alpha);
+  const alpha = echoTyped(result.alpha, typedAlpha, formatAsTyped);
   if (result.sensitivityStatus === 'not-significant' && pointsOtherWay(result)) {
     const estimate = cleanEstimate(result);
     const other = result.alternative === 'greater' ? 'lowers' : 'raises';
@@ -226,7 +226,7 @@ export function pairsTable(result: PairsResult, study?: Partial<StudyLabels>): {
 }
 
 /** The readable command-line report. */
-export function pairsReportText(result: PairsResult, study?: Partial<StudyLabels>): string {
+export function pairsReportText(result: PairsResult, study?: Partial<StudyLabels>, typedAlpha?: string): string {
   const lines: string[] = [];
   lines.push(`Matched pairs: ${result.method}`);
   const used = `${formatCount(result.n)} pairs used` + (result.droppedRows > 0 ? ` (${formatCount(result.droppedRows)} rows with a missing value left out)` : '');
@@ -236,7 +236,7 @@ export function pairsReportText(result: PairsResult, study?: Partial<StudyLabels
       : `${formatCount(result.nonZero)} informative (discordant or non-tied) pairs, ${formatCount(result.favourable)} favouring the alternative`;
   lines.push(`${used}; ${informative}.`);
   lines.push(
-    `Alternative: treatment ${result.alternative === 'greater' ? 'raises' : 'lowers'} the outcome (one-sided), α = ${formatAsTyped(result.alpha)}. Tails: ${result.tailMethodReason}${result.tailMethod === 'normal' && result.continuityCorrection ? ', with a ½ continuity correction' : ''}.`,
+    `Alternative: treatment ${result.alternative === 'greater' ? 'raises' : 'lowers'} the outcome (one-sided), α = ${echoTyped(result.alpha, typedAlpha, formatAsTyped)}. Tails: ${result.tailMethodReason}${result.tailMethod === 'normal' && result.continuityCorrection ? ', with a ½ continuity correction' : ''}.`,
   );
   lines.push('');
   const tipping =
@@ -252,7 +252,7 @@ export function pairsReportText(result: PairsResult, study?: Partial<StudyLabels
   const table = pairsTable(result, study);
   lines.push(alignTable(table.header, table.rows));
   lines.push('');
-  for (const sentence of pairsReading(result, study)) lines.push(sentence);
+  for (const sentence of pairsReading(result, study, typedAlpha)) lines.push(sentence);
   for (const warning of result.warnings) lines.push(`Note: ${warning}`);
   lines.push('', 'Conventions:');
   for (const c of result.conventions) lines.push(`  - ${c.text}`);

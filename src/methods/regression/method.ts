@@ -75,7 +75,7 @@ async function runOvbCommand(form: OvbFormInputs, values: OptionValues, context:
     : form.source === 'summary'
       ? { kind: 'summary', path: form.fileName, n: outcome.regression?.n ?? 0, outcome: form.outcome, treatment: form.treatment, covariates: covariatesOf(form) }
       : { kind: 'reported', typed: { estimate: form.estimate, se: form.se } };
-  return plot ? ovbSvgReport(outcome.result, origin, plot) : ovbCommandReport(outcome.result, origin);
+  return plot ? ovbSvgReport(outcome.result, origin, plot) : ovbCommandReport(outcome.result, origin, { q: form.q, alpha: form.alpha });
 }
 
 function covariatesOf(form: OvbFormInputs): string[] {

@@ -171,7 +171,11 @@ function overturned(result: OvbResult, row: OvbBenchmarkRow): boolean {
 /** A readable multi-line report for the command line, ending with the caution. */
 export function ovbReport(
   result: OvbResult,
-  options: { study?: Partial<StudyLabels>; dataNote?: string; typed?: { readonly estimate: string; readonly se: string } } = {},
+  options: {
+    study?: Partial<StudyLabels>;
+    dataNote?: string;
+    typed?: { readonly estimate?: string; readonly se?: string; readonly q?: string; readonly alpha?: string };
+  } = {},
 ): string {
   const lines: string[] = [];
   lines.push('Omitted-variable bias: how strong would a hidden confounder have to be?', '');
@@ -184,8 +188,8 @@ export function ovbReport(
     `  residual df           ${plainNumber(result.df)}`,
     '',
     `  partial R² of the treatment with the outcome   ${pct(result.partialR2)}`,
-    `  robustness value RV (q = ${plainNumber(result.q)})`.padEnd(49) + pct(result.rv),
-    `  robustness value at α = ${plainNumber(result.alpha)}`.padEnd(49) + pct(result.rvAlpha),
+    `  robustness value RV (q = ${echoTyped(result.q, options.typed?.q, (x) => plainNumber(x as number))})`.padEnd(49) + pct(result.rv),
+    `  robustness value at α = ${echoTyped(result.alpha, options.typed?.alpha, (x) => plainNumber(x as number))}`.padEnd(49) + pct(result.rvAlpha),
   );
   if (result.scenario) {
     const s = result.scenario;
