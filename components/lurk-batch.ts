@@ -1,7 +1,7 @@
 import { LitElement, css, html, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import { InputError } from '../src/methods/problems';
-import { appraiseBatchCsv, BATCH_COLUMNS, type BatchResult, type BatchRow } from '../src/workspace/batchFindings';
+import { appraiseBatchCsv, BATCH_COLUMNS, BATCH_RV_RULE, type BatchResult, type BatchRow } from '../src/workspace/batchFindings';
 import { batchCsvText } from '../src/workspace/batchCsv';
 import { formatNumber, formatPercent } from '../src/format/formatNumber';
 import { parseTypedNumber } from '../src/data/numberText';
@@ -135,7 +135,7 @@ export class LurkBatch extends LitElement {
       <p class="hint">
         One reported finding per row. Columns: ${BATCH_COLUMNS.join(', ')}. <code>measure</code> is rr, or, hr, smd, md or coef (a
         linear-regression coefficient); give <code>lower</code> and <code>upper</code> or <code>se</code>; odds and hazard ratios need
-        <code>outcome_prevalence</code> (rare or common). Robustness values need <code>se</code> and <code>df</code>.
+        <code>outcome_prevalence</code> (rare or common). ${BATCH_RV_RULE} A <code>coef</code> row needs <code>se</code> and <code>df</code>.
       </p>
       <div class="row-tools">
         <div class="field">
@@ -186,7 +186,7 @@ export class LurkBatch extends LitElement {
       </div>
       <div class="table-scroll" tabindex="0" role="region" aria-label="Results table (scrolls sideways)">
         <table>
-          <caption class="visually-hidden">E-values and robustness values of each finding; choose a column heading to sort</caption>
+          <caption class="visually-hidden">E-values of each finding, and robustness values of coef rows only; choose a column heading to sort</caption>
           <thead>
             <tr>
               ${COLUMNS.map(

@@ -201,6 +201,19 @@ export function tableMeasureField(v: EValueView): TemplateResult {
   const f = v.form;
   return html`
     <div class="field">
+      <label for="design">How the table was sampled</label>
+      <select
+        id="design"
+        aria-describedby="design-hint design-error"
+        @change=${(e: Event) => v.edit({ design: (e.target as HTMLSelectElement).value as '' | 'cohort' | 'case-control' })}
+      >
+        <option value="cohort" ?selected=${f.design === '' || f.design === 'cohort'}>Cohort, trial or cross-section (by exposure)</option>
+        <option value="case-control" ?selected=${f.design === 'case-control'}>Case-control (by outcome)</option>
+      </select>
+      <p class="hint" id="design-hint">A case-control table gives only an odds ratio; a cohort table with a common outcome uses its own risk ratio.</p>
+      ${v.errorLine('design', 'design-error')}
+    </div>
+    <div class="field">
       <label for="table-measure">Ratio to compute</label>
       <select id="table-measure" @change=${(e: Event) => v.edit({ tableMeasure: (e.target as HTMLSelectElement).value as 'rr' | 'or' })}>
         <option value="rr" ?selected=${f.tableMeasure === 'rr'}>Risk ratio (cohort data)</option>

@@ -1,6 +1,8 @@
 import { html, nothing, type TemplateResult } from 'lit';
 import { MEASURE_LABELS, describeEValue, describeReferenceConfounder, formatEValue, formatLevel, formatMeasureValue, formatPlain } from '../../src/methods/evalue/text';
 import type { EValueView } from './view';
+import { echoTyped } from '../../src/format/formatNumber';
+import { conventionsBlock } from '../conventionsBlock';
 import '../lurk-plot';
 
 /** The E-value calculator's results: the two E-values, the scale line, the readings, warnings, comparisons and plot. */
@@ -18,9 +20,14 @@ export function eValueResults(v: EValueView): TemplateResult {
           : 'Enter an estimate to see its E-values.'}
     </p>`;
   }
-  const reading = describeEValue(result, v.study);
+  const reading = describeEValue(result, v.study, v.form.target);
   const units = v.study.units;
   const own = (x: number) => formatMeasureValue(x, result.measure, units);
+  // Numbers the user typed are echoed as typed ("1.10", not "1.1").
+  const typed = v.outcome.typed;
+  const echo = (x: number | null, text: string | undefined) =>
+    x === null ? '' : echoTyped(x, text, (y) => formatPlain(y)) + (result.measure === 'md' && units.trim() ? ` ${units.trim()}` : '');
+  const limitsTyped = result.interval?.source === 'limits' && v.form.source === 'reported';
   const rr = result.riskRatioScale;
   const intervalText = (lower: number | null, upper: number | null, show: (x: number) => string) =>
     lower === null || upper === null ? '' : ` (${formatLevel(result.level)} interval ${show(lower)} to ${show(upper)})`;
@@ -44,18 +51,22 @@ export function eValueResults(v: EValueView): TemplateResult {
       </div>
     </div>
     <p class="scale">
-      ${MEASURE_LABELS[result.measure].replace(/^./, (c) => c.toUpperCase())} ${own(result.input.estimate)}${intervalText(
-        result.interval?.lower ?? null,
-        result.interval?.upper ?? null,
-        own,
-      )}${result.conversion.kind === 'none' ? '' : html`; on the risk-ratio scale ${formatPlain(rr.estimate)}${intervalText(rr.lower, rr.upper, formatPlain)}`}${result.targetIsNull
+      ${MEASURE_LABELS[result.measure].replace(/^./, (c) => c.toUpperCase())} ${v.form.source === 'reported' ? echo(result.input.estimate, typed?.estimate) : own(result.input.estimate)}${limitsTyped && result.interval
+        ? ` (${formatLevel(result.level)} interval ${echo(result.interval.lower, typed?.lower)} to ${echo(result.interval.upper, typed?.upper)})`
+        : intervalText(result.interval?.lower ?? null, result.interval?.upper ?? null, own)}${result.conversion.kind === 'none' ? '' : html`; on the risk-ratio scale ${formatPlain(rr.estimate)}${intervalText(rr.lower, rr.upper, formatPlain)}`}${result.targetIsNull
         ? ''
-        : `; target ${own(result.target)}`}.
+        : `; target ${echo(result.target, typed?.target)}`}.
       <span class="hint">${result.conversion.note}</span>
     </p>
-    <p class="headline" id="reading-estimate">${reading.estimate}</p>
-    ${reading.interval ? html`<p id="reading-interval">${reading.interval}</p>` : nothing}
+    ${reading.sentences.map((s, i) =>
+      s === reading.estimate
+        ? html`<p class=${i === 0 ? 'headline' : ''} id="reading-estimate">${s}</p>`
+        : s === reading.interval
+          ? html`<p class=${i === 0 ? 'headline' : ''} id="reading-interval">${s}</p>`
+          : html`<p>${s}</p>`,
+    )}
     ${result.warnings.map((w) => html`<p class="warning" role="note">${w}</p>`)}
+    ${conventionsBlock(result.conventions)}
     <p class="caution" role="note">${reading.caution}</p>
     ${confounders.length > 0
       ? html`<h3>Compared with the reference confounders</h3>

@@ -128,7 +128,7 @@ function discordantFields(v: PairsFormView): TemplateResult {
 
 function analysisFields(v: PairsFormView): TemplateResult {
   const f = v.form;
-  const choose = (key: 'test' | 'alternative' | 'method') => (e: Event) => v.edit({ [key]: (e.target as HTMLSelectElement).value });
+  const choose = (key: 'test' | 'alternative' | 'method' | 'zeros') => (e: Event) => v.edit({ [key]: (e.target as HTMLSelectElement).value });
   return html`<fieldset>
     <legend>Analysis</legend>
     <div class="field">
@@ -156,6 +156,15 @@ function analysisFields(v: PairsFormView): TemplateResult {
         </select>
       </div>
     </div>
+    ${f.test === 'signrank'
+      ? html`<div class="field">
+          <label for="zeros">Pairs with a zero difference</label>
+          <select id="zeros" @change=${choose('zeros')}>
+            <option value="wilcoxon" ?selected=${(f.zeros || 'wilcoxon') === 'wilcoxon'}>Left out of the test (Wilcoxon)</option>
+            <option value="pratt" ?selected=${f.zeros === 'pratt'}>Ranked, scored 0 (Pratt)</option>
+          </select>
+        </div>`
+      : nothing}
     ${v.field('gammas', 'Γ values to tabulate', f.gammas, (t) => ({ gammas: t }), 'e.g. 1, 1.5, 2, 3; empty: from 1 to just past the tipping point')}
   </fieldset>`;
 }

@@ -4,7 +4,8 @@ import type { StudyLabels } from '../../src/format/studyLabels';
 import type { PairsSource } from '../../src/methods/pairs/request';
 import type { PairsOutcome } from '../../src/methods/pairs/runner';
 import type { PairsWorkerProgress } from '../../src/methods/pairs/pairsWorkerClient';
-import { PAIRS_CAUTION, formatAsTyped, formatEffect, formatGamma, pPhrase, pairsReading, pairsTable } from '../../src/methods/pairs/text';
+import { conventionsBlock } from '../conventionsBlock';
+import { PAIRS_CAUTION, cleanEstimate, formatAsTyped, formatEffect, formatGamma, pPhrase, pairsReading, pairsTable } from '../../src/methods/pairs/text';
 import type { PlotSpec } from '../../src/plot/plotSpec';
 import '../lurk-plot';
 
@@ -77,7 +78,7 @@ export function pairsResultsTemplate(v: PairsResultsView): TemplateResult {
       ${result.estimate !== null
         ? html`<div class="headline-box">
             <span class="label">Hodges–Lehmann estimate</span>
-            <span class="number small" id="estimate">${formatEffect(result.estimate, v.study)}</span>
+            <span class="number small" id="estimate">${formatEffect(cleanEstimate(result), v.study)}</span>
           </div>`
         : nothing}
     </div>
@@ -87,6 +88,7 @@ export function pairsResultsTemplate(v: PairsResultsView): TemplateResult {
       Tails: ${result.tailMethodReason}.
     </p>
     <div class="reading">${pairsReading(result, v.study).map((s) => html`<p>${s}</p>`)}</div>
+    ${conventionsBlock(result.conventions)}
     ${notes.length > 0 ? html`<div class="warning" role="note">${notes.map((n) => html`<div>${n}</div>`)}</div>` : nothing}
     <div class="table-scroll" tabindex="0" role="region" aria-label="Sensitivity table (scrolls sideways)">
       <table id="bounds-table">

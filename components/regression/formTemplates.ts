@@ -54,6 +54,7 @@ export function reportedFields(v: OvbFormView): TemplateResult {
       ${v.field('estimate', 'Estimate (coefficient)', f.estimate, (t) => ({ estimate: t }), 'Of the treatment, as reported')}
       ${v.field('se', 'Standard error', f.se, (t) => ({ se: t }))}
     </div>
+    ${seKindField(v)}
     <fieldset>
       <legend>Residual degrees of freedom</legend>
       <label class="choice"><input type="radio" name="df-by" .checked=${f.dfBy === 'df'} @change=${() => v.edit({ dfBy: 'df' })} />As reported</label>
@@ -210,6 +211,7 @@ export function settingFields(v: OvbFormView): TemplateResult {
         >
       </fieldset>
       ${v.field('k', 'Compare with confounders k times as strong, k =', f.k, (t) => ({ k: t }), 'e.g. 1, 2, 3')}
+      ${v.field('kOutcome', 'Outcome side, times as strong (one per k)', f.kOutcome ?? '', (t) => ({ kOutcome: t }), 'Empty: the same k on both sides')}
     </fieldset>
     <fieldset>
       <legend>A confounder to try</legend>
@@ -220,4 +222,28 @@ export function settingFields(v: OvbFormView): TemplateResult {
       ${v.field('plotMax', 'Plots up to (partial R²)', f.plotMax, (t) => ({ plotMax: t }), 'Empty: chosen from the results')}
     </fieldset>
   `;
+}
+
+/** How the reported standard error was computed: the bias formula assumes the classical one. */
+function seKindField(v: OvbFormView): TemplateResult {
+  const kind = v.form.seKind ?? '';
+  const problem = v.problemFor('seKind');
+  return html`<div class="field">
+    <label for="se-kind">How the SE was computed</label>
+    <select
+      id="se-kind"
+      aria-describedby="se-kind-hint"
+      aria-invalid=${problem ? 'true' : 'false'}
+      @change=${(e: Event) => v.edit({ seKind: (e.target as HTMLSelectElement).value })}
+    >
+      <option value="" ?selected=${kind === '' || kind === 'classical'}>Classical (OLS)</option>
+      <option value="robust" ?selected=${kind === 'robust'}>Robust (heteroskedasticity-consistent)</option>
+      <option value="clustered" ?selected=${kind === 'clustered'}>Clustered</option>
+      <option value="unknown" ?selected=${kind === 'unknown'}>Not known</option>
+    </select>
+    <p class="hint" id="se-kind-hint">
+      The bias formula assumes a classical standard error; with any other kind the adjusted estimates hold but the adjusted standard errors and
+      t-values do not.
+    </p>
+  </div>`;
 }

@@ -3,7 +3,8 @@ import type { InputProblem } from '../../src/core/inputProblem';
 import type { OvbResult } from '../../src/core/ovbAnalysis';
 import { formatNumber, formatPercent } from '../../src/format/formatNumber';
 import type { StudyLabels } from '../../src/format/studyLabels';
-import { OVB_CAUTION, ovbReading, plainNumber } from '../../src/methods/regression/text';
+import { OVB_CAUTION, notInformativeWords, ovbReadingParts, plainNumber, shownWarnings } from '../../src/methods/regression/text';
+import { conventionsBlock } from '../conventionsBlock';
 import type { PlotSpec } from '../../src/plot/plotSpec';
 import type { PlotPointerDetail } from '../lurk-plot';
 
@@ -38,7 +39,7 @@ export function results(v: OvbResultsView): TemplateResult {
       <p class="caution" role="note">${OVB_CAUTION}</p>`;
   }
   const study = v.study;
-  const reading = ovbReading(result, study);
+  const reading = ovbReadingParts(result, study);
   const specs = v.specs!;
   return html`
     <div class="numbers">
@@ -46,10 +47,12 @@ export function results(v: OvbResultsView): TemplateResult {
       <div><span class="label">Robustness value RV${result.q === 1 ? '' : ` (q = ${plainNumber(result.q)})`}</span><span class="number" id="rv">${formatPercent(result.rv)}</span></div>
       <div><span class="label">RV at α = ${plainNumber(result.alpha)}</span><span class="number" id="rv-alpha">${formatPercent(result.rvAlpha)}</span></div>
     </div>
-    <p class="headline" id="reading">${reading[1]}</p>
-    ${reading.slice(2).map((s) => html`<p>${s}</p>`)}
-    <p class="hint">${reading[0]}</p>
-    ${result.warnings.map((w) => html`<p class="warning" role="note">${w}</p>`)}
+    ${reading.notSignificant ? html`<p class="headline" id="not-significant">${reading.notSignificant}</p>` : nothing}
+    <p class="${reading.notSignificant ? '' : 'headline'}" id="reading">${reading.headline}</p>
+    ${reading.comparison.map((s) => html`<p>${s}</p>`)}
+    <p class="hint">${reading.estimate}</p>
+    ${shownWarnings(result).map((w) => html`<p class="warning" role="note">${w}</p>`)}
+    ${conventionsBlock(result.conventions)}
     <p class="caution" role="note">${OVB_CAUTION}</p>
     ${result.scenario ? scenarioLine(result) : nothing} ${benchmarkTable(result)}
     <div class="plots">
@@ -86,6 +89,9 @@ function scenarioLine(result: OvbResult): TemplateResult {
 
 function benchmarkTable(result: OvbResult): TemplateResult | typeof nothing {
   if (result.benchmarks.length === 0) return nothing;
+  const separate = result.benchmarks.some((b) => b.kOutcome !== b.k);
+  const kCell = (b: OvbResult['benchmarks'][number]) => (separate ? `${plainNumber(b.k)} : ${plainNumber(b.kOutcome)}` : plainNumber(b.k));
+  const tShown = result.seKind === 'classical';
   return html`<h3>Confounders as strong as measured covariates</h3>
     <div class="table-scroll" tabindex="0" role="region" aria-label="Benchmark table (scrolls sideways)">
       <table id="benchmarks">
@@ -93,7 +99,7 @@ function benchmarkTable(result: OvbResult): TemplateResult | typeof nothing {
         <thead>
           <tr>
             <th scope="col">Covariate</th>
-            <th scope="col">k</th>
+            <th scope="col">${separate ? 'k treatment : k outcome' : 'k'}</th>
             <th scope="col">R² with treatment</th>
             <th scope="col">R² with outcome</th>
             <th scope="col">Adjusted estimate</th>
@@ -106,18 +112,26 @@ function benchmarkTable(result: OvbResult): TemplateResult | typeof nothing {
             b.unavailable !== null
               ? html`<tr>
                   <th scope="row">${b.covariate}</th>
-                  <td>${plainNumber(b.k)}</td>
+                  <td>${kCell(b)}</td>
                   <td class="unavailable" colspan="5">Not available: ${b.unavailable}</td>
                 </tr>`
-              : html`<tr>
-                  <th scope="row">${b.covariate}</th>
-                  <td>${plainNumber(b.k)}</td>
-                  <td>${formatPercent(b.r2dz)}</td>
-                  <td>${formatPercent(b.r2yz)}${b.capped ? ' (capped)' : ''}</td>
-                  <td>${formatNumber(b.correctedEstimate, { significant: 4 })}</td>
-                  <td>${formatNumber(b.correctedSe, { significant: 3 })}</td>
-                  <td>${formatNumber(b.correctedT, { digits: 2 })}</td>
-                </tr>`,
+              : !b.informative
+                ? html`<tr>
+                    <th scope="row">${b.covariate}</th>
+                    <td>${kCell(b)}</td>
+                    <td>${formatPercent(b.r2dz)}</td>
+                    <td>${formatPercent(b.r2yz)} (capped)</td>
+                    <td class="unavailable" colspan="3">This bound is not informative: ${notInformativeWords(b)}</td>
+                  </tr>`
+                : html`<tr>
+                    <th scope="row">${b.covariate}</th>
+                    <td>${kCell(b)}</td>
+                    <td>${formatPercent(b.r2dz)}</td>
+                    <td>${formatPercent(b.r2yz)}</td>
+                    <td>${formatNumber(b.correctedEstimate, { significant: 4 })}</td>
+                    <td>${tShown ? formatNumber(b.correctedSe, { significant: 3 }) : '—'}</td>
+                    <td>${tShown ? formatNumber(b.correctedT, { digits: 2 }) : '—'}</td>
+                  </tr>`,
           )}
         </tbody>
       </table>

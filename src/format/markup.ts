@@ -54,6 +54,7 @@ const LATEX_SYMBOLS: Readonly<Record<string, string>> = {
   '~': '\\textasciitilde{}',
   '^': '\\textasciicircum{}',
   '\\': '\\textbackslash{}',
+  '|': '\\textbar{}',
 };
 
 /**

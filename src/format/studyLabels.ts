@@ -32,3 +32,16 @@ export function unitsSuffix(study: Partial<StudyLabels> | undefined): string {
   const units = study?.units?.trim();
   return units ? ` ${units}` : '';
 }
+
+/**
+ * The outcome as a bare noun, for phrases that bring their own article ("the odds of a higher …"): the label,
+ * or "outcome" when none was given (never "a higher the outcome").
+ */
+export function outcomeNoun(study: Partial<StudyLabels> | undefined): string {
+  return study?.outcome?.trim() || 'outcome';
+}
+
+/** The exposure as a bare noun ("the odds of …"): the label, or "treatment" when none was given. */
+export function exposureNoun(study: Partial<StudyLabels> | undefined): string {
+  return study?.exposure?.trim() || 'treatment';
+}

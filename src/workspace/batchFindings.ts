@@ -28,6 +28,9 @@ export type BatchMeasure = (typeof BATCH_MEASURES)[number];
 /** The rule behind the batch table's robustness-value columns, for its help text and notes. */
 export const BATCH_RV_RULE = 'Robustness values are given for regression coefficients (measure coef, with se and df) only; ratio measures get E-values only.';
 
+/** The CSV's note on a row without robustness values because it is not a regression coefficient. */
+export const BATCH_RV_NOTE = 'no robustness value: computed for coef rows only';
+
 export interface BatchRow {
   /** 1-based data row number in the file. */
   readonly row: number;

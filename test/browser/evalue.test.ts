@@ -170,4 +170,32 @@ describe('<lurk-evalue>', () => {
     expect((shadow().querySelector('#upper') as HTMLInputElement).value).toBe('oops');
     expect(text('#upper-error')).toBe('must be a number, got "oops"');
   });
+
+  it('echoes the typed numbers, says first that the interval includes the null, and lists the conventions', async () => {
+    // RR 1.10 (0.90 to 1.35): E-value 1.43 (R: 1.1 + sqrt(1.1 · 0.1), VanderWeele & Ding 2017; plain_words_cases.json)
+    await userEvent.fill(page.getByLabelText('Estimate', { exact: true }), '1.10');
+    await userEvent.fill(page.getByLabelText('Lower limit'), '0.90');
+    await userEvent.fill(page.getByLabelText('Upper limit'), '1.35');
+    await settle();
+    expect(text('.scale')).toMatch(/^Risk ratio 1\.10 \(95% interval 0\.90 to 1\.35\)/);
+    expect(text('.headline')).toMatch(/^The 95% interval already includes the null/);
+    expect(text('#reading-estimate')).not.toMatch(/could not/);
+    expect(text('details.conventions')).toMatch(/The interval E-value uses the limit nearer the target/);
+  });
+
+  it('asks how a 2×2 table was sampled and refuses a risk ratio from a case-control table', async () => {
+    await userEvent.click(page.getByLabelText('A 2×2 table of counts'));
+    await userEvent.fill(page.getByLabelText('Exposed, had the outcome (a)'), '30');
+    await userEvent.fill(page.getByLabelText('Exposed, did not (b)'), '70');
+    await userEvent.fill(page.getByLabelText('Unexposed, had the outcome (c)'), '15');
+    await userEvent.fill(page.getByLabelText('Unexposed, did not (d)'), '85');
+    await settle();
+    // Cohort table: RR = 0.3/0.15 = 2, E-value 3.41 (R, plain_words_cases.json)
+    expect(text('#evalue-estimate')).toBe('3.41');
+    await userEvent.selectOptions(page.getByLabelText('How the table was sampled'), 'case-control');
+    await userEvent.selectOptions(page.getByLabelText('Ratio to compute'), 'rr');
+    await settle();
+    expect(text('#design-error')).toMatch(/case-control table/);
+    expect(events.filter((e) => e.type === 'lurk-inputs-change').at(-1)?.detail.inputs.design).toBe('case-control');
+  });
 });

@@ -180,4 +180,18 @@ describe('<lurk-ovb>', () => {
     const report = await axe.run(element);
     expect(report.violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target).join(' ')}`)).toEqual([]);
   });
+
+  it('asks for the SE’s kind and outcome-side multiples, and says capped bounds in words', async () => {
+    await userEvent.fill(page.getByLabelText('Estimate (coefficient)'), '0.5');
+    await userEvent.fill(page.getByLabelText('Standard error'), '0.2');
+    await userEvent.fill(page.getByLabelText('Degrees of freedom'), '100');
+    await userEvent.selectOptions(page.getByLabelText('How the SE was computed'), 'robust');
+    await settle();
+    expect(text('.warning')).toMatch(/The standard error is robust/);
+    expect(events.filter((e) => e.type === 'lurk-inputs-change').at(-1)?.detail.inputs.seKind).toBe('robust');
+    await userEvent.fill(page.getByLabelText('Outcome side, times as strong (one per k)'), '1, 2');
+    await settle();
+    expect(text('#kOutcome-error')).toMatch(/one outcome-side multiple per/);
+    expect(shadow().textContent).not.toMatch(/NaN|undefined|Infinity/);
+  });
 });

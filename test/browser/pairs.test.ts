@@ -172,4 +172,17 @@ describe('<lurk-pairs>', () => {
     expect(text('#tipping-gamma')).not.toBe('');
     expect(shadow().querySelectorAll('lurk-plot')).toHaveLength(3);
   });
+
+  it('offers Pratt’s rule for zero differences and says when the data point the other way', async () => {
+    await userEvent.click(page.getByLabelText('Numbers pasted in'));
+    // R wilcox.test(d, alternative = "greater", exact = TRUE): p = 0.997; Hodges–Lehmann −0.85 (plain_words_cases.json)
+    await userEvent.fill(page.getByLabelText('Pairs', { exact: true }), '-1.2\n-0.5\n0.3\n-2.1\n-0.8\n-1.1\n0.2\n-0.9\n-1.5\n-0.65');
+    await settle();
+    expect(text('.reading')).toMatch(/^The data point the other way/);
+    await userEvent.selectOptions(page.getByLabelText('Pairs with a zero difference'), 'pratt');
+    await settle();
+    expect(events.filter((e) => e.type === 'lurk-inputs-change').at(-1)?.detail.inputs.zeros).toBe('pratt');
+    expect(text('details.conventions')).toMatch(/Pratt's rule/);
+    expect(shadow().textContent).not.toMatch(/NaN|undefined|Infinity|p = </);
+  });
 });

@@ -65,3 +65,35 @@ describe('parseNumberText', () => {
     expect(parseTypedNumber('1,000.5')).toBeNaN();
   });
 });
+
+describe('p-value clauses, rounding noise and typed echoes', () => {
+  it('writes "p < 0.0001", never "p = < 0.0001" (R: 2^-30 = 9.31e-10, exact signed-rank p of 30 positive pairs)', async () => {
+    const { pValueClause } = await import('../../src/format/formatNumber');
+    expect(pValueClause(9.313225746154793e-10)).toBe('p < 0.0001');
+    expect(pValueClause(1)).toBe('p > 0.9999');
+    expect(pValueClause(0.0123)).toBe('p = 0.0123');
+    expect(pValueClause(NaN)).toBe('p not available');
+  });
+  it('never prints a p-value below 1 as "1.000" (0.9996 keeps four decimals)', () => {
+    expect(formatPValue(0.9996)).toBe('0.9996');
+    expect(formatPValue(0.9994)).toBe('0.999');
+    expect(formatPValue(0.994)).toBe('0.994');
+  });
+  it('cleans rounding noise relative to the data’s scale: 5.55e-17 at scale 1.7 is 0, 1e-6 is kept', async () => {
+    const { withoutRoundingNoise } = await import('../../src/format/formatNumber');
+    expect(withoutRoundingNoise(5.551115123125783e-17, 1.7)).toBe(0);
+    expect(withoutRoundingNoise(-4.440892098500626e-16, 2)).toBe(0);
+    expect(withoutRoundingNoise(1e-6, 1)).toBe(1e-6);
+    expect(withoutRoundingNoise(1e-20, 1e-15)).toBe(1e-20);
+  });
+  it('echoes a number with the precision typed ("1.10" stays "1.10"), else falls back', async () => {
+    const { echoTyped } = await import('../../src/format/formatNumber');
+    const fallback = (x: number | null | undefined) => formatNumber(x);
+    expect(echoTyped(1.1, '1.10', fallback)).toBe('1.10');
+    expect(echoTyped(1.1, ' +1.10 ', fallback)).toBe('1.10');
+    // A decimal comma is not echoed (the report writes a decimal point): the formatted value is shown.
+    expect(echoTyped(1.1, '1,10', fallback)).toBe(formatNumber(1.1));
+    expect(echoTyped(2, '1.10', fallback)).toBe(formatNumber(2));
+    expect(echoTyped(null, '1.10', fallback)).toBe('not available');
+  });
+});

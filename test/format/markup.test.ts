@@ -25,3 +25,9 @@ describe('escaping user text for markups', () => {
     expect(escapeHtml('<b>"a" & \'b\'</b>')).toBe('&lt;b&gt;&quot;a&quot; &amp; &#39;b&#39;&lt;/b&gt;');
   });
 });
+
+describe('escapeLatex: a vertical bar', () => {
+  it('writes "|" as \\textbar{} (in OT1 text mode a bare "|" prints as a dash)', () => {
+    expect(escapeLatex('R²(Y~Z|D,X)')).toBe('R$^2$(Y\\textasciitilde{}Z\\textbar{}D,X)');
+  });
+});

@@ -1,4 +1,4 @@
-import { appraiseBatchCsv, BATCH_COLUMNS, BATCH_MEASURES, type BatchResult } from '../../workspace/batchFindings';
+import { appraiseBatchCsv, BATCH_COLUMNS, BATCH_MEASURES, BATCH_RV_RULE, type BatchResult } from '../../workspace/batchFindings';
 import { batchCsvText } from '../../workspace/batchCsv';
 import { formatNumber, formatPercent } from '../../format/formatNumber';
 import type { LurkCommand } from '../defineCommand';
@@ -21,11 +21,12 @@ FILE is a CSV with one reported finding per row and a header naming its columns:
   ${BATCH_COLUMNS.join(', ')}
 measure is one of ${BATCH_MEASURES.join(', ')} (coef: a linear-regression coefficient: robustness values only).
 measure and estimate are required; give lower and upper, or se. outcome_prevalence (rare or common) is required
-for odds and hazard ratios; sd for a mean difference. Where se and df are both given, robustness values are added
-(t = estimate/SE on the SE's scale: the log ratio for rr, or and hr).
+for odds and hazard ratios; sd for a mean difference.
+${BATCH_RV_RULE} A robustness value is defined for a coefficient's t in a linear
+regression (Cinelli & Hazlett 2020), not for a log risk, odds or hazard ratio.
 A row with a problem is reported with its problem; the other rows are still computed.
 
-  --alpha  significance level for the robustness value RV at level alpha (default 0.05)
+  --alpha  significance level for the robustness value RV at level alpha, coef rows (default 0.05)
   --json   one JSON object: {rows: [...], computed, withProblems, alpha, warnings}
   --csv    a CSV of the results, safe to open in a spreadsheet (text that would run as a formula is neutralised)
 
@@ -73,7 +74,8 @@ export function batchReport(result: BatchResult): string {
   if (result.warnings.length > 0) out.push('', ...result.warnings.map((w) => `Note: ${w}`));
   out.push(
     '',
-    `${result.computed} of ${result.rows.length} findings have an E-value.`,
+    `${result.computed} of ${result.rows.length} findings have an E-value or a robustness value.`,
+    BATCH_RV_RULE,
     'An E-value bounds how strong hidden confounding would have to be; it does not prove causation.',
     '',
   );

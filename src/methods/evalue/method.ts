@@ -22,6 +22,7 @@ const OPTIONS = {
   sd: { type: 'string' },
   target: { type: 'string' },
   counts: { type: 'string' },
+  design: { type: 'string' },
   file: { type: 'string', short: 'f' },
   exposure: { type: 'string' },
   outcome: { type: 'string' },
@@ -39,7 +40,8 @@ From a reported estimate:
   lurk evalue --measure rr|or|hr|smd|md --estimate X [--lower L --upper U | --se S] [--level 0.95]
               [--outcome-prevalence rare|common] [--sd SD] [--target T] [--json]
 From a 2×2 table of counts:
-  lurk evalue --counts a,b,c,d [--measure rr|or] [--level 0.95] [--outcome-prevalence rare|common] [--json]
+  lurk evalue --counts a,b,c,d [--design cohort|case-control] [--measure rr|or] [--level 0.95]
+              [--outcome-prevalence rare|common] [--json]
 From a CSV file with one row per person:
   lurk evalue --file data.csv --exposure COLUMN --outcome COLUMN [--exposed-values V,…] [--outcome-values V,…]
               [--measure rr|or] [--json]
@@ -61,12 +63,26 @@ Options:
   --target              the value to shift the estimate to instead of the null, on the measure's own scale
   --counts              a,b,c,d: exposed with the outcome, exposed without, unexposed with, unexposed without
                         (separate them with ";" or spaces when a count has a thousands separator)
+  --design              how the table (or file) was sampled: cohort (default; also a trial or a cross-section)
+                        or case-control (sampled by outcome: only the odds ratio is allowed). A cohort table
+                        with a common outcome uses its own risk ratio, not the square root of its odds ratio.
   --file                a CSV file (comma, semicolon or tab separated) with a header row; "-" for standard input
   --exposure, --outcome the two columns of the file
   --exposed-values      the cell values that mean exposed (default: found in a 0/1, yes/no or true/false column)
   --outcome-values      the cell values that mean the outcome happened (default as above)
   --reference-confounders  NAME:RR_EXPOSURE:RR_OUTCOME[;…], confounders of known strength to compare with
   --json                print one JSON object instead of the report
+
+Conventions (each report lists the ones that apply):
+  - The E-value is the smallest strength of association, on the risk-ratio scale, that a confounder would need
+    with both the exposure and the outcome, beyond the measured covariates, to move the estimate to the target.
+  - The interval E-value uses the limit nearer the target; it is 1 when the interval contains the target.
+  - With a target beyond the estimate (farther from the null), the E-values refer to confounding that pushed the
+    estimate toward the null; otherwise to confounding that pushed it away from the null.
+  - A rare outcome (under about 15%): an odds or hazard ratio is used as a risk ratio. A common outcome: an odds
+    ratio by its square root (VanderWeele 2017), a hazard ratio by VanderWeele's 2020 approximation. A
+    standardized mean difference d by exp(0.91·d).
+  - A table's interval is the log-scale Wald interval; with a zero cell, 0.5 is added to every cell.
 
 ${NUMBER_READING_RULE}
 
@@ -128,12 +144,14 @@ export function eValueFormFromOptions(values: OptionValues): EValueFormInputs {
       if (given(name) && !allowed.includes(name)) refuse(`--${name}`, 'other-source', `goes with --${owner === 'file' ? 'file or --sql' : owner}, not with --${source}`);
     }
   }
+  if (source === 'estimate' && given('design')) refuse('--design', 'other-source', 'goes with --counts or --file, not with --estimate');
   const base = emptyEValueForm();
   const shared = {
     ...base,
     level: text('level'),
     target: text('target'),
     outcomePrevalence: text('outcome-prevalence') as EValueFormInputs['outcomePrevalence'],
+    design: text('design') as EValueFormInputs['design'],
     confounders: confoundersFromOption(values['reference-confounders']),
   };
   if (source === 'estimate') {

@@ -1,6 +1,7 @@
 import type { EValueCountsResult } from '../../core/eValueAnalysis';
 import type { ReferenceConfounderAssessment } from '../../core/referenceConfounder';
 import type { EValueFormOutcome, EValueSource } from './request';
+import { echoTyped } from '../../format/formatNumber';
 import { MEASURE_LABELS, describeEValue, describeReferenceConfounder, formatEValue, formatLevel, formatMeasureValue, formatPlain } from './text';
 
 /** What the reports are built from: the request reader's outcome (with a result) and where the estimate came from. */
@@ -19,8 +20,9 @@ function parts(input: EValueReportInput) {
 /** The JSON report of `lurk evalue --json`: the inputs echoed, the E-values, the readings and the warnings. */
 export function eValueJsonReport(input: EValueReportInput) {
   const { result, confounders, csv } = parts(input);
-  const reading = describeEValue(result);
-  const table = input.source === 'reported' ? null : (result as EValueCountsResult).table;
+  const reading = describeEValue(result, undefined, input.outcome.typed?.target);
+  const counted = input.source === 'reported' ? null : (result as EValueCountsResult);
+  const table = counted ? counted.table : null;
   return {
     method: result.method,
     references: result.references,
@@ -38,6 +40,10 @@ export function eValueJsonReport(input: EValueReportInput) {
     eValueInterval: result.eValueInterval,
     intervalLimitUsed: result.intervalLimitUsed,
     direction: result.direction,
+    targetDirection: result.targetDirection,
+    design: counted ? counted.design : undefined,
+    requestedMeasure: counted ? counted.requestedMeasure : undefined,
+    conventions: result.conventions,
     table: table
       ? {
           counts: table.counts,
@@ -48,7 +54,7 @@ export function eValueJsonReport(input: EValueReportInput) {
       : undefined,
     file: csv ? { rowsUsed: csv.rowsUsed, rowsMissing: csv.rowsMissing, exposure: csv.exposure, outcome: csv.outcome } : undefined,
     referenceConfounders: confounders.map((c) => ({ ...c, sentence: describeReferenceConfounder(c, result) })),
-    reading: { estimate: reading.estimate, interval: reading.interval },
+    reading: { estimate: reading.estimate, interval: reading.interval, sentences: reading.sentences },
     caution: reading.caution,
     warnings: result.warnings,
   };
@@ -57,21 +63,32 @@ export function eValueJsonReport(input: EValueReportInput) {
 /** The text report of `lurk evalue`: the table (if any), the estimate, the E-values, the readings and the caution. */
 export function eValueTextReport(input: EValueReportInput): string {
   const { result, confounders, csv } = parts(input);
-  const reading = describeEValue(result);
+  const typed = input.outcome.typed;
+  const reading = describeEValue(result, undefined, typed?.target);
   const measure = result.measure;
   const rr = result.riskRatioScale;
   const interval = (lower: number | null, upper: number | null, show: (x: number) => string) =>
     lower === null || upper === null ? '' : `  (${formatLevel(result.level)} interval ${show(lower)} to ${show(upper)})`;
   const own = (x: number) => formatMeasureValue(x, measure);
   const lines: string[] = [];
-  lines.push(`E-value for ${article(MEASURE_LABELS[measure])} ${MEASURE_LABELS[measure]}, against ${result.targetIsNull ? 'the null' : `the target ${own(result.target)}`}`);
+  const echo = (x: number | null | undefined, text: string | undefined) => echoTyped(x, text, (v) => own(v as number));
+  lines.push(`E-value for ${article(MEASURE_LABELS[measure])} ${MEASURE_LABELS[measure]}, against ${result.targetIsNull ? 'the null' : `the target ${echo(result.target, typed?.target)}`}`);
   lines.push('');
   if (input.source !== 'reported') {
     const { counts } = (result as EValueCountsResult).table;
     const from = csv ? `${csv.rowsUsed} rows of the file` : 'the counts';
+    const counted = result as EValueCountsResult;
     lines.push(`  Table (from ${from})   a ${counts.a}, b ${counts.b}, c ${counts.c}, d ${counts.d}`);
+    lines.push(`  Design                  ${counted.design}${counted.requestedMeasure !== counted.measure ? ` (the table's own ${MEASURE_LABELS[counted.measure]} is used)` : ''}`);
   }
-  lines.push(`  Estimate                ${own(result.input.estimate)}${interval(result.interval?.lower ?? null, result.interval?.upper ?? null, own)}`);
+  const typedInterval = result.interval?.source === 'limits' && typed ? { lower: typed.lower, upper: typed.upper } : null;
+  const ownInterval =
+    result.interval === null
+      ? ''
+      : typedInterval
+        ? `  (${formatLevel(result.level)} interval ${echo(result.interval.lower, typedInterval.lower)} to ${echo(result.interval.upper, typedInterval.upper)})`
+        : interval(result.interval.lower, result.interval.upper, own);
+  lines.push(`  Estimate                ${input.source === 'reported' ? echo(result.input.estimate, typed?.estimate) : own(result.input.estimate)}${ownInterval}`);
   if (result.conversion.kind !== 'none') {
     lines.push(`  On the risk-ratio scale ${formatPlain(rr.estimate)}${interval(rr.lower, rr.upper, formatPlain)}`);
     if (!result.targetIsNull) lines.push(`  Target on that scale    ${formatPlain(rr.target)}`);
@@ -84,11 +101,12 @@ export function eValueTextReport(input: EValueReportInput): string {
     lines.push('  E-value, interval       none (no interval given)');
   }
   lines.push('');
-  lines.push(reading.estimate);
-  if (reading.interval) lines.push(reading.interval);
+  for (const sentence of reading.sentences) lines.push(sentence);
   for (const c of confounders) lines.push(describeReferenceConfounder(c, result));
   lines.push('');
   lines.push(`Conversion: ${result.conversion.note}`);
+  lines.push('Conventions:');
+  for (const c of result.conventions) lines.push(`  - ${c.text}`);
   for (const warning of result.warnings) lines.push(`Warning: ${warning}`);
   lines.push('');
   lines.push(reading.caution);

@@ -1,4 +1,5 @@
-import { analyseEValue, analyseEValueFromCounts, validateEValueCountsInput, validateEValueInput } from '../../core/eValueAnalysis';
+import { analyseEValue, analyseEValueFromCounts, STUDY_DESIGNS, validateEValueCountsInput, validateEValueInput } from '../../core/eValueAnalysis';
+import type { StudyDesign } from '../../core/eValueAnalysis';
 import type { EValueCountsInput, EValueInput, EValueResult } from '../../core/eValueAnalysis';
 import { InputError, inputProblem } from '../../core/inputProblem';
 import type { InputProblem } from '../../core/inputProblem';
@@ -46,6 +47,8 @@ export interface EValueFormInputs {
   readonly target: string;
   readonly counts: { readonly a: string; readonly b: string; readonly c: string; readonly d: string };
   readonly tableMeasure: TwoByTwoMeasure;
+  /** How a 2×2 table was sampled: cohort (default when empty) or case-control. */
+  readonly design: '' | StudyDesign;
   readonly fileName: string;
   readonly exposureColumn: string;
   readonly outcomeColumn: string;
@@ -73,6 +76,7 @@ export function emptyEValueForm(): EValueFormInputs {
     target: '',
     counts: Object.freeze({ a: '', b: '', c: '', d: '' }),
     tableMeasure: 'rr',
+    design: '',
     fileName: '',
     exposureColumn: '',
     outcomeColumn: '',
@@ -126,6 +130,7 @@ export function normaliseEValueForm(saved: unknown): EValueFormInputs {
     target: text('target'),
     counts: Object.freeze({ a: countText('a'), b: countText('b'), c: countText('c'), d: countText('d') }),
     tableMeasure: pick('tableMeasure', ['rr', 'or'] as const),
+    design: pick('design', ['', ...STUDY_DESIGNS] as const),
     fileName: text('fileName'),
     exposureColumn: text('exposureColumn'),
     outcomeColumn: text('outcomeColumn'),
@@ -149,6 +154,8 @@ export interface EValueFormOutcome {
   readonly csv: TwoByTwoFromCsv | null;
   /** One entry per confounder row: its assessment, or null while it has problems or no result exists. */
   readonly confounders: ReadonlyArray<ReferenceConfounderAssessment | null>;
+  /** The numbers as typed (estimate, limits, target), so that reports echo them with the precision typed. */
+  readonly typed?: { readonly estimate: string; readonly lower: string; readonly upper: string; readonly target: string };
 }
 
 /**
@@ -230,6 +237,7 @@ export function evaluateEValueForm(form: EValueFormInputs, table: CsvTable | nul
       const input: EValueCountsInput = {
         counts,
         measure: tableMeasure,
+        design: reader.choice('design', form.design, STUDY_DESIGNS),
         level,
         outcomePrevalence: tableMeasure === 'or' ? prevalence : null,
         target,
@@ -263,6 +271,11 @@ export function evaluateEValueForm(form: EValueFormInputs, table: CsvTable | nul
     started,
     csv,
     confounders: Object.freeze(confounders),
+    typed: Object.freeze(
+      form.source === 'reported'
+        ? { estimate: form.estimate, lower: form.intervalBy === 'limits' ? form.lower : '', upper: form.intervalBy === 'limits' ? form.upper : '', target: form.target }
+        : { estimate: '', lower: '', upper: '', target: form.target },
+    ),
   });
 }
 

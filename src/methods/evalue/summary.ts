@@ -1,6 +1,7 @@
 import type { EValueResult } from '../../core/eValueAnalysis';
 import type { ReferenceConfounderAssessment } from '../../core/referenceConfounder';
 import type { RiskRatioConversion } from '../../core/riskRatioScale';
+import { readConventions, type SummaryConvention } from '../summaryConventions';
 import type { EValueFormOutcome } from './request';
 
 /** A reference confounder in the summary: its strengths and what it could do. */
@@ -32,10 +33,20 @@ export type EValueSummary = {
   readonly intervalLimitUsed: string | null;
   /** Reference confounders (e.g. measured covariates of known strength) and what they could do. */
   readonly references: readonly EValueSummaryReference[];
+  /** Which confounding the E-values refer to (see the core's `targetDirection`); absent in older files. */
+  readonly targetDirection?: 'toward-null' | 'away-from-null' | null;
+  /** The conventions the analysis followed, in the core's words; absent in older files. */
+  readonly conventions?: readonly SummaryConvention[];
+  /** The numbers as the user typed them (estimate, limits, target), to echo with the precision typed. */
+  readonly typed?: { readonly estimate: string; readonly lower: string; readonly upper: string; readonly target: string };
 };
 
 /** The summary of a result and its assessed reference confounders. */
-export function eValueSummary(result: EValueResult, references: readonly ReferenceConfounderAssessment[] = []): EValueSummary {
+export function eValueSummary(
+  result: EValueResult,
+  references: readonly ReferenceConfounderAssessment[] = [],
+  typed?: EValueSummary['typed'],
+): EValueSummary {
   return {
     kind: 'evalue',
     measure: result.measure,
@@ -57,6 +68,9 @@ export function eValueSummary(result: EValueResult, references: readonly Referen
       explainsEstimate: r.explainsEstimate,
       explainsInterval: r.explainsInterval,
     })),
+    targetDirection: result.targetDirection,
+    conventions: result.conventions.map((c) => ({ id: c.id, text: c.text })),
+    ...(typed ? { typed: { ...typed } } : {}),
   };
 }
 
@@ -66,6 +80,7 @@ export function summariseEValue(outcome: EValueFormOutcome): EValueSummary | nul
   return eValueSummary(
     outcome.result,
     outcome.confounders.filter((c): c is ReferenceConfounderAssessment => c !== null),
+    outcome.typed,
   );
 }
 
@@ -112,6 +127,9 @@ export function readEValueSummary(saved: unknown): EValueSummary | null {
     eValueInterval: s.eValueInterval as number | null,
     intervalLimitUsed: s.intervalLimitUsed as string | null,
     references: readReferences,
+    targetDirection: s.targetDirection === 'toward-null' || s.targetDirection === 'away-from-null' ? s.targetDirection : null,
+    conventions: readConventions(s.conventions),
+    ...(readTyped(s.typed) ? { typed: readTyped(s.typed) as EValueSummary['typed'] } : {}),
   };
 }
 
@@ -131,4 +149,12 @@ function isNumberOrNull(value: unknown): boolean {
 
 function finite(value: number | null | undefined): number | null {
   return value !== null && value !== undefined && Number.isFinite(value) ? value : null;
+}
+
+function readTyped(value: unknown): EValueSummary['typed'] | null {
+  if (value === null || typeof value !== 'object') return null;
+  const t = value as Record<string, unknown>;
+  const keys = ['estimate', 'lower', 'upper', 'target'] as const;
+  if (!keys.every((k) => typeof t[k] === 'string')) return null;
+  return { estimate: t.estimate as string, lower: t.lower as string, upper: t.upper as string, target: t.target as string };
 }

@@ -2,7 +2,7 @@ import type { EValueResult } from '../../core/eValueAnalysis';
 import type { ReferenceConfounderAssessment } from '../../core/referenceConfounder';
 import { EFFECT_MEASURE_NAMES } from '../../core/riskRatioScale';
 import type { EffectMeasure } from '../../core/riskRatioScale';
-import { formatNumber, formatRatio } from '../../format/formatNumber';
+import { echoTyped, formatNumber, formatRatio } from '../../format/formatNumber';
 import { exposureLabel, outcomeLabel } from '../../format/studyLabels';
 import type { StudyLabels } from '../../format/studyLabels';
 
@@ -43,25 +43,42 @@ export interface EValueReading {
   readonly estimate: string;
   /** What it takes to move the interval to include the target, or null without an interval. */
   readonly interval: string | null;
+  /**
+   * The sentences in the order a reader needs them: when the interval already includes the target, that comes
+   * first, in plain words; a target beyond the estimate says which direction of confounding the E-values concern.
+   */
+  readonly sentences: readonly string[];
   readonly caution: string;
+}
+
+/** Which confounding the E-values refer to, in words, when the target lies beyond the estimate; else null. */
+export function targetDirectionSentence(result: Pick<EValueResult, 'targetDirection' | 'targetIsNull'>): string | null {
+  if (result.targetDirection !== 'away-from-null') return null;
+  return 'The target lies beyond the estimate, farther from the null: these E-values concern confounding that pushed the estimate toward the null (hiding a larger effect), not confounding that inflated it.';
 }
 
 /**
  * Plain sentences for an E-value result, using the study's labels where given: what a hidden confounder
- * would need to explain away the estimate (or move it to the named target), and the interval.
+ * would need to explain away the estimate (or move it to the named target), and the interval. When the interval
+ * already includes the target that is said first, and nothing is claimed about what could not explain it away.
  */
-export function describeEValue(result: EValueResult, study?: Partial<StudyLabels>): EValueReading {
+export function describeEValue(result: EValueResult, study?: Partial<StudyLabels>, typedTarget?: string): EValueReading {
   const exposure = exposureLabel(study);
   const outcome = outcomeLabel(study);
-  const goal = result.targetIsNull ? 'explain away the estimate' : `move the estimate to ${formatMeasureValue(result.target, result.measure, study?.units)}`;
-  const towards = result.targetIsNull ? 'the null' : `the target ${formatMeasureValue(result.target, result.measure, study?.units)}`;
+  const units = result.measure === 'md' ? (study?.units?.trim() ?? '') : '';
+  const targetShown = echoTyped(result.target, typedTarget, formatPlain) + (units ? ` ${units}` : '');
+  const goal = result.targetIsNull ? 'explain away the estimate' : `move the estimate to ${targetShown}`;
+  const towards = result.targetIsNull ? 'the null' : `the target ${targetShown}`;
   const strength = (e: number) =>
     `a hidden confounder would need to be associated with both ${exposure} and ${outcome} by a risk ratio of at least ` +
     `${formatEValue(e)} each, beyond the measured covariates`;
+  const intervalIncludes = result.eValueInterval !== null && result.intervalLimitUsed === 'none';
 
   let estimate: string;
   if (result.direction === 'at-target') {
     estimate = `The estimate already equals ${towards}: no hidden confounding is needed to ${result.targetIsNull ? 'explain it away' : 'reach it'}.`;
+  } else if (intervalIncludes) {
+    estimate = `To ${result.targetIsNull ? 'explain away the point estimate itself' : `move the point estimate itself to ${targetShown}`}, ${strength(result.eValueEstimate)}.`;
   } else {
     estimate =
       `To ${goal}, ${strength(result.eValueEstimate)}. ` +
@@ -71,12 +88,14 @@ export function describeEValue(result: EValueResult, study?: Partial<StudyLabels
   let interval: string | null = null;
   if (result.eValueInterval !== null) {
     const level = formatLevel(result.level);
-    interval =
-      result.intervalLimitUsed === 'none'
-        ? `The ${level} interval already includes ${towards}, so no hidden confounding is needed for the data to be compatible with it (E-value 1).`
-        : `To move the ${level} interval so that it includes ${towards}, ${strength(result.eValueInterval)}.`;
+    interval = intervalIncludes
+      ? `The ${level} interval already includes ${towards}: even with no hidden confounding at all, the data are compatible with ${result.targetIsNull ? 'no effect' : 'that value'} (interval E-value 1).`
+      : `To move the ${level} interval so that it includes ${towards}, ${strength(result.eValueInterval)}.`;
   }
-  return Object.freeze({ estimate, interval, caution: E_VALUE_CAUTION });
+  const direction = targetDirectionSentence(result);
+  const sentences = intervalIncludes && interval ? [interval, estimate] : interval ? [estimate, interval] : [estimate];
+  if (direction && result.direction !== 'at-target') sentences.push(direction);
+  return Object.freeze({ estimate, interval, sentences: Object.freeze(sentences), caution: E_VALUE_CAUTION });
 }
 
 /**

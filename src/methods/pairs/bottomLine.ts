@@ -1,4 +1,4 @@
-import { formatNumber } from '../../format/formatNumber';
+import { formatNumber, pValueClause } from '../../format/formatNumber';
 import { exposureLabel, outcomeLabel, type StudyLabels } from '../../format/studyLabels';
 import type { BottomLinePart } from '../methodModule';
 import type { PairsSummary } from './summary';
@@ -23,8 +23,13 @@ export function pairsBottomLine(p: PairsSummary, study: StudyLabels): BottomLine
       );
       change.push(`A hidden factor that changed the odds of ${exposure} within matched pairs by more than ${g}-fold, and strongly predicted ${outcome}, could overturn the matched comparison.`);
       notChange.push(`Hidden differences in the odds of ${exposure} smaller than ${g}-fold within pairs could not make the matched finding lose significance.`);
+    } else if (p.sensitivityStatus === 'not-significant' && p.pointsOtherWay) {
+      const direction = p.alternative === 'less' ? 'lowers' : 'raises';
+      howStrong.push(
+        `In the matched comparison the data point the other way: they give no support to the idea that ${exposure} ${direction} ${outcome} (${pValueClause(p.pValue)}), so there is nothing for hidden bias to explain away. Whether ${exposure} ${p.alternative === 'less' ? 'raises' : 'lowers'} ${outcome} instead would need its own test, chosen before looking at the data.`,
+      );
     } else if (p.sensitivityStatus === 'not-significant') {
-      howStrong.push(`The matched comparison is not statistically significant even without hidden bias, so it gives no firm evidence of a link on its own.`);
+      howStrong.push(`The matched comparison is not statistically significant even without hidden bias (${pValueClause(p.pValue)}), so it gives no firm evidence of a link on its own and there is nothing for hidden bias to explain away.`);
     } else {
       howStrong.push(`The matched comparison stays significant for every amount of hidden bias examined (up to ${formatNumber(p.searchedUpTo, { digits: 2 })}-fold).`);
     }

@@ -27,6 +27,7 @@ const OPTIONS = {
   'continuity-correction': { type: 'boolean' },
   sql: { type: 'string' },
   summary: { type: 'string' },
+  zeros: { type: 'string' },
 } as const;
 
 /** Form fields (and the fields of the readers' problems) → the option that holds them. */
@@ -53,6 +54,8 @@ const OPTION_OF: Readonly<Record<string, string>> = {
   summaryTable: '--sql',
   summaryResult: '--summary',
   summary: '--summary',
+  zeros: '--zeros',
+  zeroRule: '--zeros',
 };
 
 /** The option a form field stands for: `gammas[1]` → `--gamma`, `data.controlOnly` → `--file`, … */
@@ -128,6 +131,7 @@ export function pairsFormFromOptions(values: OptionValues): PairsFormInputs {
     gammas: text(values.gamma),
     method: text(values.method),
     continuityCorrection: values['continuity-correction'] === true,
+    zeros: text(values.zeros),
   });
 }
 
@@ -156,7 +160,7 @@ export async function runPairsCommand(form: PairsFormInputs, values: OptionValue
   }
   const outcome = analysePairsForm(form, read);
   if (!outcome.result) throw new InputError([...outcome.problems]);
-  return pairsReport(outcome.result, outcome.read?.warnings ?? []);
+  return pairsReport(outcome.result, outcome.read?.warnings ?? [], form.alpha);
 }
 
 async function readPairsFile(form: PairsFormInputs, context: CommandContext): Promise<PairsRead> {

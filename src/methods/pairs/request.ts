@@ -14,6 +14,8 @@ export const PAIRS_TESTS = ['signrank', 'sign'] as const;
 export const PAIRS_ALTERNATIVES = ['greater', 'less'] as const;
 export const PAIRS_TAIL_METHODS = ['auto', 'exact', 'normal'] as const;
 export const PAIRS_OUTCOME_TYPES = ['auto', 'numeric', 'binary'] as const;
+/** How the signed-rank test treats zero differences: Wilcoxon's rule (left out) or Pratt's (ranked, scored 0). */
+export const PAIRS_ZERO_RULES = ['wilcoxon', 'pratt'] as const;
 
 /**
  * Everything the matched-pairs form holds, as the user typed it (text, never parsed numbers), so nothing is
@@ -48,6 +50,8 @@ export interface PairsFormInputs {
   /** Summary statistics: the table the query reads (its columns are the column fields above), and its pasted result. */
   readonly summaryTable?: string;
   readonly summaryResult?: string;
+  /** Zero differences in the signed-rank test: `wilcoxon` (left out; the default when empty) or `pratt`. */
+  readonly zeros: string;
 }
 
 export function emptyPairsForm(): PairsFormInputs {
@@ -70,6 +74,7 @@ export function emptyPairsForm(): PairsFormInputs {
     continuityCorrection: false,
     summaryTable: '',
     summaryResult: '',
+    zeros: 'wilcoxon',
   });
 }
 
@@ -110,6 +115,7 @@ export function normalisePairsForm(saved: unknown): PairsFormInputs {
     continuityCorrection: s.continuityCorrection === true,
     summaryTable: text('summaryTable'),
     summaryResult: text('summaryResult'),
+    zeros: pick('zeros', PAIRS_ZERO_RULES),
   });
 }
 
@@ -145,6 +151,7 @@ export interface PairsSettings {
   readonly alpha?: number;
   readonly gammas?: number[];
   readonly continuityCorrection: boolean;
+  readonly zeroRule?: 'wilcoxon' | 'pratt';
   readonly problems: InputProblem[];
 }
 
@@ -161,7 +168,8 @@ export function readPairsSettings(form: PairsFormInputs): PairsSettings {
   const outcome = reader.choice('outcomeType', form.outcomeType, PAIRS_OUTCOME_TYPES) ?? undefined;
   const alpha = reader.number('alpha', form.alpha, 'fraction') ?? undefined;
   const gammas = reader.numberList('gammas', form.gammas, 'decimal') ?? undefined;
-  return { test, alternative, method, outcome, alpha, gammas, continuityCorrection: form.continuityCorrection === true, problems: reader.problems };
+  const zeroRule = reader.choice('zeros', form.zeros ?? '', PAIRS_ZERO_RULES) ?? undefined;
+  return { test, alternative, method, outcome, alpha, gammas, continuityCorrection: form.continuityCorrection === true, zeroRule, problems: reader.problems };
 }
 
 /** α and the Γ list as typed, with problems named by the form's fields (see {@link readPairsSettings}). */
@@ -205,6 +213,7 @@ export function pairsInputFromForm(form: PairsFormInputs, read: PairsRead | null
     gammas: options.gammas,
     method: options.method,
     continuityCorrection: options.continuityCorrection,
+    ...(options.zeroRule ? { zeroRule: options.zeroRule } : {}),
     droppedRows: used?.droppedRows ?? 0,
   };
   const field = form.source === 'pasted' ? 'pasted' : form.source === 'file' ? 'file' : form.source === 'summary' ? 'summaryResult' : 'treatedOnly';

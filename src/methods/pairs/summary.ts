@@ -1,7 +1,9 @@
 import type { PairsResult } from '../../core/pairsAnalysis';
 import type { TippingGamma } from '../../core/tippingGamma';
 import type { MethodSummary } from '../methodModule';
+import { readConventions, type SummaryConvention } from '../summaryConventions';
 import type { PairsOutcome } from './runner';
+import { cleanEstimate, pointsOtherWay } from './text';
 
 /**
  * Headline numbers of a matched-pairs result, as plain JSON: what an appraisal file keeps so that the robustness
@@ -24,6 +26,14 @@ export interface PairsSummary extends MethodSummary {
   /** The estimate range and sensitivity interval at the Γ nearest below the sensitivity value (or at Γ = 2). */
   readonly rangeAt: { gamma: number | null; estimateLow: number | null; estimateHigh: number | null; intervalLow: number | null; intervalHigh: number | null } | null;
   readonly amplification: ReadonlyArray<{ lambda: number | null; delta: number | null }>;
+  /** Whether the data point against the alternative tested (see `pointsOtherWay` in text.ts); absent in older files. */
+  readonly pointsOtherWay?: boolean;
+  /** How the tails were computed and why (with the measured error of the normal approximation); absent in older files. */
+  readonly tailMethodReason?: string;
+  /** The zero rule of the signed-rank test; absent in older files. */
+  readonly zeroRule?: string;
+  /** The conventions the analysis followed, in the core's words; absent in older files. */
+  readonly conventions?: readonly SummaryConvention[];
 }
 
 /** The summary of a result. */
@@ -44,7 +54,7 @@ export function pairsSummary(result: PairsResult): PairsSummary {
     searchedUpTo: finite(result.searchedUpTo),
     signTestSensitivityValue: finite(result.signTestSensitivityValue),
     tailMethod: result.tailMethod,
-    estimate: finite(result.estimate),
+    estimate: finite(cleanEstimate(result)),
     rangeAt: chosen
       ? {
           gamma: finite(chosen.gamma),
@@ -55,6 +65,10 @@ export function pairsSummary(result: PairsResult): PairsSummary {
         }
       : null,
     amplification: result.amplification.slice(0, 3).map((a) => ({ lambda: finite(a.lambda), delta: finite(a.delta) })),
+    pointsOtherWay: pointsOtherWay(result),
+    tailMethodReason: result.tailMethodReason,
+    zeroRule: result.zeroRule,
+    conventions: result.conventions.map((c) => ({ id: c.id, text: c.text })),
   };
 }
 
@@ -117,6 +131,10 @@ export function readPairsSummary(saved: unknown): PairsSummary | null {
     estimate: read.estimate,
     rangeAt,
     amplification,
+    pointsOtherWay: s.pointsOtherWay === true,
+    ...(typeof s.tailMethodReason === 'string' ? { tailMethodReason: s.tailMethodReason } : {}),
+    ...(typeof s.zeroRule === 'string' ? { zeroRule: s.zeroRule } : {}),
+    conventions: readConventions(s.conventions),
   };
 }
 

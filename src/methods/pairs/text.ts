@@ -1,7 +1,7 @@
 import type { PairsResult } from '../../core/pairsAnalysis';
 import type { AmplifiedPair } from '../../core/amplification';
-import { formatNumber, formatPValue } from '../../format/formatNumber';
-import { outcomeLabel, type StudyLabels } from '../../format/studyLabels';
+import { echoTyped, formatNumber, formatPValue, pValueClause, withoutRoundingNoise } from '../../format/formatNumber';
+import { outcomeLabel, unitsSuffix, type StudyLabels } from '../../format/studyLabels';
 import { formatAsTyped, formatEffect, formatGamma, formatGammaValue } from '../../format/gammaText';
 
 /** The caution that goes with every matched-pairs report. */
@@ -17,10 +17,33 @@ export function formatCount(x: number): string {
   return x.toLocaleString('en-US', { maximumFractionDigits: 1 });
 }
 
-/** "p = 0.0123" or "p < 0.0001". */
+/** "p = 0.0123" or "p < 0.0001" (never "p = < 0.0001"). */
 export function pPhrase(p: number): string {
-  const text = formatPValue(p);
-  return text.startsWith('<') || text.startsWith('>') ? `p ${text}` : `p = ${text}`;
+  return pValueClause(p);
+}
+
+/** The largest magnitude among a result's estimates and interval limits: the data's scale for rounding noise. */
+function estimateScale(result: Pick<PairsResult, 'estimate' | 'estimates'>): number {
+  let scale = Math.abs(result.estimate ?? 0);
+  for (const e of result.estimates) {
+    for (const x of [e.estimateLow, e.estimateHigh, e.intervalLow, e.intervalHigh]) if (Number.isFinite(x)) scale = Math.max(scale, Math.abs(x));
+  }
+  return scale;
+}
+
+/** The Hodges–Lehmann estimate at Γ = 1 without floating-point noise (a zero effect computed as −4.44e-16 is 0). */
+export function cleanEstimate(result: Pick<PairsResult, 'estimate' | 'estimates'>): number | null {
+  return result.estimate === null ? null : withoutRoundingNoise(result.estimate, estimateScale(result));
+}
+
+/**
+ * Whether the data point against the alternative tested: a Hodges–Lehmann estimate of the other sign, or (without
+ * an estimate) fewer pairs favouring the alternative than against it.
+ */
+export function pointsOtherWay(result: Pick<PairsResult, 'alternative' | 'estimate' | 'estimates' | 'favourable' | 'nonZero'>): boolean {
+  const estimate = cleanEstimate(result);
+  if (estimate !== null) return result.alternative === 'greater' ? estimate < 0 : estimate > 0;
+  return result.favourable < result.nonZero - result.favourable;
 }
 
 /** The treatment as the odds sentence needs it ("treatment" when no label was given). */
@@ -56,15 +79,23 @@ export function amplificationPhrase(pair: AmplifiedPair, study?: Partial<StudyLa
  * The plain-language reading of a matched-pairs result: what Γ means here, where the finding tips, an
  * amplification example, and what the estimate range shows.
  */
-export function pairsReading(result: PairsResult, study?: Partial<StudyLabels>): string[] {
+export function pairsReading(result: PairsResult, study?: Partial<StudyLabels>, typedAlpha?: string): string[] {
   const sentences: string[] = [];
   const testName = result.test === 'signrank' ? 'Wilcoxon signed-rank test' : 'sign test';
   const direction =
     result.alternative === 'greater' ? `${treatmentWords(study)} raises ${outcomeLabel(study)}` : `${treatmentWords(study)} lowers ${outcomeLabel(study)}`;
-  const alpha = formatAsTyped(result.alpha);
-  if (result.sensitivityStatus === 'not-significant') {
+  const alpha = echoTyped(result.alpha, typedAlpha, formatAsTyped);
+  if (result.sensitivityStatus === 'not-significant' && pointsOtherWay(result)) {
+    const estimate = cleanEstimate(result);
+    const other = result.alternative === 'greater' ? 'lowers' : 'raises';
     sentences.push(
-      `Even with no hidden bias, the ${testName} does not support the finding that ${direction} at α = ${alpha} (${pPhrase(result.pValue)} across ${result.nonZero} informative pairs), so there is no significant finding for hidden bias to explain away.`,
+      `The data point the other way: ${estimate !== null ? `the Hodges–Lehmann estimate is ${formatEffect(estimate, study)}` : `only ${formatCount(result.favourable)} of ${formatCount(result.nonZero)} informative pairs favour it`}, ` +
+        `so the ${testName} gives no support to the finding that ${direction} (${pPhrase(result.pValue)}, as expected when the data lean the opposite way). ` +
+        `To examine the opposite direction, that ${treatmentWords(study)} ${other} ${outcomeLabel(study)}, choose the alternative "${result.alternative === 'greater' ? 'less' : 'greater'}"; decide the direction from the study's question, not from these data.`,
+    );
+  } else if (result.sensitivityStatus === 'not-significant') {
+    sentences.push(
+      `Even with no hidden bias, the ${testName} does not support the finding that ${direction} at α = ${alpha} (${pPhrase(result.pValue)} across ${formatCount(result.nonZero)} informative pairs), so there is no significant finding for hidden bias to explain away.`,
     );
   } else if (result.sensitivityStatus === 'beyond-range') {
     sentences.push(
@@ -85,10 +116,14 @@ export function pairsReading(result: PairsResult, study?: Partial<StudyLabels>):
       );
     }
   }
-  const last = result.estimates.length > 0 ? result.estimates[result.estimates.length - 1] : null;
+  const raw = result.estimates.length > 0 ? result.estimates[result.estimates.length - 1] : null;
+  const scale = estimateScale(result);
+  const last = raw
+    ? { ...raw, ...Object.fromEntries((['estimateLow', 'estimateHigh', 'intervalLow', 'intervalHigh'] as const).map((k) => [k, withoutRoundingNoise(raw[k], scale)])) }
+    : null;
   if (result.estimate !== null && last) {
     sentences.push(
-      `With no hidden bias the Hodges–Lehmann estimate of the effect is ${formatEffect(result.estimate, study)}; allowing bias up to Γ = ${formatGammaValue(last.gamma)}, the estimate could lie anywhere from ${formatEffect(last.estimateLow, study)} to ${formatEffect(last.estimateHigh, study)}, with a ${formatAsTyped(result.intervalLevel * 100)}% sensitivity interval from ${formatEffect(last.intervalLow, study)} to ${formatEffect(last.intervalHigh, study)}. The interval is two-sided (${formatAsTyped((result.alpha * 100) / 2)}% in each tail), so it can reach no effect at a somewhat smaller Γ than the one-sided test.`,
+      `With no hidden bias the Hodges–Lehmann estimate of the effect is ${formatEffect(cleanEstimate(result), study)}; allowing bias up to Γ = ${formatGammaValue(last.gamma)}, the estimate could lie anywhere from ${formatEffect(last.estimateLow, study)} to ${formatEffect(last.estimateHigh, study)}, with a ${formatAsTyped(result.intervalLevel * 100)}% sensitivity interval from ${formatEffect(last.intervalLow, study)} to ${formatEffect(last.intervalHigh, study)}. The interval is two-sided (${formatAsTyped((result.alpha * 100) / 2)}% in each tail), so it can reach no effect at a somewhat smaller Γ than the one-sided test.`,
     );
   }
   return sentences;
@@ -96,7 +131,8 @@ export function pairsReading(result: PairsResult, study?: Partial<StudyLabels>):
 
 /** The result as one JSON-ready object (infinite interval limits become null, noted in `notes`). */
 export function pairsResultJson(result: PairsResult): Record<string, unknown> {
-  const finite = (x: number) => (Number.isFinite(x) ? x : null);
+  const scale = estimateScale(result);
+  const finite = (x: number) => (Number.isFinite(x) ? withoutRoundingNoise(x, scale) : null);
   return {
     method: result.method,
     test: result.test,
@@ -112,12 +148,16 @@ export function pairsResultJson(result: PairsResult): Record<string, unknown> {
     favourable: result.favourable,
     statistic: result.statistic,
     pValue: result.pValue,
+    pointsOtherWay: pointsOtherWay(result),
     sensitivityValue: result.sensitivityValue,
     sensitivityStatus: result.sensitivityStatus,
     searchedUpTo: result.searchedUpTo,
     signTestSensitivityValue: result.signTestSensitivityValue,
     rows: result.rows.map((r) => ({ gamma: r.gamma, pUpper: r.pUpper, pLower: r.pLower })),
-    estimate: result.estimate,
+    estimate: cleanEstimate(result),
+    zeroRule: result.zeroRule,
+    tieTolerance: result.tieTolerance,
+    conventions: result.conventions,
     intervalLevel: result.intervalLevel,
     estimates: result.estimates.map((e) => ({
       gamma: e.gamma,
@@ -146,11 +186,13 @@ export function pairsTable(result: PairsResult, study?: Partial<StudyLabels>): {
   const header = ['Γ', 'p upper bound', 'p lower bound'];
   const units = study?.units?.trim() ? ` (${study.units.trim()})` : '';
   if (withEstimates) header.push(`estimate low${units}`, `estimate high${units}`, `${formatAsTyped(result.intervalLevel * 100)}% interval${units}`);
+  const scale = estimateScale(result);
   const rows = result.rows.map((row, i) => {
     const cells = [formatGammaValue(row.gamma), formatPValue(row.pUpper), formatPValue(row.pLower)];
     if (withEstimates) {
       const e = result.estimates[i];
-      cells.push(formatEffect(e.estimateLow), formatEffect(e.estimateHigh), `${formatEffect(e.intervalLow)} to ${formatEffect(e.intervalHigh)}`);
+      const tidy = (x: number) => formatEffect(withoutRoundingNoise(x, scale));
+      cells.push(tidy(e.estimateLow), tidy(e.estimateHigh), `${tidy(e.intervalLow)} to ${tidy(e.intervalHigh)}`);
     }
     return cells;
   });
@@ -158,7 +200,7 @@ export function pairsTable(result: PairsResult, study?: Partial<StudyLabels>): {
 }
 
 /** The readable command-line report. */
-export function pairsReportText(result: PairsResult, study?: Partial<StudyLabels>): string {
+export function pairsReportText(result: PairsResult, study?: Partial<StudyLabels>, typedAlpha?: string): string {
   const lines: string[] = [];
   lines.push(`Matched pairs: ${result.method}`);
   const used = `${formatCount(result.n)} pairs used` + (result.droppedRows > 0 ? ` (${formatCount(result.droppedRows)} rows with a missing value left out)` : '');
@@ -168,7 +210,7 @@ export function pairsReportText(result: PairsResult, study?: Partial<StudyLabels
       : `${formatCount(result.nonZero)} informative (discordant or non-tied) pairs, ${formatCount(result.favourable)} favouring the alternative`;
   lines.push(`${used}; ${informative}.`);
   lines.push(
-    `Alternative: treatment ${result.alternative === 'greater' ? 'raises' : 'lowers'} the outcome (one-sided), α = ${formatAsTyped(result.alpha)}. Tails: ${result.tailMethodReason}${result.tailMethod === 'normal' && result.continuityCorrection ? ', with a ½ continuity correction' : ''}.`,
+    `Alternative: treatment ${result.alternative === 'greater' ? 'raises' : 'lowers'} the outcome (one-sided), α = ${echoTyped(result.alpha, typedAlpha, formatAsTyped)}. Tails: ${result.tailMethodReason}${result.tailMethod === 'normal' && result.continuityCorrection ? ', with a ½ continuity correction' : ''}.`,
   );
   lines.push('');
   const tipping =
@@ -179,13 +221,15 @@ export function pairsReportText(result: PairsResult, study?: Partial<StudyLabels
         : `above ${formatNumber(result.searchedUpTo, { significant: 3 })} (the largest Γ searched)`;
   lines.push(`Tipping Γ (sensitivity value): ${tipping}`);
   if (result.test === 'signrank') lines.push(`Sign test tipping Γ, for comparison: ${result.signTestSensitivityValue === null ? 'none' : formatGamma(result.signTestSensitivityValue)}`);
-  if (result.estimate !== null) lines.push(`Hodges–Lehmann estimate (Γ = 1): ${formatEffect(result.estimate, study)}`);
+  if (result.estimate !== null) lines.push(`Hodges–Lehmann estimate (Γ = 1): ${formatEffect(cleanEstimate(result), study)}`);
   lines.push('');
   const table = pairsTable(result, study);
   lines.push(alignTable(table.header, table.rows));
   lines.push('');
-  for (const sentence of pairsReading(result, study)) lines.push(sentence);
+  for (const sentence of pairsReading(result, study, typedAlpha)) lines.push(sentence);
   for (const warning of result.warnings) lines.push(`Note: ${warning}`);
+  lines.push('', 'Conventions:');
+  for (const c of result.conventions) lines.push(`  - ${c.text}`);
   lines.push('');
   lines.push(PAIRS_CAUTION);
   return lines.join('\n') + '\n';

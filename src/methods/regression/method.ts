@@ -77,8 +77,8 @@ async function runOvbCommand(form: OvbFormInputs, values: OptionValues, context:
     ? { kind: 'file', path: form.fileName, data: fitted.data }
     : form.source === 'summary'
       ? { kind: 'summary', path: isInlineResult(form.fileName) ? 'the result given to --summary' : form.fileName, n: outcome.regression?.n ?? 0, outcome: form.outcome, treatment: form.treatment, covariates: covariatesOf(form) }
-      : { kind: 'reported' };
-  return plot ? ovbSvgReport(outcome.result, origin, plot) : ovbCommandReport(outcome.result, origin);
+      : { kind: 'reported', typed: { estimate: form.estimate, se: form.se } };
+  return plot ? ovbSvgReport(outcome.result, origin, plot) : ovbCommandReport(outcome.result, origin, { q: form.q, alpha: form.alpha });
 }
 
 function covariatesOf(form: OvbFormInputs): string[] {

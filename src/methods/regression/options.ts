@@ -1,4 +1,4 @@
-import { DEFAULT_BENCHMARK_MULTIPLES } from '../../core/ovbAnalysis';
+import { DEFAULT_BENCHMARK_MULTIPLES, STRONGEST_COVARIATE_RULE } from '../../core/ovbAnalysis';
 import { InputError, inputProblem } from '../../core/inputProblem';
 import { NUMBER_READING_RULE } from '../../data/numberText';
 import { SUMMARY_ARGUMENT_RULE } from '../summaryArgument';
@@ -24,6 +24,8 @@ export const OVB_OPTIONS: Readonly<Record<string, OptionSpec>> = {
   levels: { type: 'string' },
   benchmark: { type: 'string' },
   k: { type: 'string' },
+  'times-outcome': { type: 'string' },
+  'se-kind': { type: 'string' },
   q: { type: 'string' },
   alpha: { type: 'string' },
   direction: { type: 'string' },
@@ -62,7 +64,12 @@ Options:
                   regression of the treatment on the covariates (needed for its bounds), e.g. age=2.4:-2.6
   --covariate-r2  with reported numbers: a covariate's partial R² with the outcome and, if known, with the
                   treatment (fractions or percentages), e.g. age=0.04:1.2%
-  --k             multiples for the bounds (default ${DEFAULT_BENCHMARK_MULTIPLES.join(',')})
+  --k             multiples for the bounds (default ${DEFAULT_BENCHMARK_MULTIPLES.join(',')}): the confounder is k times as strongly
+                  associated with the treatment as the covariate, and k times with the outcome unless
+  --times-outcome gives separate outcome-side multiples k_Y, one per k (e.g. --k 1,2 --times-outcome 3,3)
+  --se-kind       how the reported standard error was computed: classical (default), robust, clustered or
+                  unknown. The bias formula assumes the classical OLS standard error: with any other kind the
+                  adjusted estimates hold, but the adjusted standard errors and t-values do not (a warning says so)
   --q             fraction of the estimate to explain away (default 1: all of it)
   --alpha         significance level (default 0.05)
   --direction     toward-zero (default) or away-from-zero: which way the confounder moves the estimate
@@ -72,6 +79,15 @@ Options:
                   (with --sql: {query, table, outcome, treatment, covariates})
   --svg PLOT      print a plot as SVG instead of the report: estimate (contours of the adjusted estimate),
                   t (contours of the adjusted t) or extreme (extreme scenarios); e.g. --svg t > contours.svg
+
+Conventions (each report lists the ones that apply):
+  - The partial R² and RV_q use the residual degrees of freedom df; the significance threshold (RV_q,α and the
+    adjusted t) uses Student's t with df − 1, since the model with the confounder has one more coefficient.
+  - A covariate's t in the outcome regression becomes a partial R² with df degrees of freedom; its t in the
+    regression of the treatment on the covariates with df + 1.
+  - ${STRONGEST_COVARIATE_RULE}
+  - A bound on the outcome side is capped at 100% of the outcome's residual variance; a capped bound is not
+    informative (the report says so in words).
 
 ${NUMBER_READING_RULE}
 
@@ -109,6 +125,8 @@ export function ovbFormFromOptions(values: OptionValues): OvbFormInputs {
   const base = emptyOvbForm();
   const settings: Partial<OvbFormInputs> = {
     k: text('k') ?? base.k,
+    kOutcome: text('times-outcome') ?? '',
+    seKind: text('se-kind') ?? '',
     q: text('q') ?? base.q,
     alpha: text('alpha') ?? base.alpha,
     direction: text('direction') ?? base.direction,
@@ -194,6 +212,8 @@ const FIELD_OPTIONS: [RegExp, string][] = [
   [/^summaryResult$/, '--summary'],
   [/^summaryLevels$/, '--levels'],
   [/^summaryTable$/, '--sql'],
+  [/^kOutcome\b/, '--times-outcome'],
+  [/^seKind$/, '--se-kind'],
   [/^(estimate|se|df|n|parameters|outcome|treatment|k|q|alpha|direction|r2dz|r2yz)$/, ''],
 ];
 

@@ -9,14 +9,18 @@ import { ovbExtremeScenarioPlot } from './ovbExtremeScenarioPlot';
 
 /** Where the regression's numbers came from, for the report's data line and the JSON's extra fields. */
 export type OvbDataOrigin =
-  | { readonly kind: 'reported' }
+  | { readonly kind: 'reported'; readonly typed?: { readonly estimate: string; readonly se: string } }
   | { readonly kind: 'file'; readonly path: string; readonly data: RegressionData }
   | { readonly kind: 'summary'; readonly path: string; readonly n: number; readonly outcome: string; readonly treatment: string; readonly covariates: readonly string[] };
 
-/** The report of an analysis: the text for people and the JSON object (every field of the command's JSON). */
-export function ovbCommandReport(result: OvbResult, origin: OvbDataOrigin): CommandReport {
+/**
+ * The report of an analysis: the text for people and the JSON object (every field of the command's JSON).
+ * `settings` are q and α as typed, echoed with the precision typed.
+ */
+export function ovbCommandReport(result: OvbResult, origin: OvbDataOrigin, settings: { readonly q?: string; readonly alpha?: string } = {}): CommandReport {
   const { dataNote, study, extra } = describeOrigin(origin);
-  return { text: ovbReport(result, { dataNote, study }), json: JSON.parse(ovbJson(result, extra)) as unknown };
+  const typed = { ...(origin.kind === 'reported' ? origin.typed : {}), ...settings };
+  return { text: ovbReport(result, { dataNote, study, typed }), json: JSON.parse(ovbJson(result, extra)) as unknown };
 }
 
 /** One plot of an analysis as SVG: contours of the adjusted estimate or t, or the extreme scenarios. */

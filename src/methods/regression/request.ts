@@ -1,4 +1,4 @@
-import { analyseOvb, validateOvbInput, type OvbBenchmarkInput, type OvbInput, type OvbResult } from '../../core/ovbAnalysis';
+import { analyseOvb, STANDARD_ERROR_KINDS, validateOvbInput, type OvbBenchmarkInput, type OvbInput, type OvbResult } from '../../core/ovbAnalysis';
 import { ovbRegressionSummary, type OvbRegressionSpec, type OvbRegressionSummary } from '../../core/ovbRegression';
 import { designFromCrossProducts } from '../../core/crossProductFit';
 import { INTERCEPT_NAME, type TriangularDesign } from '../../core/linearModel';
@@ -66,6 +66,10 @@ export interface OvbFormInputs {
   /** Summary statistics with categorical covariates: the pasted result of the levels query (or {"column": [levels]}). */
   readonly summaryLevels?: string;
   readonly k: string;
+  /** Outcome-side multiples k_Y, one per k (empty: k_Y = k). */
+  readonly kOutcome?: string;
+  /** How the reported standard error was computed: classical, robust, clustered or unknown (empty: classical). */
+  readonly seKind?: string;
   readonly q: string;
   readonly alpha: string;
   /** toward-zero or away-from-zero, as typed (read without regard to case). */
@@ -98,6 +102,8 @@ export function emptyOvbForm(): OvbFormInputs {
     summaryResult: '',
     summaryLevels: '',
     k: '1, 2, 3',
+    kOutcome: '',
+    seKind: '',
     q: '1',
     alpha: '0.05',
     direction: 'toward-zero',
@@ -147,6 +153,8 @@ export function normaliseOvbForm(saved: unknown): OvbFormInputs {
     summaryResult: text('summaryResult'),
     summaryLevels: asText(s.summaryLevels),
     k: text('k'),
+    kOutcome: typeof s.kOutcome === 'string' ? s.kOutcome : '',
+    seKind: typeof s.seKind === 'string' && (STANDARD_ERROR_KINDS as readonly string[]).includes(s.seKind.trim().toLowerCase()) ? s.seKind.trim().toLowerCase() : '',
     q: text('q'),
     alpha: text('alpha'),
     direction: direction ?? 'toward-zero',
@@ -427,13 +435,15 @@ function benchmarkGroups(form: OvbFormInputs) {
   return groups ? { benchmarks: groups } : {};
 }
 
-function readSettings(form: OvbFormInputs, reader: FieldReader): Pick<OvbInput, 'q' | 'alpha' | 'direction' | 'k' | 'scenario'> {
+function readSettings(form: OvbFormInputs, reader: FieldReader): Pick<OvbInput, 'q' | 'alpha' | 'direction' | 'k' | 'kOutcome' | 'seKind' | 'scenario'> {
   const problems = reader.problems;
   const q = opt(reader.number('q', form.q, 'fraction'));
   const alpha = opt(reader.number('alpha', form.alpha, 'fraction'));
   const direction = reader.choice('direction', form.direction, DIRECTIONS) ?? 'toward-zero';
   const kText = form.k.trim();
   const k = reader.numberList('k', kText, 'decimal') ?? [];
+  const kOutcome = reader.numberList('kOutcome', form.kOutcome ?? '', 'decimal');
+  const seKind = reader.choice('seKind', form.seKind ?? '', STANDARD_ERROR_KINDS);
   const r2dz = opt(reader.number('r2dz', form.r2dz, 'fraction'));
   const r2yz = opt(reader.number('r2yz', form.r2yz, 'fraction'));
   if ((r2dz === undefined) !== (r2yz === undefined) && !problems.some((p) => p.field === 'r2dz' || p.field === 'r2yz')) {
@@ -444,6 +454,8 @@ function readSettings(form: OvbFormInputs, reader: FieldReader): Pick<OvbInput, 
     ...(alpha !== undefined ? { alpha } : {}),
     direction,
     ...(kText !== '' ? { k } : {}),
+    ...(kOutcome !== null ? { kOutcome } : {}),
+    ...(seKind !== null ? { seKind } : {}),
     ...(r2dz !== undefined && r2yz !== undefined ? { scenario: { r2dz, r2yz } } : {}),
   };
 }
@@ -461,6 +473,7 @@ function toFormField(p: InputProblem, rowOfBenchmark: readonly number[]): InputP
   let field = p.field;
   if (field.startsWith('scenario.')) field = field.slice('scenario.'.length);
   else if (/^k\[\d+\]$/.test(field)) field = 'k';
+  else if (/^kOutcome\[\d+\]$/.test(field)) field = 'kOutcome';
   else {
     const m = /^benchmarks\[(\d+)\]\.(\w+)$/.exec(field);
     if (m) {

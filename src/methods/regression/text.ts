@@ -1,5 +1,5 @@
 import type { OvbBenchmarkRow, OvbResult } from '../../core/ovbAnalysis';
-import { formatNumber, formatPercent } from '../../format/formatNumber';
+import { echoTyped, formatNumber, formatPercent, withoutRoundingNoise } from '../../format/formatNumber';
 import { exposureLabel, outcomeLabel, unitsSuffix, type StudyLabels } from '../../format/studyLabels';
 
 /** The caution that goes with every omitted-variable-bias report. */
@@ -21,33 +21,100 @@ export function ovbGoalText(q: number): string {
   return `reduce the estimate by ${formatPercent(q, 0)}`;
 }
 
-/** The benchmark whose covariate is strongest with both treatment and outcome (largest smaller partial R²; covariates whose association with the treatment is unknown only when no other is available). */
-export function strongestBenchmark(result: OvbResult): OvbBenchmarkRow | null {
-  const seen = new Set<string>();
-  let best: OvbBenchmarkRow | null = null;
-  let bestScore = -Infinity;
-  for (const row of result.benchmarks) {
-    if (seen.has(row.covariate)) continue;
-    seen.add(row.covariate);
-    // Covariates with both associations known come first (by the smaller of the two), then the others.
-    const score = Number.isFinite(row.r2dxj) ? 1 + Math.min(row.r2dxj, row.r2yxj) : row.r2yxj;
-    if (score > bestScore) {
-      best = row;
-      bestScore = score;
-    }
+/**
+ * The benchmark row of the strongest measured covariate: the core's `strongestCovariate` (one rule, see
+ * STRONGEST_COVARIATE_RULE), its row at k_D = k_Y = 1 when there is one; null when the core names none.
+ */
+export function strongestBenchmark(result: Pick<OvbResult, 'benchmarks' | 'strongestCovariate'>): OvbBenchmarkRow | null {
+  if (result.strongestCovariate === null) return null;
+  const rows = result.benchmarks.filter((b) => b.covariate === result.strongestCovariate);
+  return rows.find((b) => b.kTreatment === 1 && b.kOutcome === 1) ?? rows[0] ?? null;
+}
+
+/** Why a capped bound says nothing, in words a reader can use (no "standard error 0, t not available"). */
+export const CAPPED_BOUND_WORDS =
+  'a confounder this strong could account for all of the outcome’s remaining variation (its bound on the share of the outcome’s residual variance is capped at 100%), so the adjusted estimate’s precision, and with it its significance, cannot be judged';
+
+/** Why a benchmark bound is not informative, in words: the capped case in {@link CAPPED_BOUND_WORDS}, else the core's reason. */
+export function notInformativeWords(row: Pick<OvbBenchmarkRow, 'unavailable' | 'reason' | 'informative'>): string {
+  if (row.informative) return '';
+  return row.unavailable === null ? CAPPED_BOUND_WORDS : (row.reason ?? row.unavailable);
+}
+
+/** The result's warnings as shown to people: a capped bound's note says why in words, not "standard error 0, t not available". */
+export function shownWarnings(result: Pick<OvbResult, 'warnings'>): string[] {
+  return result.warnings.map((w) => w.replace(/ \(adjusted standard error 0, adjusted t not available\)\.$/, `: ${CAPPED_BOUND_WORDS}.`));
+}
+
+/** Whether the estimate is statistically significant before any adjustment (|t| above the threshold). */
+export function significantBeforeAdjustment(result: Pick<OvbResult, 't' | 'criticalT'>): boolean {
+  return Math.abs(result.t) > result.criticalT;
+}
+
+/** "5%" for α = 0.05, "0.5%" for α = 0.005. */
+function levelText(alpha: number): string {
+  return formatPercent(alpha, alpha * 100 < 1 ? 1 : 0);
+}
+
+/**
+ * What one benchmark bound does, in a sentence that agrees with its numbers: not informative (capped), enough to
+ * reach the goal, enough to take away significance (adjusted |t| at or below the threshold), or neither.
+ */
+export function benchmarkSentence(result: OvbResult, row: OvbBenchmarkRow): string {
+  const who = `a confounder ${multipleWords(row)} ${row.covariate}`;
+  if (!row.informative) return `For ${who}, this bound is not informative: ${notInformativeWords(row)}.`;
+  const adjusted = formatNumber(withoutRoundingNoise(row.correctedEstimate, Math.abs(result.estimate)), { significant: 3 });
+  if (result.direction === 'toward-zero' && overturned(result, row)) {
+    return `${capitalise(who)} would be enough to ${ovbGoalText(result.q)} (adjusted estimate ${adjusted}).`;
   }
-  return best;
+  if (result.seKind !== 'classical') {
+    return `${capitalise(who)} would leave an adjusted estimate of ${adjusted}; its t is not shown, because the standard error is ${result.seKind === 'unknown' ? 'of unknown kind' : result.seKind} and the adjusted t assumes a classical one.`;
+  }
+  const t = formatNumber(row.correctedT, { digits: 2 });
+  const threshold = formatNumber(result.criticalT, { digits: 2 });
+  if (!significantBeforeAdjustment(result)) {
+    return `${capitalise(who)} would leave an adjusted estimate of ${adjusted} (t = ${t}); the estimate was not statistically significant at the ${levelText(result.alpha)} level to begin with.`;
+  }
+  if (Math.abs(row.correctedT) <= result.criticalT) {
+    return `${capitalise(who)} would leave an adjusted estimate of ${adjusted}, but with t = ${t}, at or below the ${threshold} needed at the ${levelText(result.alpha)} level: the estimate would no longer be statistically significant.`;
+  }
+  return `Even ${who} would leave an adjusted estimate of ${adjusted}, still statistically significant at the ${levelText(result.alpha)} level (t = ${t}, above ${threshold}).`;
 }
 
 /**
  * The plain-language reading of the analysis: how strong a confounder would have to be, compared with the
- * strongest measured covariate; a few sentences, every number formatted for people.
+ * strongest measured covariate; a few sentences, every number formatted for people. When the estimate is not
+ * significant before any adjustment, that comes first.
  */
 export function ovbReading(result: OvbResult, study?: Partial<StudyLabels>): string[] {
+  const parts = ovbReadingParts(result, study);
+  return [...(parts.notSignificant ? [parts.notSignificant] : []), parts.estimate, parts.headline, ...parts.comparison];
+}
+
+/** The reading in its parts, for a page that lays them out: see {@link ovbReading} for the order. */
+export interface OvbReadingParts {
+  /** Said first when the estimate is not significant before any adjustment; else null. */
+  readonly notSignificant: string | null;
+  /** The estimate, its SE, t, df and partial R². */
+  readonly estimate: string;
+  /** How strong a confounder would have to be (the robustness values). */
+  readonly headline: string;
+  /** The strongest measured covariate and what a confounder like it would do. */
+  readonly comparison: readonly string[];
+}
+
+export function ovbReadingParts(result: OvbResult, study?: Partial<StudyLabels>): OvbReadingParts {
   const exposure = exposureLabel(study);
   const outcome = outcomeLabel(study);
   const sentences: string[] = [];
-  const level = formatPercent(result.alpha, result.alpha * 100 < 1 ? 1 : 0);
+  const level = levelText(result.alpha);
+  const significant = significantBeforeAdjustment(result);
+  let notSignificant: string | null = null;
+  if (!significant) {
+    notSignificant = (
+      `Even before any adjustment for hidden confounding, the estimate is not statistically significant at the ${level} level (t = ${formatNumber(result.t, { digits: 2 })}, threshold ${formatNumber(result.criticalT, { digits: 2 })}): the data are compatible with no effect of ${exposure} on ${outcome}.`
+    );
+  }
   sentences.push(
     `The estimate of ${formatNumber(result.estimate, { significant: 4 })}${unitsSuffix(study)} (standard error ${formatNumber(result.se, {
       significant: 3,
@@ -60,9 +127,7 @@ export function ovbReading(result: OvbResult, study?: Partial<StudyLabels>): str
   } else {
     sentences.push(
       `A hidden confounder would have to explain at least ${formatPercent(result.rv)} of the residual variance of both ${exposure} and ${outcome} to ${ovbGoalText(result.q)}` +
-        (result.rvAlpha > 0
-          ? `, and at least ${formatPercent(result.rvAlpha)} of both to make it lose statistical significance at the ${level} level.`
-          : `; the estimate is not statistically significant at the ${level} level even without confounding.`),
+        (significant && result.rvAlpha > 0 ? `, and at least ${formatPercent(result.rvAlpha)} of both to make it lose statistical significance at the ${level} level.` : '.'),
     );
   }
   const strongest = strongestBenchmark(result);
@@ -71,20 +136,25 @@ export function ovbReading(result: OvbResult, study?: Partial<StudyLabels>): str
       ? `explains ${formatPercent(strongest.r2dxj)} of the residual variance of ${exposure} and ${formatPercent(strongest.r2yxj)} of that of ${outcome}`
       : `explains ${formatPercent(strongest.r2yxj)} of the residual variance of ${outcome} (its association with ${exposure} is not known)`;
     sentences.push(`The strongest measured covariate, ${strongest.covariate}, ${both}.`);
-    const bounds = result.benchmarks.filter((b) => b.covariate === strongest.covariate && b.unavailable === null);
-    const flips = bounds.find((b) => (result.direction === 'toward-zero' ? overturned(result, b) : false));
-    if (flips) {
-      sentences.push(
-        `A confounder ${timesAsStrong(flips.k)} ${strongest.covariate} would be enough to ${ovbGoalText(result.q)} (adjusted estimate ${formatNumber(flips.correctedEstimate, { significant: 3 })}).`,
-      );
-    } else if (bounds.length > 0) {
-      const last = bounds[bounds.length - 1];
-      sentences.push(
-        `Even a confounder ${timesAsStrong(last.k)} ${strongest.covariate} would leave an adjusted estimate of ${formatNumber(last.correctedEstimate, { significant: 3 })} (t = ${formatNumber(last.correctedT, { digits: 2 })}).`,
-      );
-    }
+    const bounds = result.benchmarks.filter((b) => b.covariate === strongest.covariate);
+    const flips = result.direction === 'toward-zero' ? bounds.find((b) => b.informative && overturned(result, b)) : undefined;
+    if (flips) sentences.push(benchmarkSentence(result, flips));
+    else if (bounds.length > 0) sentences.push(benchmarkSentence(result, bounds[bounds.length - 1]));
   }
-  return sentences;
+  const [estimate, headline, ...comparison] = sentences;
+  return Object.freeze({ notSignificant, estimate, headline, comparison: Object.freeze(comparison) });
+}
+
+/** "as strong as" for k = 1, "2 times as strong as" otherwise; separate multiples named for each side. */
+function multipleWords(row: Pick<OvbBenchmarkRow, 'k' | 'kOutcome'>): string {
+  if (row.kOutcome !== undefined && row.kOutcome !== row.k) {
+    return `${plainNumber(row.k)} times as strongly related to the treatment and ${plainNumber(row.kOutcome)} times to the outcome as`;
+  }
+  return timesAsStrong(row.k);
+}
+
+function capitalise(text: string): string {
+  return text.charAt(0).toUpperCase() + text.slice(1);
 }
 
 /** "as strong as" for k = 1, "2 times as strong as" otherwise. */
@@ -99,50 +169,67 @@ function overturned(result: OvbResult, row: OvbBenchmarkRow): boolean {
 }
 
 /** A readable multi-line report for the command line, ending with the caution. */
-export function ovbReport(result: OvbResult, options: { study?: Partial<StudyLabels>; dataNote?: string } = {}): string {
+export function ovbReport(
+  result: OvbResult,
+  options: {
+    study?: Partial<StudyLabels>;
+    dataNote?: string;
+    typed?: { readonly estimate?: string; readonly se?: string; readonly q?: string; readonly alpha?: string };
+  } = {},
+): string {
   const lines: string[] = [];
   lines.push('Omitted-variable bias: how strong would a hidden confounder have to be?', '');
   if (options.dataNote) lines.push(options.dataNote, '');
   const pct = (x: number) => formatPercent(x, 1);
   lines.push(
-    `  estimate              ${formatNumber(result.estimate, { significant: 6 })}`,
-    `  standard error        ${formatNumber(result.se, { significant: 6 })}`,
+    `  estimate              ${echoTyped(result.estimate, options.typed?.estimate, (x) => formatNumber(x, { significant: 6 }))}`,
+    `  standard error        ${echoTyped(result.se, options.typed?.se, (x) => formatNumber(x, { significant: 6 }))}`,
     `  t                     ${formatNumber(result.t, { digits: 3 })}`,
     `  residual df           ${plainNumber(result.df)}`,
     '',
     `  partial R² of the treatment with the outcome   ${pct(result.partialR2)}`,
-    `  robustness value RV (q = ${plainNumber(result.q)})`.padEnd(49) + pct(result.rv),
-    `  robustness value at α = ${plainNumber(result.alpha)}`.padEnd(49) + pct(result.rvAlpha),
+    `  robustness value RV (q = ${echoTyped(result.q, options.typed?.q, (x) => plainNumber(x as number))})`.padEnd(49) + pct(result.rv),
+    `  robustness value at α = ${echoTyped(result.alpha, options.typed?.alpha, (x) => plainNumber(x as number))}`.padEnd(49) + pct(result.rvAlpha),
   );
   if (result.scenario) {
     const s = result.scenario;
     lines.push(
       '',
-      `  With R²(D~Z|X) = ${pct(s.r2dz)} and R²(Y~Z|D,X) = ${pct(s.r2yz)}: adjusted estimate ${formatNumber(s.correctedEstimate, {
+      `  With R²(D~Z|X) = ${pct(s.r2dz)} and R²(Y~Z|D,X) = ${pct(s.r2yz)}: adjusted estimate ${formatNumber(withoutRoundingNoise(s.correctedEstimate, Math.abs(result.estimate)), {
         significant: 4,
       })}, SE ${formatNumber(s.correctedSe, { significant: 4 })}, t ${formatNumber(s.correctedT, { digits: 2 })}`,
     );
   }
   if (result.benchmarks.length > 0) {
-    lines.push('', 'Bounds on a confounder k times as strong as a measured covariate:');
-    const header = ['covariate', 'k', 'R²(D~Z|X)', 'R²(Y~Z|D,X)', 'adj. estimate', 'adj. SE', 'adj. t'];
+    const separate = result.benchmarks.some((b) => b.kOutcome !== b.k);
+    lines.push('', separate ? 'Bounds on a confounder k_D times (treatment side) and k_Y times (outcome side) as strong as a measured covariate:' : 'Bounds on a confounder k times as strong as a measured covariate:');
+    const header = ['covariate', separate ? 'k_D:k_Y' : 'k', 'R²(D~Z|X)', 'R²(Y~Z|D,X)', 'adj. estimate', 'adj. SE', 'adj. t'];
+    const kCell = (b: OvbBenchmarkRow) => (separate ? `${plainNumber(b.k)}:${plainNumber(b.kOutcome)}` : plainNumber(b.k));
+    const tShown = result.seKind === 'classical';
     const rows = result.benchmarks.map((b) =>
       b.unavailable !== null
-        ? [b.covariate, plainNumber(b.k), '—', '—', `not available: ${b.unavailable}`, '', '']
-        : [
-            b.covariate,
-            plainNumber(b.k),
-            pct(b.r2dz),
-            pct(b.r2yz) + (b.capped ? ' (capped)' : ''),
-            formatNumber(b.correctedEstimate, { significant: 4 }),
-            formatNumber(b.correctedSe, { significant: 4 }),
-            formatNumber(b.correctedT, { digits: 2 }),
-          ],
+        ? [b.covariate, kCell(b), '—', '—', `not available: ${b.unavailable}`, '', '']
+        : !b.informative
+          ? [b.covariate, kCell(b), pct(b.r2dz), `${pct(b.r2yz)} (capped)`, formatNumber(withoutRoundingNoise(b.correctedEstimate, Math.abs(result.estimate)), { significant: 4 }), '—', '—']
+          : [
+              b.covariate,
+              kCell(b),
+              pct(b.r2dz),
+              pct(b.r2yz),
+              formatNumber(withoutRoundingNoise(b.correctedEstimate, Math.abs(result.estimate)), { significant: 4 }),
+              tShown ? formatNumber(b.correctedSe, { significant: 4 }) : '—',
+              tShown ? formatNumber(b.correctedT, { digits: 2 }) : '—',
+            ],
     );
     const widths = header.map((h, c) => Math.max(h.length, ...rows.filter((r) => r[5] !== '').map((r) => r[c].length)));
     const fmt = (cells: string[]) => '  ' + cells.map((cell, c) => (c === 0 ? cell.padEnd(widths[c]) : cell.padStart(widths[c]))).join('  ').trimEnd();
     lines.push(fmt(header));
     for (const r of rows) lines.push(r[5] === '' ? `  ${r[0].padEnd(widths[0])}  ${r[1].padStart(widths[1])}  ${r[4]}` : fmt(r));
+    for (const b of result.benchmarks) {
+      if (b.unavailable === null && !b.informative) lines.push(`  ${b.covariate} (${kCell(b)}): this bound is not informative: ${notInformativeWords(b)}.`);
+    }
+    if (!tShown) lines.push(`  Adjusted SE and t are not shown: the standard error is ${result.seKind === 'unknown' ? 'of unknown kind' : result.seKind}, and they assume a classical one.`);
+    if (result.strongestCovariate !== null) lines.push(`  Strongest measured covariate: ${result.strongestCovariate}`);
   }
   if (result.direction === 'toward-zero') {
     lines.push('', `Extreme scenarios (R²(D~Z|X) needed to ${ovbGoalText(result.q)}):`);
@@ -151,7 +238,8 @@ export function ovbReport(result: OvbResult, options: { study?: Partial<StudyLab
     }
   }
   lines.push('', ...ovbReading(result, options.study));
-  if (result.warnings.length > 0) lines.push('', ...result.warnings.map((w) => `Note: ${w}`));
+  if (result.warnings.length > 0) lines.push('', ...shownWarnings(result).map((w) => `Note: ${w}`));
+  lines.push('', 'Conventions:', ...result.conventions.map((c) => `  - ${c.text}`));
   lines.push('', OVB_CAUTION, '');
   return lines.join('\n');
 }
@@ -161,6 +249,8 @@ export function ovbJson(result: OvbResult, extra: Record<string, unknown> = {}):
   const benchmarks = result.benchmarks.map((b) => ({
     covariate: b.covariate,
     k: b.k,
+    kTreatment: b.kTreatment,
+    kOutcome: b.kOutcome,
     r2dz: b.r2dz,
     r2yz: b.r2yz,
     correctedEstimate: b.correctedEstimate,
@@ -170,6 +260,9 @@ export function ovbJson(result: OvbResult, extra: Record<string, unknown> = {}):
     r2yxj: b.r2yxj,
     capped: b.capped,
     unavailable: b.unavailable,
+    informative: b.informative,
+    reason: b.informative ? null : notInformativeWords(b),
+    sentence: benchmarkSentence(result, b),
   }));
   const body = {
     estimate: result.estimate,
@@ -183,12 +276,17 @@ export function ovbJson(result: OvbResult, extra: Record<string, unknown> = {}):
     alpha: result.alpha,
     direction: result.direction,
     criticalT: result.criticalT,
+    significantBeforeAdjustment: significantBeforeAdjustment(result),
+    seKind: result.seKind,
+    kOutcome: result.kOutcome,
+    strongestCovariate: result.strongestCovariate,
+    conventions: result.conventions,
     benchmarks,
     extremeScenarios: result.extremeScenarios,
     scenario: result.scenario,
     ...extra,
     reading: ovbReading(result).join(' '),
-    warnings: result.warnings,
+    warnings: shownWarnings(result),
     method: result.method,
     references: result.references,
     caution: OVB_CAUTION,

@@ -5,6 +5,7 @@ import { evalueMethod } from '../../../src/methods/evalue/method';
 import { emptyEValueForm, evaluateEValueForm, type EValueFormInputs } from '../../../src/methods/evalue/request';
 import type { CommandContext, OptionValues } from '../../../src/methods/methodModule';
 import { expectClose } from '../../support/expectClose';
+import { readReferenceJson } from '../../support/reference';
 
 const { command } = evalueMethod;
 
@@ -161,5 +162,49 @@ describe('evalueMethod.form and workspace', () => {
     expect(evalueMethod.workspace.readSummary({ ...summary, eValueEstimate: 'big' })).toBeNull();
     expect(evalueMethod.workspace.readSummary(null)).toBeNull();
     expect(evalueMethod.workspace.summarise(page({}))).toBeNull();
+  });
+});
+
+describe('evalueMethod.command: the table’s design, conventions and typed numbers', () => {
+  const plainWords = readReferenceJson('plain_words_cases.json');
+  it('a cohort table with a common outcome uses its own risk ratio, no √OR (R: RR 2, E-values 3.41 and 1.56)', async () => {
+    const report = await run({ counts: '30,70,15,85', measure: 'or', 'outcome-prevalence': 'common', design: 'cohort' });
+    const json = report.json as { measure: string; design: string; requestedMeasure: string; eValueEstimate: number; eValueInterval: number };
+    expect(json).toMatchObject({ measure: 'rr', design: 'cohort', requestedMeasure: 'or' });
+    expectClose(json.eValueEstimate, plainWords.cohort_table.eValueEstimate, { rel: 1e-12 });
+    expectClose(json.eValueInterval, plainWords.cohort_table.eValueInterval, { rel: 1e-9 });
+    expect(report.text).toMatch(/Design +cohort \(the table's own risk ratio is used\)/);
+  });
+  it('a case-control table refuses the risk ratio, naming --design; --design goes with a table, not an estimate', async () => {
+    const problems = await problemsOf({ counts: '30,70,15,85', measure: 'rr', design: 'case-control' });
+    expect(problems[0].field).toBe('design');
+    expect(command.optionOf('design')).toBe('--design');
+    expect(() => command.formFromOptions({ estimate: '2', design: 'cohort' })).toThrow(/goes with --counts or --file/);
+  });
+  it('the text and JSON reports list the conventions; the help states them and --design', async () => {
+    const report = await run({ measure: 'rr', estimate: '3.9', lower: '1.8', upper: '8.7' });
+    const json = report.json as { conventions: { id: string; text: string }[]; targetDirection: string };
+    expect(json.conventions.map((c) => c.id)).toEqual(['confounder-strength', 'interval-limit', 'target-direction']);
+    for (const c of json.conventions) expect(report.text).toContain(c.text);
+    expect(json.targetDirection).toBe('toward-null');
+    expect(command.help).toMatch(/--design +how the table/);
+    expect(command.help).toMatch(/Conventions \(each report lists the ones that apply\)/);
+  });
+  it('echoes the numbers with the precision typed: "1.10 (0.90 to 1.35)", not "1.1 (0.9 to 1.35)"', async () => {
+    const report = await run({ measure: 'rr', estimate: '1.10', lower: '0.90', upper: '1.35' });
+    expect(report.text).toMatch(/Estimate +1\.10 +\(95% interval 0\.90 to 1\.35\)/);
+  });
+  it('says first that the interval includes the null, and claims nothing about what could not explain it (R: E = 1.43)', async () => {
+    const report = await run({ measure: 'rr', estimate: '1.10', lower: '0.90', upper: '1.35' });
+    const reading = report.text.split('\n\n')[2];
+    expect(reading.split('\n')[0]).toMatch(/^The 95% interval already includes the null: even with no hidden confounding at all/);
+    expect(reading).toContain(`at least ${plainWords.evalue_includes_null.eValueEstimate.toFixed(2)} each`);
+    expect(reading).not.toMatch(/could not/);
+  });
+  it('names the direction of confounding for a target beyond the estimate (R: E-value 2.00 for RR 1.5 → 2)', async () => {
+    const report = await run({ measure: 'rr', estimate: '1.5', target: '2' });
+    expect((report.json as { targetDirection: string }).targetDirection).toBe('away-from-null');
+    expectClose((report.json as { eValueEstimate: number }).eValueEstimate, plainWords.evalue_target_beyond.eValueEstimate, { rel: 1e-12 });
+    expect(report.text).toMatch(/these E-values concern confounding that pushed the estimate toward the null/);
   });
 });

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { analyseEValue, type EValueInput } from '../../../src/core/eValueAnalysis';
 import { eValueStatement } from '../../../src/methods/evalue/statement';
-import { eValueSummary } from '../../../src/methods/evalue/summary';
+import { eValueSummary, summariseEValue } from '../../../src/methods/evalue/summary';
+import { emptyEValueForm, evaluateEValueForm } from '../../../src/methods/evalue/request';
 import { createAppraisal } from '../../../src/workspace/appraisal';
 import { buildRobustnessStatement } from '../../../src/workspace/robustnessStatement';
 
@@ -41,5 +42,23 @@ describe('eValueStatement', () => {
   it('is null without an E-value', () => {
     const summary = { ...eValueSummary(analyseEValue({ measure: 'rr', estimate: 2 })), eValueEstimate: null };
     expect(eValueStatement(summary, study, () => '[1]')).toBeNull();
+  });
+});
+
+describe('eValueStatement: interval at the null, typed numbers and conventions', () => {
+  const emptyStudy = { finding: '', exposure: '', outcome: '', units: '', source: '' };
+  it('says first that the interval includes the null and claims nothing about what could not explain it (R: E = 1.43)', () => {
+    const form = { ...emptyEValueForm(), measure: 'rr' as const, estimate: '1.10', lower: '0.90', upper: '1.35' };
+    const summary = summariseEValue(evaluateEValueForm(form, null))!;
+    const part = eValueStatement(summary, emptyStudy, () => '[1]');
+    expect(part?.paragraph).toMatch(/^The confidence interval already includes the null \(no association\): even without unmeasured confounding/);
+    expect(part?.paragraph).toContain('risk ratio 1.10, 95% confidence interval 0.90 to 1.35');
+    expect(part?.paragraph).toContain('The E-value for the point estimate is 1.43');
+    expect(part?.paragraph).not.toMatch(/could not/);
+  });
+  it('lists the result’s conventions among the assumptions, in the core’s words', () => {
+    const result = analyseEValue({ measure: 'or', estimate: 2, lower: 1.2, upper: 3.3, outcomePrevalence: 'common' });
+    const part = eValueStatement(eValueSummary(result), emptyStudy, () => '[1]');
+    for (const c of result.conventions) expect(part?.assumptions).toContain(c.text);
   });
 });

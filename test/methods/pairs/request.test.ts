@@ -53,3 +53,13 @@ describe('form to analysis input', () => {
     expect(guessPairsColumns(['a', 'b'])).toMatchObject({ treatedColumn: '', controlColumn: '' });
   });
 });
+
+describe('the zero rule', () => {
+  test('"pratt" (any case) reaches the analysis input; empty keeps the default; a wrong word is named by its field', () => {
+    expect(pairsInputFromForm(form({ source: 'pasted', pasted: '1\n0\n2', zeros: 'Pratt' }), null).input?.zeroRule).toBe('pratt');
+    expect(pairsInputFromForm({ ...form({ source: 'pasted', pasted: '1\n0\n2' }), zeros: '' }, null).input?.zeroRule).toBeUndefined();
+    const bad = pairsInputFromForm({ ...form({ source: 'pasted', pasted: '1\n0\n2' }), zeros: 'drop' }, null);
+    expect(bad.problems.map((p) => p.field)).toContain('zeros');
+    expect(normalisePairsForm({ zeros: 'nonsense' }).zeros).toBe('wilcoxon');
+  });
+});

@@ -47,3 +47,30 @@ describe('readings', () => {
     expect(pairsReading(result).join(' ')).toMatch(/odds of a lower outcome/);
   });
 });
+
+describe('pairs text: defects fixed', () => {
+  test('a zero Hodges–Lehmann estimate computed as 5.55e-17 prints as 0 (median of the Walsh averages = 0, R base)', () => {
+    const result = analysePairs({ data: { kind: 'differences', differences: [1.1, 1.3, -0.7, -1.7] }, method: 'exact' });
+    expect(result.estimate).not.toBe(0); // the floating-point value the core computes
+    const text = pairsReportText(result);
+    expect(text).toMatch(/Hodges–Lehmann estimate \(Γ = 1\): 0\n/);
+    expect(text).not.toMatch(/\d\.\d+e-1[0-9]/); // no 5.55e-17 (the tie-tolerance convention writes "1e-10")
+    expect(pairsResultJson(result).estimate).toBe(0);
+  });
+  test('data pointing the other way are said so, with the other direction offered (not a bare "not significant")', () => {
+    const d = [-1.2, -0.5, 0.3, -2.1, -0.8, -1.1, 0.2, -0.9, -1.5, -0.65];
+    const sentences = pairsReading(analysePairs({ data: { kind: 'differences', differences: d }, method: 'exact' }));
+    expect(sentences[0]).toMatch(/^The data point the other way: the Hodges–Lehmann estimate is -0\.850/);
+    expect(sentences[0]).toMatch(/choose the alternative "less"/);
+  });
+  test('the report lists the conventions and the JSON carries them with the zero rule and the tie tolerance', () => {
+    const result = analysePairs({ data: { kind: 'differences', differences: [1.5, -0.5, 0, 2, 0, 3.5, -1, 2] }, zeroRule: 'pratt', method: 'exact' });
+    const text = pairsReportText(result);
+    expect(text).toContain('Conventions:');
+    for (const c of result.conventions) expect(text).toContain(c.text);
+    const json = pairsResultJson(result);
+    expect(json.zeroRule).toBe('pratt');
+    expect(json.conventions).toEqual(result.conventions);
+    expect(json.tieTolerance).toBe(result.tieTolerance);
+  });
+});

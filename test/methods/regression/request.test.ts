@@ -123,3 +123,27 @@ describe('the regression form', () => {
     expect(Object.isFrozen(restored)).toBe(true);
   });
 });
+
+describe('the SE’s kind and outcome-side multiples', () => {
+  const plainWords = readReferenceJson('plain_words_cases.json');
+  const base = { source: 'reported' as const, estimate: '0.5', se: '0.2', df: '100', covariateTs: [{ name: 'age', outcomeT: '1.5', treatmentT: '2' }] };
+  it('separate outcome-side multiples reach the bounds (R, Cinelli & Hazlett 2020 Section 6.1: k_D 1, k_Y 2 → R²yz 0.04763)', () => {
+    const result = evaluateOvbForm(form({ ...base, k: '1', kOutcome: '2' }), null).result!;
+    expect(result.benchmarks[0]).toMatchObject({ kTreatment: 1, kOutcome: 2 });
+    expectClose(result.benchmarks[0].r2dz, plainWords.ovb_times_outcome.r2dz, { rel: 1e-12 });
+    expectClose(result.benchmarks[0].r2yz, plainWords.ovb_times_outcome.r2yzUncapped, { rel: 1e-10 });
+    expectClose(result.benchmarks[0].correctedEstimate, plainWords.ovb_times_outcome.adjusted, { rel: 1e-10 });
+  });
+  it('a bad multiple or a list of the wrong length is named by its field; a wrong SE kind too', () => {
+    expect(fields({ ...base, k: '1, 2', kOutcome: '3' })).toContain('kOutcome:unequal-length');
+    expect(fields({ ...base, kOutcome: '1, x, 3' })).toContain('kOutcome:not-a-number');
+    expect(fields({ ...base, seKind: 'sandwich' })).toContain('seKind:not-a-choice');
+  });
+  it('a robust SE is passed on and warned about; saved forms keep both fields', () => {
+    const result = evaluateOvbForm(form({ ...base, seKind: 'Robust' }), null).result!;
+    expect(result.seKind).toBe('robust');
+    expect(result.warnings.join(' ')).toMatch(/standard error is robust/);
+    expect(normaliseOvbForm({ seKind: 'clustered', kOutcome: '2, 3' })).toMatchObject({ seKind: 'clustered', kOutcome: '2, 3' });
+    expect(normaliseOvbForm({ seKind: 'wrong' }).seKind).toBe('');
+  });
+});
