@@ -107,13 +107,13 @@ export function setsResultJson(result: MatchedSetsResult): Record<string, unknow
     searchedUpTo: result.searchedUpTo,
     rows: result.rows.map((r) => ({ gamma: r.gamma, pUpper: r.pUpper, pLower: r.pLower, expectation: r.expectation, variance: r.variance })),
     estimate: result.estimate,
+    conventions: result.conventions,
     intervalLevel: result.intervalLevel,
     estimates:
       result.outcomeKind === 'continuous'
         ? result.rows.map((r) => ({ gamma: r.gamma, estimateLow: r.estimateLow, estimateHigh: r.estimateHigh, intervalLow: r.intervalLow, intervalHigh: r.intervalHigh }))
         : [],
     amplification: result.amplification.map((a) => ({ lambda: a.lambda, delta: a.delta })),
-    conventions: result.conventions,
     warnings: result.warnings,
     notes: [
       'intervalLow/intervalHigh are null when the interval is unbounded at that Γ.',
