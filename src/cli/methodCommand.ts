@@ -1,8 +1,11 @@
-import { InputError, inputProblem } from '../methods/problems';
+import { InputError } from '../methods/problems';
 import type { MethodModule } from '../methods/methodModule';
 import type { CliIo } from './cliIo';
 import { defineCommand, type LurkCommand } from './defineCommand';
 import { fileSourceOf } from './fileSource';
+import { argumentName } from './parseOptions';
+import { UsageError } from './usageError';
+import { printable } from '../data/printable';
 
 /**
  * A method's sub-command, made from its module: parse the options → the method's form → its request reader and
@@ -10,6 +13,7 @@ import { fileSourceOf } from './fileSource';
  */
 export function methodCommand(method: MethodModule): LurkCommand {
   const { command } = method;
+  const isOption = (name: string): boolean => /^--[\w-]+$/.test(name) && (Object.hasOwn(command.options, name.slice(2)) || name === '--json');
   return defineCommand({
     name: command.name,
     summary: command.summary,
@@ -17,17 +21,29 @@ export function methodCommand(method: MethodModule): LurkCommand {
     options: { ...command.options, json: { type: 'boolean' } },
     async run({ values, positionals }, io: CliIo) {
       if (positionals.length > 0) {
-        throw new InputError([inputProblem(positionals[0], 'usage', `is not an option of lurk ${command.name} (options start with --; see --help)`)]);
+        throw new UsageError(argumentName(positionals[0]), `is not an option of lurk ${command.name} (options start with --; see --help)`);
       }
+      const opened: string[] = [];
       try {
         const form = command.formFromOptions(values);
-        const report = await command.run(form, values, { open: (path) => fileSourceOf(path, io) });
+        const report = await command.run(form, values, {
+          open: (path) => {
+            opened.push(path);
+            return fileSourceOf(path, io);
+          },
+        });
         io.out(values.json ? JSON.stringify(report.json, null, 2) + '\n' : report.text);
         return 0;
       } catch (error) {
         if (!(error instanceof InputError)) throw error;
-        // Problems are named by form field; on the command line they name the option that holds the field.
-        throw new InputError(error.problems.map((p) => ({ ...p, field: p.field.startsWith('-') ? p.field : command.optionOf(p.field) })));
+        // Problems are named by form field; on the command line they name the option that holds the field. A field
+        // that is no option (a column of a file read) is named inside the message, after the option of the file.
+        const first = error.problems[0];
+        const option = first.field.startsWith('-') ? first.field : command.optionOf(first.field);
+        if (isOption(option)) throw new UsageError(option, first.message);
+        const fileOption = Object.keys(values).find((name) => opened.includes(String(values[name])) && isOption(`--${name}`));
+        if (fileOption) throw new UsageError(`--${fileOption}`, `${printable(first.field, 40)} ${first.message}`);
+        throw new UsageError(`"${printable(first.field, 40)}"`, first.message);
       }
     },
   });

@@ -1,7 +1,7 @@
 import { inputProblem, InputError, type InputProblem } from '../../core/inputProblem';
 import { validatePairsInput, type PairsData, type PairsInput } from '../../core/pairsAnalysis';
 import type { TailMethod } from '../../core/signedRankBound';
-import { fieldReader } from '../fieldReader';
+import { alphaWithinRange, fieldReader } from '../fieldReader';
 import type { PairsColumns, PairsRead } from './pairsFromCsv';
 import { discordantFromText, pairsFromPastedText } from './pairsFromText';
 
@@ -151,7 +151,7 @@ export function readPairsSettings(form: PairsFormInputs): PairsSettings {
   const alternative = reader.choice('alternative', form.alternative, PAIRS_ALTERNATIVES) ?? undefined;
   const method = reader.choice('method', form.method, PAIRS_TAIL_METHODS) ?? undefined;
   const outcome = reader.choice('outcomeType', form.outcomeType, PAIRS_OUTCOME_TYPES) ?? undefined;
-  const alpha = reader.number('alpha', form.alpha, 'fraction') ?? undefined;
+  const alpha = alphaWithinRange(reader, 'alpha', reader.number('alpha', form.alpha, 'fraction')) ?? undefined;
   const gammas = reader.numberList('gammas', form.gammas, 'decimal') ?? undefined;
   return { test, alternative, method, outcome, alpha, gammas, continuityCorrection: form.continuityCorrection === true, problems: reader.problems };
 }

@@ -4,7 +4,7 @@ import { designFromCrossProducts } from '../../core/crossProductFit';
 import { INTERCEPT_NAME, type TriangularDesign } from '../../core/linearModel';
 import type { BiasDirection } from '../../core/confounderAdjustment';
 import { InputError, inputProblem, type InputProblem } from '../../core/inputProblem';
-import { fieldReader, type FieldReader } from '../fieldReader';
+import { alphaWithinRange, fieldReader, type FieldReader } from '../fieldReader';
 import { readCsvText } from '../../data/csv';
 import { crossProductsFromSqlRow, summaryStatisticsSql } from './summaryStatisticsSql';
 import { parseBenchmarkList } from './ovbRegressionData';
@@ -279,7 +279,12 @@ function summaryRegression(form: OvbFormInputs, problems: InputProblem[]): OvbRe
   }
   const row = collect(problems, () => parseSummaryRow(form.summaryResult));
   if (!row) return null;
-  const design = collect(problems, () => designFromCrossProducts(crossProductsFromSqlRow(row, variables.map((column) => ({ column })))));
+  // A problem with a column of the pasted row belongs to the pasted result (not to an option of the same name).
+  const design = collect(
+    problems,
+    () => designFromCrossProducts(crossProductsFromSqlRow(row, variables.map((column) => ({ column })))),
+    (p) => (p.field === 'summary' ? p : { ...p, field: 'summaryResult', message: `column "${p.field}" ${p.message}` }),
+  );
   if (!design) return null;
   const covariates = variables.slice(0, -2);
   return collect(
@@ -323,7 +328,7 @@ function benchmarkGroups(form: OvbFormInputs) {
 function readSettings(form: OvbFormInputs, reader: FieldReader): Pick<OvbInput, 'q' | 'alpha' | 'direction' | 'k' | 'scenario'> {
   const problems = reader.problems;
   const q = opt(reader.number('q', form.q, 'fraction'));
-  const alpha = opt(reader.number('alpha', form.alpha, 'fraction'));
+  const alpha = opt(alphaWithinRange(reader, 'alpha', reader.number('alpha', form.alpha, 'fraction')));
   const direction = reader.choice('direction', form.direction, DIRECTIONS) ?? 'toward-zero';
   const kText = form.k.trim();
   const k = reader.numberList('k', kText, 'decimal') ?? [];

@@ -106,8 +106,10 @@ describe('the regression form', () => {
     const twice = evaluateOvbForm({ ...f, summaryColumns: 'a, d', summaryResult: '{}' }, null);
     expect(twice.problems.map((p) => `${p.field}:${p.code}`)).toEqual(['summaryColumns:chosen-twice']);
     const missing = evaluateOvbForm({ ...f, summaryResult: '{"n": 10}' }, null);
-    // The centred summary query's first per-variable column is m_1 (the mean).
-    expect(missing.problems[0].field).toBe('m_1');
+    // The centred summary query's first per-variable column is m_1 (the mean); the problem belongs to the pasted
+    // result and names the column (a column "n" must not read as the option --n on the command line).
+    expect(missing.problems[0].field).toBe('summaryResult');
+    expect(missing.problems[0].message).toMatch(/^column "m_1" is missing/);
   });
 
   it('completes saved inputs from older or partial objects, keeping what was typed', () => {
