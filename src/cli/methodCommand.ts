@@ -5,7 +5,7 @@ import { defineCommand, type LurkCommand } from './defineCommand';
 import { fileSourceOf } from './fileSource';
 import { argumentName } from './parseOptions';
 import { UsageError } from './usageError';
-import { printable } from '../data/printable';
+import { printable, printableLines } from '../data/printable';
 
 /**
  * A method's sub-command, made from its module: parse the options → the method's form → its request reader and
@@ -32,7 +32,7 @@ export function methodCommand(method: MethodModule): LurkCommand {
             return fileSourceOf(path, io);
           },
         });
-        io.out(values.json ? JSON.stringify(report.json, null, 2) + '\n' : report.text);
+        io.out(values.json ? JSON.stringify(report.json, null, 2) + '\n' : printableLines(report.text));
         return 0;
       } catch (error) {
         if (!(error instanceof InputError)) throw error;

@@ -8,6 +8,7 @@ import { InputError } from '../../methods/problems';
 import { ALPHA_RANGE } from '../../methods/fieldReader';
 import { readFileArgument } from '../readFileArgument';
 import { defineCommand } from '../defineCommand';
+import { printableLines } from '../../data/printable';
 
 const OPTIONS: OptionKinds = {
   json: { type: 'boolean' },
@@ -58,7 +59,7 @@ export const command: LurkCommand = defineCommand({
     const result = asFileProblem(() => appraiseBatchCsv(text, alpha));
     if (values.json) io.out(JSON.stringify(result, null, 2) + '\n');
     else if (values.csv) io.out(batchCsvText(result));
-    else io.out(batchReport(result));
+    else io.out(printableLines(batchReport(result)));
     const withProblems = result.rows.filter((r) => r.problem).length;
     if (withProblems === 0 || values['keep-going']) return 0;
     io.err(`lurk batch: ${withProblems} of ${result.rows.length} rows have problems (listed with the results; --keep-going exits 0)\n`);

@@ -8,6 +8,7 @@ import { choiceOption, type OptionKinds } from '../parseOptions';
 import { EXIT_WITH_PROBLEMS, UsageError } from '../usageError';
 import { readFileArgument } from '../readFileArgument';
 import { defineCommand } from '../defineCommand';
+import { printableLines } from '../../data/printable';
 
 const OPTIONS: OptionKinds = {
   format: { type: 'string' },
@@ -76,10 +77,10 @@ export const command: LurkCommand = defineCommand({
             ...(line.wouldNotChange.length ? ['What would not:', ...line.wouldNotChange.map((s) => `  - ${s}`)] : []),
           ];
       out.push('', line.caution, '');
-      io.out(out.join('\n'));
+      io.out(printableLines(out.join('\n')));
       return done();
     }
-    io.out(renderRobustnessStatement(buildRobustnessStatement(read.appraisal), format));
+    io.out(printableLines(renderRobustnessStatement(buildRobustnessStatement(read.appraisal), format)));
     return done();
   },
 });

@@ -181,6 +181,10 @@ export function evaluateOvbForm(form: OvbFormInputs, fileData: FileRegression | 
     started = form.estimate.trim() !== '' || form.se.trim() !== '';
     const estimate = opt(reader.required('estimate', form.estimate, 'decimal', 'the coefficient of the treatment'));
     const se = opt(reader.required('se', form.se, 'decimal', 'its standard error'));
+    // |t| beyond 1e6 overflows the bounds' arithmetic (t² and its scenarios) and is a slip in a reported number.
+    if (estimate !== undefined && se !== undefined && se > 0 && !(Math.abs(estimate / se) <= MAX_ABS_T)) {
+      problems.push(inputProblem('se', 'outside-range', `is too small for the estimate: t = estimate / se must be at most ${MAX_ABS_T.toLocaleString('en')} in size, got ${(estimate / se).toPrecision(3)}`, se));
+    }
     const df = form.dfBy === 'df' ? opt(reader.required('df', form.df, 'whole', 'the residual degrees of freedom')) : undefined;
     const n = form.dfBy === 'n' ? opt(reader.required('n', form.n, 'whole', 'the number of observations')) : undefined;
     const parameters = form.dfBy === 'n' ? opt(reader.required('parameters', form.parameters, 'whole', 'the number of coefficients')) : undefined;
@@ -324,6 +328,9 @@ function benchmarkGroups(form: OvbFormInputs) {
   const groups = parseBenchmarkList(form.benchmarks);
   return groups ? { benchmarks: groups } : {};
 }
+
+/** The largest |t| (estimate / standard error) a reported estimate may have. */
+const MAX_ABS_T = 1e6;
 
 function readSettings(form: OvbFormInputs, reader: FieldReader): Pick<OvbInput, 'q' | 'alpha' | 'direction' | 'k' | 'scenario'> {
   const problems = reader.problems;

@@ -32,7 +32,7 @@ export function ovbStatement(r: OvbSummary, study: StudyLabels, cite: (reference
     const times = first.k === 1 ? 'as strong as' : `${num(first.k)} times as strong as`;
     parts.push(
       `For comparison, a confounder ${times} ${first.covariate} would explain ${formatPercent(first.r2dz)} of the residual variance of ${exposure} and ${formatPercent(first.r2yz)} of ${outcome}, ` +
-        `and would leave an adjusted estimate of ${num(first.correctedEstimate)} (t = ${num(first.correctedT)}).`,
+        `and would leave an adjusted estimate of ${num(first.correctedEstimate)}${first.correctedT === null ? '' : ` (t = ${num(first.correctedT)})`}.`,
     );
   }
   const assumptions = [

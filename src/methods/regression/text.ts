@@ -80,7 +80,7 @@ export function ovbReading(result: OvbResult, study?: Partial<StudyLabels>): str
     } else if (bounds.length > 0) {
       const last = bounds[bounds.length - 1];
       sentences.push(
-        `Even a confounder ${timesAsStrong(last.k)} ${strongest.covariate} would leave an adjusted estimate of ${formatNumber(last.correctedEstimate, { significant: 3 })} (t = ${formatNumber(last.correctedT, { digits: 2 })}).`,
+        `Even a confounder ${timesAsStrong(last.k)} ${strongest.covariate} would leave an adjusted estimate of ${formatNumber(last.correctedEstimate, { significant: 3 })} ${Number.isFinite(last.correctedT) ? ` (t = ${formatNumber(last.correctedT, { digits: 2 })})` : ' (its t is not defined: the bound leaves no residual variance)'}.`,
       );
     }
   }
