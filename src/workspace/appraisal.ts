@@ -65,8 +65,9 @@ export function readAppraisal(json: unknown): { appraisal: Appraisal; problems: 
   if (json.format !== APPRAISAL_FORMAT) {
     return refuse(inputProblem('format', 'wrong-format', `must be "${APPRAISAL_FORMAT}"; this is not a Lurk appraisal`, json.format));
   }
+  if (json.version === undefined) return refuse(inputProblem('version', 'required', 'is missing'));
   if (json.version !== APPRAISAL_VERSION) {
-    const v = typeof json.version === 'number' ? json.version : String(json.version);
+    const v = typeof json.version === 'number' ? json.version : JSON.stringify(json.version);
     const rule =
       typeof json.version === 'number' && json.version > APPRAISAL_VERSION
         ? `is ${v}, made by a newer Lurk; this one reads version ${APPRAISAL_VERSION}`
