@@ -17,7 +17,7 @@ export function methodCommand(method: MethodModule): LurkCommand {
   return defineCommand({
     name: command.name,
     summary: command.summary,
-    help: command.help,
+    help: withJsonNullNote(command.help),
     options: { ...command.options, json: { type: 'boolean' } },
     async run({ values, positionals }, io: CliIo) {
       if (positionals.length > 0) {
@@ -47,4 +47,18 @@ export function methodCommand(method: MethodModule): LurkCommand {
       }
     },
   });
+}
+
+/** What every method's --json output promises about missing numbers (added to each method's --help). */
+export const JSON_NULL_NOTE =
+  'JSON (--json): a number that does not apply or cannot be computed (an interval that was not given, a bound that\n' +
+  'does not exist, an E-value too large to represent, a sensitivity value beyond the range searched) is null, never\n' +
+  'NaN or Infinity; so is a text field that does not apply (e.g. the interval limit used when there is no interval).\n' +
+  'Exit status: 0 done; 2 bad input (one line on standard error naming the option).\n';
+
+/** The help text with {@link JSON_NULL_NOTE} before its closing caution (or at its end). */
+function withJsonNullNote(help: string): string {
+  const at = help.lastIndexOf('A sensitivity analysis bounds');
+  const note = `${JSON_NULL_NOTE}\n`;
+  return at < 0 ? `${help.replace(/\n*$/, '\n\n')}${note}` : `${help.slice(0, at)}${note}${help.slice(at)}`;
 }

@@ -1,3 +1,4 @@
+import { printable } from './printable';
 /**
  * Reads a number typed by a person or written in a CSV cell.
  *
@@ -67,7 +68,8 @@ const DECIMAL_COMMA = /^[+-]?(\d+,\d*|,\d+)([eE][+-]?\d+)?$/;
 export function readTypedNumber(text: string, kind: NumberKind = 'decimal'): TypedNumber {
   let s = text.trim().replace(/^\u2212/, '-').replace(/([eE])\u2212/, '$1-');
   if (s === '') return { ok: false, code: 'required', message: 'is required' };
-  const shown = text.trim();
+  // Typed text is quoted back in messages: control characters escaped, very long text cut (see printable).
+  const shown = printable(text.trim());
   let percent = false;
   if ((kind === 'fraction' || kind === 'level') && s.endsWith('%')) {
     percent = true;
