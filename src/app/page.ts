@@ -7,7 +7,7 @@
 import '../../components/index';
 import { fictionalStudy } from '../demo/fictionalStudy';
 import { readAppraisal, type Appraisal } from '../workspace/appraisal';
-import { decodeShareFragment, hasShareFragment } from '../workspace/shareLink';
+import { decodeShareFragment, hasShareFragment, withoutRawData } from '../workspace/shareLink';
 
 /** Where the page keeps the current appraisal between visits (this browser only). */
 const STORAGE_KEY = 'lurk.appraisal';
@@ -89,15 +89,22 @@ function openShared(app: LurkApp, current: Appraisal | null): void {
   }
   const incoming = shared.appraisal;
   const open = () => {
-    if (current && !sameWork(current, incoming)) remember(current);
+    if (current) remember(current);
     clearFragment();
     draw(app, incoming);
     keep(incoming);
-    app.notice = current && !sameWork(current, incoming) ? 'Opened the appraisal from the share link; your previous work is under “Recent appraisals”.' : 'Opened the appraisal from the share link.';
+    app.notice = current ? 'Opened the appraisal from the share link; your previous work is under “Recent appraisals”.' : 'Opened the appraisal from the share link.';
     renderRecent(app);
   };
-  if (!current || sameWork(current, incoming)) {
+  if (!current) {
     open();
+    return;
+  }
+  if (sameWork(current, incoming)) {
+    // The link holds this very work (e.g. reloaded after "Copy share link"): keep the local copy, which may also
+    // hold raw data rows that a link never carries.
+    clearFragment();
+    if (Object.keys(app.appraisal.calculators).length === 0) draw(app, current);
     return;
   }
   // Keep showing the work in progress while asking.
@@ -126,9 +133,12 @@ function openDemo(app: LurkApp): void {
   app.banner = demo.banner;
 }
 
-/** Whether two appraisals hold the same work (labels and inputs; the time of saving and results aside). */
+/**
+ * Whether two appraisals hold the same work: labels and inputs, leaving aside the time of saving, the results and
+ * raw data rows (which a share link never carries).
+ */
 function sameWork(a: Appraisal, b: Appraisal): boolean {
-  const inputs = (x: Appraisal) => Object.fromEntries(Object.entries(x.calculators).map(([id, entry]) => [id, entry?.inputs ?? null]));
+  const inputs = (x: Appraisal) => Object.fromEntries(Object.entries(withoutRawData(x).calculators).map(([id, entry]) => [id, entry?.inputs ?? null]));
   return JSON.stringify([a.study, inputs(a)]) === JSON.stringify([b.study, inputs(b)]);
 }
 
