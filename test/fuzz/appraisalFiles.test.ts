@@ -8,8 +8,9 @@ import { buildRobustnessStatement, renderRobustnessStatement } from '../../src/w
 import { buildBottomLine } from '../../src/workspace/bottomLine';
 import { decodeShareFragment, encodeShareFragment } from '../../src/workspace/shareLink';
 import { METHODS } from '../../src/methods/registry';
+import { crc32 } from '../../src/data/crc32';
 import { fictionalStudy } from '../../src/demo/fictionalStudy';
-import { expectCleanText, FUZZ_RUNS, FUZZ_SEED, hostileValue } from './hostileInput';
+import { expectCleanText, FUZZ_RUNS, FUZZ_SEED, hostileValue, LEAKS } from './hostileInput';
 
 /** A valid appraisal of the fictional demo study (every method with inputs and its own summary), as JSON. */
 function demoAppraisal(): Record<string, any> {
@@ -84,13 +85,15 @@ describe('appraisal files, damaged', () => {
       fc.property(fc.array(edit, { minLength: 1, maxLength: 3 }), fc.boolean(), (edits, fileSource) => {
         const json = applyEdits(DEMO, edits, fileSource);
         const read = readAppraisal(json);
+        // A name typed as "Infinity" is quoted back as typed: only values that are not such text are checked.
+        const typedLeak = edits.some((e) => JSON.stringify(e.value ?? null).match(LEAKS));
         if (read.appraisal === null) {
           expect(read.problems.length).toBeGreaterThan(0);
           expect(read.problems[0].field).toMatch(/^(appraisal|format|version|savedAt|study|calculators)\b/);
           expect(read.problems[0].message).not.toMatch(/undefined|NaN|\[object Object\]/);
           return;
         }
-        expectStatementsClean(read.appraisal, JSON.stringify(edits));
+        if (!typedLeak) expectStatementsClean(read.appraisal, JSON.stringify(edits));
       }),
       { seed: FUZZ_SEED, numRuns: FUZZ_RUNS },
     );
@@ -110,6 +113,13 @@ describe('appraisal files, damaged', () => {
   }, 120_000);
 });
 
+/** A share fragment with valid check digits for any JSON (as a deliberate editor would make it). */
+function fragmentOf(json: unknown): string {
+  const bytes = new TextEncoder().encode(JSON.stringify(json));
+  const check = crc32(bytes).toString(16).padStart(8, '0');
+  return `#appraisal=1.${Buffer.from(bytes).toString('base64url')}.${check}`;
+}
+
 describe('share links, tampered', () => {
   const link = encodeShareFragment(DEMO as Appraisal);
   it('a link with changed, cut or added characters is refused with a message, or opens an appraisal written cleanly', () => {
@@ -120,7 +130,7 @@ describe('share links, tampered', () => {
       fc.tuple(fc.nat(link.length - 1), fc.string({ maxLength: 8 })).map(([i, s]) => link.slice(0, i) + s + link.slice(i)),
       fc.string({ maxLength: 60 }).map((s) => `#appraisal=${s}`),
       // A deliberate edit with fresh check digits: the check digits catch damage, not edits; the reader must still hold.
-      fc.tuple(fc.array(edit, { minLength: 1, maxLength: 2 }), fc.boolean()).map(([edits, file]) => encodeShareFragment(applyEdits(DEMO, edits, file) as Appraisal)),
+      fc.tuple(fc.array(edit, { minLength: 1, maxLength: 2 }), fc.boolean()).map(([edits, file]) => fragmentOf(applyEdits(DEMO, edits, file))),
     );
     fc.assert(
       fc.property(tamper, (fragment) => {

@@ -64,7 +64,7 @@ export function eValueStatement(e: EValueSummary, study: StudyLabels, cite: (ref
         : `For the confidence limit closest to ${e.targetIsNull ? 'the null' : 'the target'}, the E-value is ${ratio(e.eValueInterval)}.`,
     );
   }
-  for (const r of e.references ?? []) {
+  for (const r of (e.references ?? []).filter((ref) => ref.rrExposure !== null && ref.rrOutcome !== null)) {
     parts.push(
       `A confounder as strongly related to the exposure and outcome as ${r.name} (risk ratios ${ratio(r.rrExposure)} and ${ratio(r.rrOutcome)}) ` +
         `${r.explainsEstimate ? 'could' : 'could not'} explain away the estimate${r.explainsInterval === null ? '' : ` and ${r.explainsInterval ? 'could' : 'could not'} move the confidence interval to include the null`}.`,

@@ -31,7 +31,7 @@ export function ovbBottomLine(r: OvbSummary, study: StudyLabels): BottomLinePart
 
 /** The benchmark at k = 1 with the largest adjusted change (the strongest measured covariate). */
 function strongestBenchmark(r: OvbSummary) {
-  const atOne = (r.benchmarks ?? []).filter((b) => b.k === 1 && b.correctedEstimate !== null);
+  const atOne = (r.benchmarks ?? []).filter((b) => b.k === 1 && b.correctedEstimate !== null && b.r2dz !== null && b.r2yz !== null);
   if (atOne.length === 0) return undefined;
   return atOne.reduce((best, b) => (Math.abs((r.estimate ?? 0) - (b.correctedEstimate ?? 0)) > Math.abs((r.estimate ?? 0) - (best.correctedEstimate ?? 0)) ? b : best));
 }

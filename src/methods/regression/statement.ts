@@ -15,7 +15,7 @@ export function ovbStatement(r: OvbSummary, study: StudyLabels, cite: (reference
   const q = r.q ?? 1;
   const goal = q === 1 ? 'bring the estimate to zero' : `reduce the estimate by ${formatPercent(q, 0)}`;
   const parts = [
-    `For the linear regression of ${outcome} on ${exposure} and the measured covariates (estimate ${num(r.estimate)}, standard error ${num(r.se)}, t = ${num(r.t)}, ${int(r.df)} residual degrees of freedom), ` +
+    `For the linear regression of ${outcome} on ${exposure} and the measured covariates (estimate ${num(r.estimate)}, standard error ${num(r.se)}${r.t === null ? '' : `, t = ${num(r.t)}`}, ${int(r.df)} residual degrees of freedom), ` +
       `we used the omitted-variable-bias framework of Cinelli and Hazlett ${cite(OVB_REFERENCE)}.`,
     `${capitalise(exposure)} explains ${formatPercent(r.partialR2)} of the residual variance of ${outcome} (partial R²).`,
     `The robustness value is ${formatPercent(r.rv)}: an unmeasured confounder explaining at least ${formatPercent(r.rv)} of the residual variance of both ${exposure} and ${outcome} would be strong enough to ${goal}, while one explaining less of each could not.`,
@@ -27,7 +27,8 @@ export function ovbStatement(r: OvbSummary, study: StudyLabels, cite: (reference
         : `A confounder explaining at least ${formatPercent(r.rvAlpha)} of both would make the estimate lose significance at α = ${num(r.alpha)}.`,
     );
   }
-  const first = r.benchmarks?.find((b) => b.k === 1) ?? r.benchmarks?.[0];
+  const shown = (r.benchmarks ?? []).filter((b) => b.k !== null && b.r2dz !== null && b.r2yz !== null && b.correctedEstimate !== null);
+  const first = shown.find((b) => b.k === 1) ?? shown[0];
   if (first) {
     const times = first.k === 1 ? 'as strong as' : `${num(first.k)} times as strong as`;
     parts.push(
