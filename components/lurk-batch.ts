@@ -80,7 +80,8 @@ export class LurkBatch extends LitElement {
         padding: 0.1rem 0.2rem;
         min-height: 0;
       }
-      th.text {
+      th.text,
+      td.text {
         text-align: left;
       }
       td.problem {
@@ -201,8 +202,8 @@ export class LurkBatch extends LitElement {
             ${rows.map(
               (r) => html`<tr>
                 <td>${r.row}</td>
-                <td style="text-align:left">${r.label}</td>
-                <td style="text-align:left">${r.measure}</td>
+                <td class="text">${r.label}</td>
+                <td class="text">${r.measure}</td>
                 <td>${formatNumber(r.estimate, { missing: '—' })}</td>
                 <td>${formatNumber(r.eValueEstimate, { digits: 2, missing: '—' })}</td>
                 <td>${formatNumber(r.eValueInterval, { digits: 2, missing: '—' })}</td>

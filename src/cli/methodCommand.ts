@@ -1,8 +1,11 @@
-import { InputError, inputProblem } from '../methods/problems';
+import { InputError } from '../methods/problems';
 import type { MethodModule } from '../methods/methodModule';
 import type { CliIo } from './cliIo';
 import { defineCommand, type LurkCommand } from './defineCommand';
 import { fileSourceOf } from './fileSource';
+import { argumentName } from './parseOptions';
+import { UsageError } from './usageError';
+import { printable, printableLines } from '../data/printable';
 
 /**
  * A method's sub-command, made from its module: parse the options → the method's form → its request reader and
@@ -10,25 +13,52 @@ import { fileSourceOf } from './fileSource';
  */
 export function methodCommand(method: MethodModule): LurkCommand {
   const { command } = method;
+  const isOption = (name: string): boolean => /^--[\w-]+$/.test(name) && (Object.hasOwn(command.options, name.slice(2)) || name === '--json');
   return defineCommand({
     name: command.name,
     summary: command.summary,
-    help: command.help,
+    help: withJsonNullNote(command.help),
     options: { ...command.options, json: { type: 'boolean' } },
     async run({ values, positionals }, io: CliIo) {
       if (positionals.length > 0) {
-        throw new InputError([inputProblem(positionals[0], 'usage', `is not an option of lurk ${command.name} (options start with --; see --help)`)]);
+        throw new UsageError(argumentName(positionals[0]), `is not an option of lurk ${command.name} (options start with --; see --help)`);
       }
+      const opened: string[] = [];
       try {
         const form = command.formFromOptions(values);
-        const report = await command.run(form, values, { open: (path) => fileSourceOf(path, io) });
-        io.out(values.json ? JSON.stringify(report.json, null, 2) + '\n' : report.text);
+        const report = await command.run(form, values, {
+          open: (path) => {
+            opened.push(path);
+            return fileSourceOf(path, io);
+          },
+        });
+        io.out(values.json ? JSON.stringify(report.json, null, 2) + '\n' : printableLines(report.text));
         return 0;
       } catch (error) {
         if (!(error instanceof InputError)) throw error;
-        // Problems are named by form field; on the command line they name the option that holds the field.
-        throw new InputError(error.problems.map((p) => ({ ...p, field: p.field.startsWith('-') ? p.field : command.optionOf(p.field) })));
+        // Problems are named by form field; on the command line they name the option that holds the field. A field
+        // that is no option (a column of a file read) is named inside the message, after the option of the file.
+        const first = error.problems[0];
+        const option = first.field.startsWith('-') ? first.field : command.optionOf(first.field);
+        if (isOption(option)) throw new UsageError(option, first.message);
+        const fileOption = Object.keys(values).find((name) => opened.includes(String(values[name])) && isOption(`--${name}`));
+        if (fileOption) throw new UsageError(`--${fileOption}`, `${printable(first.field, 40)} ${first.message}`);
+        throw new UsageError(`"${printable(first.field, 40)}"`, first.message);
       }
     },
   });
+}
+
+/** What every method's --json output promises about missing numbers (added to each method's --help). */
+export const JSON_NULL_NOTE =
+  'JSON (--json): a number that does not apply or cannot be computed (an interval that was not given, a bound that\n' +
+  'does not exist, an E-value too large to represent, a sensitivity value beyond the range searched) is null, never\n' +
+  'NaN or Infinity; so is a text field that does not apply (e.g. the interval limit used when there is no interval).\n' +
+  'Exit status: 0 done; 2 bad input (one line on standard error naming the option).\n';
+
+/** The help text with {@link JSON_NULL_NOTE} before its closing caution (or at its end). */
+function withJsonNullNote(help: string): string {
+  const at = help.lastIndexOf('A sensitivity analysis bounds');
+  const note = `${JSON_NULL_NOTE}\n`;
+  return at < 0 ? `${help.replace(/\n*$/, '\n\n')}${note}` : `${help.slice(0, at)}${note}${help.slice(at)}`;
 }

@@ -26,8 +26,9 @@ export interface LeastSquaresSpec {
   readonly predictors: readonly string[];
   /**
    * Relative tolerance for collinearity: a predictor whose part not explained by the earlier predictors has
-   * norm ≤ tolerance × its own norm is reported as a linear combination of them. Default 1e-7 (the
-   * threshold of R's `lm`/`qr`).
+   * norm ≤ tolerance × its own norm (its centred norm when the intercept is a predictor) is reported as a
+   * linear combination of them. Default 1e-7 (the threshold of R's `lm`/`qr`, which however compares with
+   * the uncentred norm: see the special cases of {@link fitLeastSquares}).
    */
   readonly tolerance?: number;
 }
@@ -132,6 +133,15 @@ interface Retriangulated {
 /**
  * Re-triangularises the columns `order` (predictor indices into the design, in processing order) followed
  * by `response`, skipping any predictor that is (numerically) a linear combination of those before it.
+ *
+ * A predictor is skipped when the norm of its part not explained by the earlier predictors is at most
+ * `tolerance` times its reference norm. The reference norm is its own (uncentred) norm, except after the
+ * intercept (processed first): then it is the column's centred norm (its norm after the intercept's
+ * reflection), so that a column offset far from zero (1e9 + x, x varying by ±3) is judged on its variation,
+ * not its offset; it is called constant only when its centred norm is at rounding level, 8·ε·√n times its
+ * raw norm. This departs from R's `lm`, whose pivoted QR compares with the uncentred norm at tol = 1e-7 and so
+ * drops a column offset by 1e9 whose values vary by ±3; here its coefficient is estimated (as it is for the
+ * same column without the offset, to which least squares is invariant).
  */
 function retriangulate(design: TriangularDesign, order: readonly number[], response: number, tolerance: number): Retriangulated {
   const p = design.columnNames.length;
@@ -154,10 +164,16 @@ function retriangulate(design: TriangularDesign, order: readonly number[], respo
   }
   const keptSlots: number[] = [];
   const collinear: CollinearColumn[] = [];
+  const interceptIndex = design.interceptColumn === null ? -1 : design.columnNames.indexOf(design.interceptColumn);
+  // Set once the intercept is processed first: each later column's norm after its reflection (centred norm).
+  let centred: Float64Array | null = null;
+  const roundingLevel = 8 * Number.EPSILON * Math.sqrt(Math.max(1, design.rowCount));
   let rank = 0;
   for (let c = 0; c < q - 1; c++) {
     const residual = columnNorm(a, c * p, rank, p);
-    if (!(residual > tolerance * norms[c])) {
+    const reference = centred ? centred[c] : norms[c];
+    const atRoundingLevel = centred !== null && !(centred[c] > roundingLevel * norms[c]);
+    if (atRoundingLevel || !(residual > tolerance * reference)) {
       collinear.push(describeCollinear(design, a, p, keptSlots, c, cols, order, norms));
       continue;
     }
@@ -180,6 +196,10 @@ function retriangulate(design: TriangularDesign, order: readonly number[], respo
     for (let i = rank + 1; i < p; i++) a[base + i] = 0;
     keptSlots.push(c);
     rank++;
+    if (c === 0 && cols[0] === interceptIndex) {
+      centred = new Float64Array(q);
+      for (let d = 1; d < q; d++) centred[d] = columnNorm(a, d * p, 1, p);
+    }
   }
   const rKept = new Float64Array(rank * rank);
   for (let i = 0; i < rank; i++) {
@@ -438,7 +458,10 @@ export function partialR2FromT(t: number, df: number): number {
  * Regression Analysis, 3rd ed., Wiley, 1998 (t statistics, R²).
  *
  * **Special cases.** An exact fit (RSS = 0, or below 1e-11 of the response's variation) gives zero or
- * rounding-level standard errors and a warning. RSS and TSS are kept as norms internally, so data up to
+ * rounding-level standard errors and a warning. With the intercept among the predictors, constancy and
+ * collinearity of a later predictor are judged relative to its centred norm (a column 1e9 + x with x varying
+ * by ±3, or x·1e-300, is not constant; a column is constant only when its centred norm is at rounding level,
+ * 8·ε·√n times its raw norm). R's `lm` judges against the uncentred norm and drops such an offset column. RSS and TSS are kept as norms internally, so data up to
  * ~1e300 give finite coefficients, t and R² even where RSS itself overflows.
  *
  * @throws InputError naming the column when a column is unknown or chosen twice, when a predictor is a linear

@@ -362,7 +362,7 @@ export function analyseOvb(input: OvbInput): OvbResult {
       }
       const multiple = k === kOutcome ? `${k} ×` : `k_D = ${k}, k_Y = ${kOutcome} ×`;
       if (!bound.informative) {
-        warnings.push(`For ${multiple} ${b.covariate} the bound on R²(Y~Z|D,X) reached 1 (100% of the outcome’s residual variance) and was capped there: the bound is not informative (adjusted standard error 0, adjusted t not available).`);
+        warnings.push(`For ${multiple} ${b.covariate} the bound on R²(Y~Z|D,X) reached 1 (100% of the outcome’s residual variance) and was capped there: the bound is not informative (adjusted standard error 0, so no adjusted t).`);
       }
       benchmarks.push({
         covariate: b.covariate,

@@ -124,7 +124,9 @@ export function absorbBlock(r: Float64Array, b: Float64Array, m: number, stride:
     // The column below the diagonal: B[0..m-1, j].
     let sigma = 0;
     for (let i = 0; i < m; i++) sigma += b[cj + i] * b[cj + i];
-    if (sigma === 0) continue;
+    // A zero sum of squares is a zero column only when every value is 0: tiny values (1e-300) underflow when
+    // squared, and such a column goes through the scaled norm like any other.
+    if (sigma === 0 && allZero(b, cj, m)) continue;
     const alpha = r[j * p + j];
     let xnorm: number;
     if (sigma === Infinity || sigma < 1e-280 || !Number.isFinite(alpha) || Math.abs(alpha) > 1e140) {
@@ -152,6 +154,12 @@ export function absorbBlock(r: Float64Array, b: Float64Array, m: number, stride:
     }
     r[j * p + j] = beta;
   }
+}
+
+/** Whether B[0..m-1] of the column starting at `base` is 0 throughout. */
+function allZero(b: Float64Array, base: number, m: number): boolean {
+  for (let i = 0; i < m; i++) if (b[base + i] !== 0) return false;
+  return true;
 }
 
 /** √(α² + Σ B[i,j]²) without overflow or underflow (column j starts at `base`). */

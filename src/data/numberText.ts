@@ -1,4 +1,5 @@
 import { isMissingCell } from './missingCell';
+import { printable } from './printable';
 /**
  * Reads a number typed by a person or written in a CSV cell.
  *
@@ -70,7 +71,8 @@ export function readTypedNumber(text: string, kind: NumberKind = 'decimal'): Typ
   let s = text.trim().replace(/^\u2212/, '-').replace(/([eE])\u2212/, '$1-');
   // "NA", "N/A", "." … mean missing in a CSV cell; typed into a form or an option they mean the same.
   if (s === '' || isMissingCell(s)) return { ok: false, code: 'required', message: 'is required' };
-  const shown = text.trim();
+  // Typed text is quoted back in messages: control characters escaped, very long text cut (see printable).
+  const shown = printable(text.trim());
   let percent = false;
   if ((kind === 'fraction' || kind === 'level') && s.endsWith('%')) {
     percent = true;

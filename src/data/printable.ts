@@ -65,3 +65,20 @@ export function printableList(names: readonly string[], maxItems = 20, quote = t
   const rest = names.length - shown.length;
   return rest > 0 ? `${shown.join(', ')} and ${rest.toLocaleString('en')} more` : shown.join(', ');
 }
+
+/**
+ * A whole report made safe for a terminal: like {@link printable}, control characters (other than line feed and
+ * tab), bidirectional marks and lone surrogates are escaped, but nothing is cut and lines stay lines.
+ *
+ * @param text any text (a report that quotes file contents or typed names)
+ */
+export function printableLines(text: string): string {
+  return text.replace(
+    // eslint-disable-next-line no-control-regex
+    /[\u0000-\u0008\u000b-\u001f\u007f-\u009f\u202a-\u202e\u2066-\u2069]|[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/g,
+    (c) => {
+      const code = c.charCodeAt(0);
+      return code < 0xa0 ? `\\x${code.toString(16).padStart(2, '0')}` : `\\u{${code.toString(16)}}`;
+    },
+  );
+}

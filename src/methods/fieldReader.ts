@@ -66,3 +66,24 @@ export function fieldReader(): FieldReader {
   };
   return reader;
 }
+
+/** The significance levels every method accepts: smaller ones are below what the tail computations resolve. */
+export const ALPHA_RANGE = { low: 1e-12, high: 0.5 } as const;
+/** The ratios (estimates, limits, targets) every method accepts: beyond them an E-value is not representable. */
+export const RATIO_RANGE = { low: 1e-300, high: 1e300 } as const;
+
+/**
+ * Records a problem when a number that was read lies outside [low, high] and returns null then; `why` says
+ * why the range is what it is (one short clause). An absent value (null/undefined) passes through.
+ */
+export function withinRange(reader: FieldReader, field: string, value: number | null | undefined, range: { low: number; high: number }, why: string): number | null {
+  if (value === null || value === undefined) return null;
+  if (value >= range.low && value <= range.high) return value;
+  if (!reader.has(field)) reader.problems.push(inputProblem(field, 'outside-range', `must be between ${range.low} and ${range.high} (${why}), got ${value}`, value));
+  return null;
+}
+
+/** {@link withinRange} for a significance level. */
+export function alphaWithinRange(reader: FieldReader, field: string, value: number | null | undefined): number | null {
+  return withinRange(reader, field, value, ALPHA_RANGE, 'a significance level above 0.5 rejects more often than not, and one below 1e-12 is beyond the precision of the tail computations');
+}

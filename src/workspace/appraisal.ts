@@ -1,6 +1,7 @@
 import { inputProblem, type InputProblem } from '../core/inputProblem';
 import type { StudyLabels } from '../format/studyLabels';
 import { METHODS } from '../methods/registry';
+import { validate as validateAppraisalSchema, type SchemaError } from './appraisalValidator.generated.js';
 
 /** The calculators whose inputs an appraisal carries: every method of the registry, by its id. */
 export const CALCULATORS: readonly string[] = Object.freeze(METHODS.map((m) => m.id));
@@ -35,8 +36,6 @@ export interface Appraisal {
   readonly calculators: Partial<Record<CalculatorName, CalculatorEntry>>;
 }
 
-const STUDY_KEYS: ReadonlyArray<keyof StudyLabels> = ['finding', 'exposure', 'outcome', 'units', 'source'];
-const MAX_TEXT = 200_000;
 
 /** Builds an appraisal record (frozen) from the workspace's state. */
 export function createAppraisal(
@@ -54,100 +53,94 @@ export function createAppraisal(
 }
 
 /**
- * Reads an appraisal from parsed JSON, checking every field (the same rules as the shipped JSON Schema,
- * `src/workspace/appraisal.schema.json`). Returns the appraisal, or every problem found with the field it concerns.
+ * Reads an appraisal from parsed JSON, checking every field against the shipped JSON Schema
+ * (`src/workspace/appraisal.schema.json`, compiled into `appraisalValidator.generated.js`): the study labels,
+ * every method's inputs and its saved summary. Returns the appraisal, or the problem found with the path of the
+ * field it concerns (`calculators.evalue.summary.measure`).
  */
 export function readAppraisal(json: unknown): { appraisal: Appraisal; problems: [] } | { appraisal: null; problems: InputProblem[] } {
-  const problems: InputProblem[] = [];
-  if (!isRecord(json)) return { appraisal: null, problems: [inputProblem('appraisal', 'not-an-object', 'is not a Lurk appraisal (expected a JSON object)')] };
+  const refuse = (problem: InputProblem) => ({ appraisal: null, problems: [problem] });
+  if (!isRecord(json)) return refuse(inputProblem('appraisal', 'not-an-object', 'is not a Lurk appraisal (expected a JSON object)'));
+  // The marks first, with plain messages: another kind of file, or another version of this one.
   if (json.format !== APPRAISAL_FORMAT) {
-    problems.push(inputProblem('format', 'wrong-format', `must be "${APPRAISAL_FORMAT}"; this is not a Lurk appraisal`, json.format));
-    return { appraisal: null, problems };
+    return refuse(inputProblem('format', 'wrong-format', `must be "${APPRAISAL_FORMAT}"; this is not a Lurk appraisal`, json.format));
   }
+  if (json.version === undefined) return refuse(inputProblem('version', 'required', 'is missing'));
   if (json.version !== APPRAISAL_VERSION) {
-    const v = typeof json.version === 'number' ? json.version : String(json.version);
+    const v = typeof json.version === 'number' ? json.version : JSON.stringify(json.version);
     const rule =
       typeof json.version === 'number' && json.version > APPRAISAL_VERSION
         ? `is ${v}, made by a newer Lurk; this one reads version ${APPRAISAL_VERSION}`
         : `is ${v}; this Lurk reads version ${APPRAISAL_VERSION}`;
-    problems.push(inputProblem('version', 'unsupported-version', rule, json.version));
-    return { appraisal: null, problems };
+    return refuse(inputProblem('version', 'unsupported-version', rule, json.version));
   }
-  if (typeof json.savedAt !== 'string' || Number.isNaN(Date.parse(json.savedAt))) {
-    problems.push(inputProblem('savedAt', 'not-a-date', 'must be a date and time in ISO 8601 form', json.savedAt));
+  if (!validateAppraisalSchema(json)) return refuse(schemaProblem(validateAppraisalSchema.errors ?? []));
+  if (Number.isNaN(Date.parse(json.savedAt as string))) {
+    return refuse(inputProblem('savedAt', 'not-a-date', 'must be a date and time in ISO 8601 form', json.savedAt));
   }
-  const study = json.study;
-  if (!isRecord(study)) problems.push(inputProblem('study', 'not-an-object', 'must be an object with the study labels'));
-  else {
-    for (const key of STUDY_KEYS) {
-      if (typeof study[key] !== 'string') problems.push(inputProblem(`study.${key}`, 'not-text', 'must be text', study[key]));
-      else if ((study[key] as string).length > MAX_TEXT) problems.push(inputProblem(`study.${key}`, 'too-long', `must be at most ${MAX_TEXT} characters`));
-    }
-    for (const key of Object.keys(study)) {
-      if (!STUDY_KEYS.includes(key as keyof StudyLabels)) problems.push(inputProblem(`study.${key}`, 'unknown-field', 'is not a study label'));
-    }
-  }
-  const calculators = json.calculators;
-  if (!isRecord(calculators)) problems.push(inputProblem('calculators', 'not-an-object', 'must be an object'));
-  else {
-    for (const [name, entry] of Object.entries(calculators)) {
-      const field = `calculators.${name}`;
-      if (!CALCULATORS.includes(name as CalculatorName)) {
-        problems.push(inputProblem(field, 'unknown-calculator', `is not a calculator (calculators: ${CALCULATORS.join(', ')})`));
-        continue;
-      }
-      if (!isRecord(entry)) {
-        problems.push(inputProblem(field, 'not-an-object', 'must be an object with inputs and summary'));
-        continue;
-      }
-      if (!isRecord(entry.inputs)) problems.push(inputProblem(`${field}.inputs`, 'not-an-object', 'must be an object'));
-      else checkPlainJson(entry.inputs, `${field}.inputs`, problems, 0);
-      if (entry.summary !== null && !isRecord(entry.summary)) problems.push(inputProblem(`${field}.summary`, 'not-an-object', 'must be an object or null'));
-      // A saved summary is plain JSON here; it reaches sentences only through its method's `readSummary`, which
-      // checks every field (see currentSummaries), so an older or damaged summary is set aside, never shown.
-      else if (entry.summary) checkSummary(entry.summary, `${field}.summary`, problems);
-      for (const key of Object.keys(entry)) {
-        if (key !== 'inputs' && key !== 'summary') problems.push(inputProblem(`${field}.${key}`, 'unknown-field', 'is not part of a calculator entry'));
-      }
-    }
-  }
-  for (const key of Object.keys(json)) {
-    if (!['format', 'version', 'savedAt', 'study', 'calculators'].includes(key)) {
-      problems.push(inputProblem(key, 'unknown-field', 'is not part of a Lurk appraisal'));
-    }
-  }
-  if (problems.length > 0) return { appraisal: null, problems };
+  // A saved summary is checked by the schema here and read again through its method's `readSummary` before it
+  // reaches a sentence (see currentSummaries); the inputs are read by the method's request reader.
   return { appraisal: json as unknown as Appraisal, problems: [] };
 }
 
-/** Inputs hold what a form holds: text, numbers, booleans, null, and arrays/objects of those (depth-limited). */
-function checkPlainJson(value: unknown, field: string, problems: InputProblem[], depth: number): void {
-  if (depth > 6) {
-    problems.push(inputProblem(field, 'too-deep', 'is nested too deeply'));
-    return;
+/** The schema's verdict as one problem: the most specific error (deepest field), in plain words. */
+function schemaProblem(errors: readonly SchemaError[]): InputProblem {
+  if (errors.length === 0) return inputProblem('appraisal', 'invalid', 'does not follow the appraisal format');
+  const depth = (e: SchemaError) => e.instancePath.split('/').length + (e.keyword === 'required' || e.keyword === 'additionalProperties' ? 1 : 0);
+  const concrete = errors.filter((e) => e.keyword !== 'anyOf' && e.keyword !== 'if');
+  const pool = concrete.length > 0 ? concrete : errors;
+  // Among the alternatives of an anyOf (e.g. null or a summary), the branch that went deepest says most.
+  const error = pool.reduce((best, e) => (depth(e) > depth(best) || (depth(e) === depth(best) && best.keyword === 'type' && e.keyword !== 'type') ? e : best));
+  const path = fieldPath(error.instancePath);
+  const at = (key: string) => (path === '' ? key : /^[A-Za-z_$][\w$]*$/.test(key) ? `${path}.${key}` : `${path}[${JSON.stringify(key)}]`);
+  const p = error.params;
+  switch (error.keyword) {
+    case 'required':
+      return inputProblem(at(String(p.missingProperty)), 'required', 'is missing');
+    case 'additionalProperties': {
+      const key = String(p.additionalProperty);
+      if (path === 'calculators') return inputProblem(at(key), 'unknown-calculator', `is not a calculator (calculators: ${CALCULATORS.join(', ')})`);
+      if (path === 'study') return inputProblem(at(key), 'unknown-field', 'is not a study label');
+      if (path === '') return inputProblem(key, 'unknown-field', 'is not part of a Lurk appraisal');
+      return inputProblem(at(key), 'unknown-field', `is not a field of ${path}`);
+    }
+    case 'type':
+      return inputProblem(path || 'appraisal', 'wrong-type', `must be ${typeWords(String(p.type))}`);
+    case 'const':
+      return inputProblem(path, 'not-allowed', `must be ${JSON.stringify(p.allowedValue)}`);
+    case 'enum':
+      return inputProblem(path, 'not-a-choice', `must be one of ${(p.allowedValues as unknown[]).map((v) => JSON.stringify(v)).join(', ')}`);
+    case 'minimum':
+    case 'maximum':
+    case 'exclusiveMinimum':
+    case 'exclusiveMaximum':
+      return inputProblem(path, 'outside-range', `must be ${String(p.comparison)} ${String(p.limit)}`);
+    case 'maxLength':
+      return inputProblem(path, 'too-long', `must be at most ${String(p.limit)} characters`);
+    case 'maxItems':
+      return inputProblem(path, 'too-long', `must have at most ${String(p.limit)} items`);
+    case 'pattern':
+      return inputProblem(path, 'not-a-date', 'must be a date and time in ISO 8601 form');
+    default:
+      return inputProblem(path || 'appraisal', 'invalid', 'does not follow the appraisal format');
   }
-  if (value === null || typeof value === 'boolean') return;
-  if (typeof value === 'number') {
-    if (!Number.isFinite(value)) problems.push(inputProblem(field, 'not-finite', 'must be a finite number', value));
-    return;
-  }
-  if (typeof value === 'string') {
-    if (value.length > MAX_TEXT) problems.push(inputProblem(field, 'too-long', `must be at most ${MAX_TEXT} characters`));
-    return;
-  }
-  if (Array.isArray(value)) {
-    value.forEach((item, i) => checkPlainJson(item, `${field}[${i}]`, problems, depth + 1));
-    return;
-  }
-  if (isRecord(value)) {
-    for (const [key, item] of Object.entries(value)) checkPlainJson(item, `${field}.${key}`, problems, depth + 1);
-    return;
-  }
-  problems.push(inputProblem(field, 'not-json', 'must be text, a number, true/false, null, a list or an object'));
 }
 
-function checkSummary(summary: Record<string, unknown>, field: string, problems: InputProblem[]): void {
-  checkPlainJson(summary, field, problems, 3);
+/** A JSON pointer (`/calculators/evalue/inputs/confounders/0/name`) as a field path (`calculators.evalue.inputs.confounders[0].name`). */
+function fieldPath(pointer: string): string {
+  let out = '';
+  for (const raw of pointer.split('/').slice(1)) {
+    const key = raw.replace(/~1/g, '/').replace(/~0/g, '~');
+    if (/^\d+$/.test(key)) out += `[${key}]`;
+    else if (/^[A-Za-z_$][\w$]*$/.test(key)) out += out === '' ? key : `.${key}`;
+    else out += `[${JSON.stringify(key)}]`;
+  }
+  return out;
+}
+
+function typeWords(types: string): string {
+  const words: Record<string, string> = { string: 'text', number: 'a finite number', integer: 'a whole number', boolean: 'true or false', null: 'null', object: 'an object', array: 'a list' };
+  return types.split(',').map((t) => words[t] ?? t).join(' or ');
 }
 
 function isRecord(value: unknown): value is Record<string, unknown> {

@@ -96,7 +96,7 @@ describe('bad input exits 2 with one line naming the option', () => {
     [['pairs', '--file', 'z.csv', '--diff', 'd'], /^lurk pairs: --file: needs at least two pairs whose outcomes differ/],
     [['pairs', '--file', 'p.csv', '--diff', 'q'], /^lurk pairs: --diff: no column named "q" \(columns: d, t, c\)\n$/],
     [['pairs', '--file', 'p.csv', '--treated', 't', '--control', 'c', '--gamma', '1,0.5'], /^lurk pairs: --gamma: must be 1 or more/],
-    [['pairs', '--file', 'p.csv', '--treated', 't', '--control', 'c', '--alpha', '1.2'], /^lurk pairs: --alpha: must be between 0 and 1/],
+    [['pairs', '--file', 'p.csv', '--treated', 't', '--control', 'c', '--alpha', '1.2'], /^lurk pairs: --alpha: must be between 1e-12 and 0\.5/],
     [['pairs', '--file', 'p.csv', '--treated', 't'], /^lurk pairs: --control: name the control-outcome column/],
     [['pairs', '--file', 'e.csv', '--diff', 'd'], /^lurk pairs: --file: the file is empty\n$/],
     [['pairs', '--file', 'missing.csv', '--diff', 'd'], /^lurk pairs: --file: "missing.csv": no such file\n$/],

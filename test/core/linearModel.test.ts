@@ -209,6 +209,23 @@ describe('fitLeastSquares: bad input', () => {
     expect(problems[1].message).toContain('"zero" is zero in every row');
   });
 
+  it('judges constancy after the intercept on the centred scale: 1e9 + x (x varies by ±3) and x·1e-300 are kept', () => {
+    // Invented data. Least squares is invariant to adding a constant to a predictor (with an intercept) and to
+    // scaling it: the slope of y on x is the same. R's lm (uncentred norm, tol 1e-7) would drop the 1e9 column.
+    const x = [2, 1, 5, 3, 4, 8, 2, 7];
+    const y = [1, 2, 3, 5, 4, 7, 6, 2];
+    const fitOf = (f: (v: number) => number) =>
+      fitLeastSquares(designFromRows(['x', 'y'], x.map((v, i) => [f(v), y[i]])), { response: 'y', predictors: [INTERCEPT_NAME, 'x'] });
+    const plain = fitOf((v) => v);
+    expectClose(fitOf((v) => 1e9 + v).coefficients[1], plain.coefficients[1], { rel: 1e-6 });
+    expectClose(fitOf((v) => v * 1e-300).coefficients[1] * 1e-300, plain.coefficients[1], { rel: 1e-12 });
+    // A truly constant column is still called constant, however large its value.
+    const constant = problemsOf(() =>
+      fitLeastSquares(designFromRows(['x', 'big', 'y'], x.map((v, i) => [v, 1e9 + 0.5, y[i]])), { response: 'y', predictors: [INTERCEPT_NAME, 'x', 'big'] }),
+    );
+    expect(constant.map((p) => p.code)).toEqual(['constant']);
+  });
+
   it('refuses a constant response', () => {
     const problems = problemsOf(() => fitLeastSquares(design, { response: 'seven', predictors: [INTERCEPT_NAME, 'a'] }));
     expect(problems[0]).toMatchObject({ field: 'response', code: 'constant' });

@@ -113,6 +113,12 @@ describe('StreamingQr', () => {
     }
   });
 
+  it('a column of tiny values whose squares underflow (1e-300) is not skipped as if it were zero', () => {
+    const r = triangularFactor([1e-300, 2e-300, 3e-300], 3, 1);
+    // ‖(1, 2, 3)‖·1e-300 = √14·1e-300.
+    expectClose(r[0], Math.sqrt(14) * 1e-300, { rel: 1e-14 });
+  });
+
   it('propagates NaN rather than hiding it', () => {
     const qr = new StreamingQr(2, 1);
     qr.addRow([1, NaN]);

@@ -93,3 +93,15 @@ describe('readTypedNumber: the one rule for typed numbers', () => {
     );
   });
 });
+
+describe('readTypedNumber: typed text quoted in a message', () => {
+  it('escapes terminal control characters and cuts very long text', () => {
+    const read = readTypedNumber('\u001b[31m12\u001b[0m', 'decimal');
+    expect(read.ok).toBe(false);
+    if (read.ok) return;
+    expect(read.message).not.toMatch(/\u001b/);
+    expect(read.message).toContain('\\x1b[31m12');
+    const long = readTypedNumber('x'.repeat(10_000), 'decimal');
+    expect(long.ok ? '' : long.message.length).toBeLessThan(200);
+  });
+});

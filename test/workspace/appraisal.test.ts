@@ -6,11 +6,29 @@ import { decodeShareFragment, encodeShareFragment, withoutRawData } from '../../
 
 const study = { finding: 'A fictional finding', exposure: 'cycling', outcome: 'blood pressure', units: 'mmHg', source: 'invented' };
 
+// VanderWeele & Ding 2017 worked example (RR 3.9, 1.8–8.7): E-values 7.26 and 3.00, as a complete summary.
+const EVALUE_SUMMARY = {
+  kind: 'evalue',
+  measure: 'rr',
+  estimate: 3.9,
+  lower: 1.8,
+  upper: 8.7,
+  level: 0.95,
+  target: 1,
+  targetIsNull: true,
+  conversion: 'none',
+  conversionNote: 'The risk ratio is used as it is.',
+  eValueEstimate: 7.26,
+  eValueInterval: 3,
+  intervalLimitUsed: 'lower',
+  references: [],
+};
+
 function sample(): Appraisal {
   return createAppraisal(
     study,
     {
-      evalue: { inputs: { measure: 'rr', estimate: '3,9', lower: '1.8', upper: '8.7' }, summary: { eValueEstimate: 7.26, eValueInterval: 3 } },
+      evalue: { inputs: { measure: 'rr', estimate: '3,9', lower: '1.8', upper: '8.7' }, summary: EVALUE_SUMMARY },
       pairs: { inputs: { pasted: '1.2\n-0.4\n2.0', alpha: '0.05' }, summary: null },
     },
     new Date('2026-01-02T03:04:05Z'),
@@ -25,12 +43,26 @@ describe('appraisal files', () => {
     expect(read.appraisal).toEqual(a);
   });
 
-  it('names the field and rule for each problem, all at once', () => {
-    const bad = { ...JSON.parse(JSON.stringify(sample())), savedAt: 'yesterday', extra: 1 };
-    bad.study.exposure = 42;
-    const read = readAppraisal(bad);
-    expect(read.appraisal).toBeNull();
-    expect(read.problems.map((p) => p.field)).toEqual(['savedAt', 'study.exposure', 'extra']);
+  it('names the field and rule of the problem found (checked against the JSON Schema)', () => {
+    const fieldOf = (edit: (a: any) => void) => {
+      const bad = JSON.parse(JSON.stringify(sample()));
+      edit(bad);
+      const read = readAppraisal(bad);
+      expect(read.appraisal).toBeNull();
+      expect(read.problems).toHaveLength(1);
+      return `${read.problems[0].field}: ${read.problems[0].message}`;
+    };
+    expect(fieldOf((a) => (a.savedAt = 'yesterday'))).toBe('savedAt: must be a date and time in ISO 8601 form');
+    expect(fieldOf((a) => (a.study.exposure = 42))).toBe('study.exposure: must be text');
+    expect(fieldOf((a) => (a.extra = 1))).toBe('extra: is not part of a Lurk appraisal');
+    expect(fieldOf((a) => (a.calculators.evalue.summary.references = {}))).toBe('calculators.evalue.summary.references: must be a list');
+    expect(fieldOf((a) => delete a.calculators.evalue.summary.measure)).toBe('calculators.evalue.summary.measure: is missing');
+    expect(fieldOf((a) => (a.calculators.evalue.inputs.confounders = [{ name: 'x', rrExposure: {} }]))).toBe(
+      'calculators.evalue.inputs.confounders[0].rrExposure: must be text or a finite number or null',
+    );
+    // Fields of older versions are single values (ignored when read); anything else is refused.
+    expect(fieldOf((a) => (a.calculators.evalue.inputs.colour = { red: 1 }))).toBe('calculators.evalue.inputs.colour: must be text or a finite number or true or false or null');
+    expect(fieldOf((a) => (a.calculators.ghost = { inputs: {}, summary: null }))).toBe('calculators.ghost: is not a calculator (calculators: evalue, pairs, regression)');
   });
 
   it('says plainly when a file is from another version or is not an appraisal', () => {

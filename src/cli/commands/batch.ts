@@ -3,19 +3,23 @@ import { batchCsvText } from '../../workspace/batchCsv';
 import { formatNumber, formatPercent } from '../../format/formatNumber';
 import type { LurkCommand } from '../defineCommand';
 import { numberOption, type OptionKinds } from '../parseOptions';
-import { UsageError } from '../usageError';
+import { EXIT_WITH_PROBLEMS, UsageError } from '../usageError';
+import { InputError } from '../../methods/problems';
+import { ALPHA_RANGE } from '../../methods/fieldReader';
 import { readFileArgument } from '../readFileArgument';
 import { defineCommand } from '../defineCommand';
+import { printableLines } from '../../data/printable';
 
 const OPTIONS: OptionKinds = {
   json: { type: 'boolean' },
   csv: { type: 'boolean' },
   alpha: { type: 'string' },
+  'keep-going': { type: 'boolean' },
 };
 
 const HELP = `lurk batch — E-values (and robustness values) for many reported findings at once.
 
-  lurk batch FILE [--alpha 0.05] [--json | --csv]
+  lurk batch FILE [--alpha 0.05] [--json | --csv] [--keep-going]
 
 FILE is a CSV with one reported finding per row and a header naming its columns:
   ${BATCH_COLUMNS.join(', ')}
@@ -24,11 +28,17 @@ measure and estimate are required; give lower and upper, or se. outcome_prevalen
 for odds and hazard ratios; sd for a mean difference.
 ${BATCH_RV_RULE} A robustness value is defined for a coefficient's t in a linear
 regression (Cinelli & Hazlett 2020), not for a log risk, odds or hazard ratio.
-A row with a problem is reported with its problem; the other rows are still computed.
+A row with a problem is reported with its problem; the other rows are still computed. FILE "-" is standard input.
 
-  --alpha  significance level for the robustness value RV at level alpha, coef rows (default 0.05)
-  --json   one JSON object: {rows: [...], computed, withProblems, alpha, warnings}
-  --csv    a CSV of the results, safe to open in a spreadsheet (text that would run as a formula is neutralised)
+  --alpha       significance level for the robustness value RV at level alpha, coef rows (default 0.05; 1e-12 to 0.5)
+  --json        one JSON object: {rows: [...], computed, withProblems, alpha, warnings}. In each row, problem is
+                null when the row was read, and estimate, lower, upper, se, df, eValueEstimate, eValueInterval,
+                t, partialR2, rv and rvAlpha are null when the row does not give them
+  --csv         a CSV of the results, safe to open in a spreadsheet (text that would run as a formula is neutralised)
+  --keep-going  exit with status 0 even when some rows have problems
+
+Exit status: 0 every row computed; 2 bad input (options, or a file that cannot be read as a table of findings);
+3 the results are printed but some rows have problems (unless --keep-going).
 
 A sensitivity analysis bounds how strong hidden confounding would have to be; it does not prove causation.
 Decisions about health or safety defer to domain experts, local guidance and licensed practice.
@@ -43,15 +53,30 @@ export const command: LurkCommand = defineCommand({
     if (positionals.length !== 1) throw new UsageError('FILE', 'give exactly one CSV file of reported findings');
     if (values.json && values.csv) throw new UsageError('--csv', 'choose --json or --csv, not both');
     const alpha = numberOption(values.alpha, '--alpha') ?? 0.05;
-    if (!(alpha > 0 && alpha < 1)) throw new UsageError('--alpha', `must be between 0 and 1, got ${alpha}`);
+    if (!(alpha >= ALPHA_RANGE.low && alpha <= ALPHA_RANGE.high)) {
+      throw new UsageError('--alpha', `must be between ${ALPHA_RANGE.low} and ${ALPHA_RANGE.high} (a significance level), got ${alpha}`);
+    }
     const text = await readFileArgument(io, positionals[0], 'FILE');
-    const result = appraiseBatchCsv(text, alpha);
+    const result = asFileProblem(() => appraiseBatchCsv(text, alpha));
     if (values.json) io.out(JSON.stringify(result, null, 2) + '\n');
     else if (values.csv) io.out(batchCsvText(result));
-    else io.out(batchReport(result));
-    return 0;
+    else io.out(printableLines(batchReport(result)));
+    const withProblems = result.rows.filter((r) => r.problem).length;
+    if (withProblems === 0 || values['keep-going']) return 0;
+    io.err(`lurk batch: ${withProblems} of ${result.rows.length} rows have problems (listed with the results; --keep-going exits 0)\n`);
+    return EXIT_WITH_PROBLEMS;
   },
 });
+
+/** Problems of the file as a whole are named by the FILE argument (the command has no --file option). */
+function asFileProblem<T>(read: () => T): T {
+  try {
+    return read();
+  } catch (error) {
+    if (error instanceof InputError) throw new UsageError('FILE', error.problems[0]?.message ?? 'cannot be read as a table of findings');
+    throw error;
+  }
+}
 
 /** A readable table. */
 export function batchReport(result: BatchResult): string {

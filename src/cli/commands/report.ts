@@ -1,27 +1,39 @@
-import { readAppraisal } from '../../workspace/appraisal';
+import { readAppraisal, type Appraisal } from '../../workspace/appraisal';
+import { currentSummaries } from '../../workspace/currentSummaries';
 import { buildRobustnessStatement, renderRobustnessStatement, type StatementFormat } from '../../workspace/robustnessStatement';
 import { buildBottomLine } from '../../workspace/bottomLine';
 import { InputError, inputProblem } from '../../methods/problems';
 import type { LurkCommand } from '../defineCommand';
 import { choiceOption, type OptionKinds } from '../parseOptions';
-import { UsageError } from '../usageError';
+import { EXIT_WITH_PROBLEMS, UsageError } from '../usageError';
 import { readFileArgument } from '../readFileArgument';
 import { defineCommand } from '../defineCommand';
+import { printableLines } from '../../data/printable';
 
 const OPTIONS: OptionKinds = {
   format: { type: 'string' },
   'bottom-line': { type: 'boolean' },
+  'keep-going': { type: 'boolean' },
 };
 
 const HELP = `lurk report — the robustness statement of a saved appraisal, ready to paste into a paper.
 
-  lurk report APPRAISAL.json [--format md|tex|html] [--bottom-line]
+  lurk report APPRAISAL.json [--format md|tex|html] [--bottom-line] [--keep-going]
 
 APPRAISAL.json is a file saved from the Lurk page ("Save appraisal"). The statement gives the numbers of each
 calculator used, the assumptions each method makes, and full references to the published methods.
 
   --format       md (Markdown, default), tex (LaTeX) or html
   --bottom-line  print the plain-language bottom line for decision-makers instead
+  --keep-going   exit with status 0 even when some calculators of the appraisal give no result
+
+APPRAISAL.json "-" is standard input. Every field of the file is checked against the appraisal schema; a file
+that breaks it is refused with the path of the field. The numbers are computed again from the saved inputs.
+
+Exit status: 0 the statement is printed; 2 bad input (options, or a file that is not a valid appraisal);
+3 the statement is printed, but a calculator that had a result when saved gives none now (its inputs have
+problems, or its saved result of a file that is not kept cannot be read); it is named on standard error
+and left out of the statement (unless --keep-going, which exits 0).
 
 A sensitivity analysis bounds how strong hidden confounding would have to be; it does not prove causation.
 Decisions about health or safety defer to domain experts, local guidance and licensed practice.
@@ -47,6 +59,12 @@ export const command: LurkCommand = defineCommand({
       const first = read.problems[0];
       throw new InputError([inputProblem('APPRAISAL', first.code, `${first.field} ${first.message}`)]);
     }
+    const missing = calculatorsWithoutResult(read.appraisal);
+    const done = (): number => {
+      if (missing.length === 0 || values['keep-going']) return 0;
+      io.err(`lurk report: calculators.${missing.join(', calculators.')}: had a result when saved but gives none now; left out (--keep-going exits 0)\n`);
+      return EXIT_WITH_PROBLEMS;
+    };
     if (values['bottom-line']) {
       const line = buildBottomLine(read.appraisal);
       const out = line.empty
@@ -59,10 +77,18 @@ export const command: LurkCommand = defineCommand({
             ...(line.wouldNotChange.length ? ['What would not:', ...line.wouldNotChange.map((s) => `  - ${s}`)] : []),
           ];
       out.push('', line.caution, '');
-      io.out(out.join('\n'));
-      return 0;
+      io.out(printableLines(out.join('\n')));
+      return done();
     }
-    io.out(renderRobustnessStatement(buildRobustnessStatement(read.appraisal), format));
-    return 0;
+    io.out(printableLines(renderRobustnessStatement(buildRobustnessStatement(read.appraisal), format)));
+    return done();
   },
 });
+
+/** Calculators saved with a result (a summary) that give none now, by id. */
+function calculatorsWithoutResult(appraisal: Appraisal): string[] {
+  const shown = new Set(currentSummaries(appraisal).map((s) => s.method.id));
+  return Object.entries(appraisal.calculators)
+    .filter(([id, entry]) => entry && entry.summary !== null && !shown.has(id))
+    .map(([id]) => id);
+}

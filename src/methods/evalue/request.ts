@@ -10,7 +10,7 @@ import type { EffectMeasure, OutcomePrevalence } from '../../core/riskRatioScale
 import type { TwoByTwoMeasure } from '../../core/twoByTwo';
 import type { CsvTable } from '../../data/csv';
 import type { NumberKind } from '../../data/numberText';
-import { fieldReader } from '../fieldReader';
+import { fieldReader, RATIO_RANGE, type FieldReader } from '../fieldReader';
 import { twoByTwoFromCsv } from './twoByTwoFromCsv';
 import type { TwoByTwoFromCsv } from './twoByTwoFromCsv';
 import { readResultRow } from '../../data/sqlText';
@@ -171,7 +171,7 @@ export interface EValueFormOutcome {
 export function evaluateEValueForm(form: EValueFormInputs, table: CsvTable | null): EValueFormOutcome {
   const reader = fieldReader();
   const problems = reader.problems;
-  const number = (field: string, text: string, kind: NumberKind = 'decimal'): number | null => reader.number(field, text, kind);
+  const number = (field: string, text: string, kind: NumberKind = 'decimal'): number | null => boundedSize(reader, field, reader.number(field, text, kind));
   const level = number('level', form.level, 'level');
   const target = number('target', form.target);
   const prevalence = reader.choice('outcomePrevalence', form.outcomePrevalence, OUTCOME_PREVALENCES);
@@ -373,4 +373,16 @@ function countsFrom(
     else throw error;
     return null;
   }
+}
+
+/**
+ * A number whose size is within [1e-300, 1e300] (or 0, which the method's rules judge): beyond that range a ratio's
+ * E-value or its conversions are not representable, and such a value is a typing slip rather than a finding.
+ */
+function boundedSize(reader: FieldReader, field: string, value: number | null): number | null {
+  if (value === null || value === 0) return value;
+  const size = Math.abs(value);
+  if (size >= RATIO_RANGE.low && size <= RATIO_RANGE.high) return value;
+  reader.problems.push(inputProblem(field, 'outside-range', `must be between ${RATIO_RANGE.low} and ${RATIO_RANGE.high} in size (beyond that an E-value cannot be represented), got ${value}`, value));
+  return null;
 }

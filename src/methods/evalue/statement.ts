@@ -82,7 +82,7 @@ export function eValueStatement(e: EValueSummary, study: StudyLabels, cite: (ref
   if (e.targetDirection === 'away-from-null') {
     parts.push('The target lies beyond the estimate, farther from the null, so these E-values concern confounding that pushed the estimate toward the null (hiding a larger effect).');
   }
-  for (const r of e.references ?? []) {
+  for (const r of (e.references ?? []).filter((ref) => ref.rrExposure !== null && ref.rrOutcome !== null)) {
     parts.push(
       intervalIncludes || atTarget
         ? `A confounder as strongly related to the exposure and outcome as ${r.name} (risk ratios ${ratio(r.rrExposure)} and ${ratio(r.rrOutcome)}) ` +

@@ -1,7 +1,7 @@
 import { inputProblem, InputError, type InputProblem } from '../../core/inputProblem';
 import { validatePairsInput, type PairsData, type PairsInput } from '../../core/pairsAnalysis';
 import type { TailMethod } from '../../core/signedRankBound';
-import { fieldReader } from '../fieldReader';
+import { alphaWithinRange, fieldReader, type FieldReader } from '../fieldReader';
 import type { PairsColumns, PairsRead } from './pairsFromCsv';
 import { discordantFromText, pairsFromPastedText } from './pairsFromText';
 import { pairsFromSummaryText } from './pairsFromSummary';
@@ -166,8 +166,8 @@ export function readPairsSettings(form: PairsFormInputs): PairsSettings {
   const alternative = reader.choice('alternative', form.alternative, PAIRS_ALTERNATIVES) ?? undefined;
   const method = reader.choice('method', form.method, PAIRS_TAIL_METHODS) ?? undefined;
   const outcome = reader.choice('outcomeType', form.outcomeType, PAIRS_OUTCOME_TYPES) ?? undefined;
-  const alpha = reader.number('alpha', form.alpha, 'fraction') ?? undefined;
-  const gammas = reader.numberList('gammas', form.gammas, 'decimal') ?? undefined;
+  const alpha = alphaWithinRange(reader, 'alpha', reader.number('alpha', form.alpha, 'fraction')) ?? undefined;
+  const gammas = boundedGammas(reader, reader.numberList('gammas', form.gammas, 'decimal')) ?? undefined;
   const zeroRule = reader.choice('zeros', form.zeros ?? '', PAIRS_ZERO_RULES) ?? undefined;
   return { test, alternative, method, outcome, alpha, gammas, continuityCorrection: form.continuityCorrection === true, zeroRule, problems: reader.problems };
 }
@@ -236,3 +236,22 @@ const SUMMARY_COLUMNS: Readonly<Record<string, string>> = {
   sumRanks: 'rank_sum',
   sumSquaredRanks: 'rank_sum_squares',
 };
+/** The largest Γ tabulated: the tipping-point search stops there too (larger values are typing slips). */
+const MAX_GAMMA = 1e6;
+/** The most Γ values tabulated at once. */
+const MAX_GAMMAS = 200;
+
+/** A Γ list within [1, 1e6] and at most 200 values long, or null (with a problem) when it is not. */
+function boundedGammas(reader: FieldReader, gammas: number[] | null): number[] | null {
+  if (gammas === null) return null;
+  if (gammas.length > MAX_GAMMAS) {
+    reader.problems.push(inputProblem('gammas', 'too-many', `has ${gammas.length} values; give at most ${MAX_GAMMAS}`));
+    return null;
+  }
+  const i = gammas.findIndex((g) => g > MAX_GAMMA);
+  if (i >= 0) {
+    reader.problems.push(inputProblem('gammas', 'outside-range', `item ${i + 1} is ${gammas[i]}; each Γ must be at most ${MAX_GAMMA.toLocaleString('en')} (the largest bias searched)`, gammas[i]));
+    return null;
+  }
+  return gammas;
+}

@@ -52,7 +52,7 @@ export function pairsStatement(p: PairsSummary, study: StudyLabels, cite: (refer
   }
   if (p.estimate !== null) {
     let sentence = `The Hodges–Lehmann estimate of the effect is ${num(p.estimate)}${unit}`;
-    if (p.rangeAt && p.rangeAt.gamma !== null && p.rangeAt.gamma > 1) {
+    if (p.rangeAt && p.rangeAt.gamma !== null && p.rangeAt.gamma > 1 && p.rangeAt.estimateLow !== null && p.rangeAt.estimateHigh !== null) {
       sentence += `; under hidden bias up to Γ = ${num(p.rangeAt.gamma)} the possible estimates range from ${num(p.rangeAt.estimateLow)} to ${num(p.rangeAt.estimateHigh)}${unit}`;
       if (p.rangeAt.intervalLow !== null && p.rangeAt.intervalHigh !== null) {
         sentence += `, and the ${num((1 - (p.alpha ?? 0.05)) * 100)}% sensitivity interval is ${num(p.rangeAt.intervalLow)} to ${num(p.rangeAt.intervalHigh)}${unit}`;

@@ -4,7 +4,7 @@ import { designFromCrossProducts } from '../../core/crossProductFit';
 import { INTERCEPT_NAME, type TriangularDesign } from '../../core/linearModel';
 import type { BiasDirection } from '../../core/confounderAdjustment';
 import { InputError, inputProblem, type InputProblem } from '../../core/inputProblem';
-import { fieldReader, type FieldReader } from '../fieldReader';
+import { alphaWithinRange, fieldReader, type FieldReader } from '../fieldReader';
 import { readCsvText } from '../../data/csv';
 import { crossProductsFromSqlRow, summaryStatisticsSql } from './summaryStatisticsSql';
 import { parseBenchmarkList } from './ovbRegressionData';
@@ -194,6 +194,10 @@ export function evaluateOvbForm(form: OvbFormInputs, fileData: FileRegression | 
     started = form.estimate.trim() !== '' || form.se.trim() !== '';
     const estimate = opt(reader.required('estimate', form.estimate, 'decimal', 'the coefficient of the treatment'));
     const se = opt(reader.required('se', form.se, 'decimal', 'its standard error'));
+    // |t| beyond 1e6 overflows the bounds' arithmetic (t² and its scenarios) and is a slip in a reported number.
+    if (estimate !== undefined && se !== undefined && se > 0 && !(Math.abs(estimate / se) <= MAX_ABS_T)) {
+      problems.push(inputProblem('se', 'outside-range', `is too small for the estimate: t = estimate / se must be at most ${MAX_ABS_T.toLocaleString('en')} in size, got ${(estimate / se).toPrecision(3)}`, se));
+    }
     const df = form.dfBy === 'df' ? opt(reader.required('df', form.df, 'whole', 'the residual degrees of freedom')) : undefined;
     const n = form.dfBy === 'n' ? opt(reader.required('n', form.n, 'whole', 'the number of observations')) : undefined;
     const parameters = form.dfBy === 'n' ? opt(reader.required('parameters', form.parameters, 'whole', 'the number of coefficients')) : undefined;
@@ -435,10 +439,13 @@ function benchmarkGroups(form: OvbFormInputs) {
   return groups ? { benchmarks: groups } : {};
 }
 
+/** The largest |t| (estimate / standard error) a reported estimate may have. */
+const MAX_ABS_T = 1e6;
+
 function readSettings(form: OvbFormInputs, reader: FieldReader): Pick<OvbInput, 'q' | 'alpha' | 'direction' | 'k' | 'kOutcome' | 'seKind' | 'scenario'> {
   const problems = reader.problems;
   const q = opt(reader.number('q', form.q, 'fraction'));
-  const alpha = opt(reader.number('alpha', form.alpha, 'fraction'));
+  const alpha = opt(alphaWithinRange(reader, 'alpha', reader.number('alpha', form.alpha, 'fraction')));
   const direction = reader.choice('direction', form.direction, DIRECTIONS) ?? 'toward-zero';
   const kText = form.k.trim();
   const k = reader.numberList('k', kText, 'decimal') ?? [];

@@ -23,7 +23,7 @@ export function ovbStatement(r: OvbSummary, study: StudyLabels, cite: (reference
     );
   }
   parts.push(
-    `For the linear regression of ${outcome} on ${exposure} and the measured covariates (estimate ${num(r.estimate)}, standard error ${num(r.se)}, t = ${num(r.t)}, ${int(r.df)} residual degrees of freedom), ` +
+    `For the linear regression of ${outcome} on ${exposure} and the measured covariates (estimate ${num(r.estimate)}, standard error ${num(r.se)}${r.t === null ? '' : `, t = ${num(r.t)}`}, ${int(r.df)} residual degrees of freedom), ` +
       `we used the omitted-variable-bias framework of Cinelli and Hazlett ${cite(OVB_REFERENCE)}.`,
     `${capitalise(exposure)} explains ${formatPercent(r.partialR2)} of the residual variance of ${outcome} (partial R²).`,
     `The robustness value is ${formatPercent(r.rv)}: an unmeasured confounder explaining at least ${formatPercent(r.rv)} of the residual variance of both ${exposure} and ${outcome} would be strong enough to ${goal}` +
