@@ -38,7 +38,7 @@ export function methodCommand(method: MethodModule): LurkCommand {
         if (!(error instanceof InputError)) throw error;
         // Problems are named by form field; on the command line they name the option that holds the field. A field
         // that is no option (a column of a file read) is named inside the message, after the option of the file.
-        const first = error.problems[0];
+        const first = error.problems[0] ?? { field: '--', message: 'gives no result; see --help' };
         const option = first.field.startsWith('-') ? first.field : command.optionOf(first.field);
         if (isOption(option)) throw new UsageError(option, first.message);
         const fileOption = Object.keys(values).find((name) => opened.includes(String(values[name])) && isOption(`--${name}`));

@@ -22,7 +22,7 @@ export interface BenchmarkBound {
 
 /** Why a capped bound (R²yz = 1) is not informative, in plain words. */
 export const CAPPED_BOUND_REASON =
-  'the bound reaches 100% of the outcome’s residual variance (R²yz capped at 1), so the adjusted standard error is 0 and the adjusted t is not available';
+  'the bound reaches 100% of the outcome’s residual variance (R²yz capped at 1): a confounder this strong could explain all of the outcome’s remaining variance, so no adjusted standard error or t follows from it';
 
 /**
  * Bounds on the strength of a confounder Z that is k_D times as strongly associated with the treatment, and

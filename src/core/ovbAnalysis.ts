@@ -362,7 +362,7 @@ export function analyseOvb(input: OvbInput): OvbResult {
       }
       const multiple = k === kOutcome ? `${k} ×` : `k_D = ${k}, k_Y = ${kOutcome} ×`;
       if (!bound.informative) {
-        warnings.push(`For ${multiple} ${b.covariate} the bound on R²(Y~Z|D,X) reached 1 (100% of the outcome’s residual variance) and was capped there: the bound is not informative (adjusted standard error 0, so no adjusted t).`);
+        warnings.push(`For ${multiple} ${b.covariate} the bound on R²(Y~Z|D,X) reached 1 (100% of the outcome’s residual variance) and was capped there: the bound is not informative: a confounder this strong could explain all of the outcome’s remaining variance, so it gives no adjusted standard error or t.`);
       }
       benchmarks.push({
         covariate: b.covariate,
@@ -469,7 +469,7 @@ function ovbConventions(settings: {
         ? 'Benchmarks bound a confounder k times as strongly associated with the treatment and k times with the outcome as the covariate (k_D = k_Y = k), with the confounder unrelated to the measured covariates.'
         : 'Benchmarks bound a confounder k_D times as strongly associated with the treatment and k_Y times with the outcome as the covariate (different multiples for the two sides), with the confounder unrelated to the measured covariates.',
     );
-    c.add('capped-bounds', `A bound on the outcome side is capped at 100% of the outcome’s residual variance; where it is capped, ${CAPPED_BOUND_REASON.replace(/^the bound reaches 100% of the outcome’s residual variance \(R²yz capped at 1\), so /, '')}, and the bound is marked not informative.`);
+    c.add('capped-bounds', 'A bound on the outcome side is capped at 100% of the outcome’s residual variance; where it is capped the bound is marked not informative: a confounder that strong could explain all of the outcome’s remaining variance, so no adjusted standard error or t follows from it.');
     c.add('strongest-covariate', STRONGEST_COVARIATE_RULE);
   }
   return c.list();

@@ -31,7 +31,9 @@ export function fieldReader(): FieldReader {
       return null;
     },
     required(field, text, kind, what) {
-      if (String(text ?? '').trim() === '') {
+      // Empty text and the missing-cell texts ("NA", "NaN", ".") are both missing.
+      const read = readTypedNumber(String(text ?? ''), kind);
+      if (!read.ok && read.code === 'required') {
         problems.push(inputProblem(field, 'required', `is required (${what})`));
         return null;
       }

@@ -38,7 +38,7 @@ describe('messages name the right option, on one line', () => {
     [['ovb', '--estimate', '2', '--se', '0.5', '--df', '100', '--alpha', '1e-300'], /^lurk ovb: --alpha: must be between 1e-12 and 0\.5 \(/],
     [['evalue', '--measure', 'rr', '--estimate', '2', '--target', '1.79e308'], /^lurk evalue: --target: must be between 1e-300 and 1e\+300 in size/],
     [['pairs', '--discordant', '10,5', '--gamma', '1e300'], /^lurk pairs: --gamma: item 1 is 1e\+300; each Γ must be at most 1,000,000/],
-    [['ovb', '--summary', 's.csv', '--outcome', 'y', '--treatment', 'd', '--covariates', 'a'], /^lurk ovb: --summary: column "n" is missing from the query result/],
+    [['ovb', '--summary', 's.csv', '--outcome', 'y', '--treatment', 'd', '--covariates', 'a'], /^lurk ovb: --summary: column n is missing from the query result/],
     [['batch', 'empty.csv'], /^lurk batch: FILE: /],
     [['pairs', '--file', 'esc.csv', '--treated', 'x', '--control', 'y'], /^lurk pairs: --treated: .*\\x1b\[31m/],
   ])('%j', async (args, message) => {

@@ -1,3 +1,4 @@
+import { METHODS } from '../../src/methods/registry';
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import schema from '../../src/workspace/appraisal.schema.json';
@@ -62,7 +63,7 @@ describe('appraisal files', () => {
     );
     // Fields of older versions are single values (ignored when read); anything else is refused.
     expect(fieldOf((a) => (a.calculators.evalue.inputs.colour = { red: 1 }))).toBe('calculators.evalue.inputs.colour: must be text or a finite number or true or false or null');
-    expect(fieldOf((a) => (a.calculators.ghost = { inputs: {}, summary: null }))).toBe('calculators.ghost: is not a calculator (calculators: evalue, pairs, regression)');
+    expect(fieldOf((a) => (a.calculators.ghost = { inputs: {}, summary: null }))).toBe(`calculators.ghost: is not a calculator (calculators: ${METHODS.map((m) => m.id).join(', ')})`);
   });
 
   it('says plainly when a file is from another version or is not an appraisal', () => {

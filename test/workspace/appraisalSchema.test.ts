@@ -30,6 +30,8 @@ describe('the appraisal schema covers every method of the registry', () => {
     const calculators: Record<string, { inputs: Record<string, unknown>; summary: unknown }> = {};
     for (const method of METHODS) {
       const form = method.form.normalise((demo.inputs as Record<string, unknown>)[method.id]);
+      // A method whose demo needs a data file (never saved) has no summary from its inputs alone.
+      if (method.workspace.needsData(form)) continue;
       const summary = method.workspace.summaryFromForm(form);
       expect(summary, method.id).not.toBeNull();
       calculators[method.id] = { inputs: form as Record<string, unknown>, summary };

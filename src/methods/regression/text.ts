@@ -43,7 +43,7 @@ export function notInformativeWords(row: Pick<OvbBenchmarkRow, 'unavailable' | '
 
 /** The result's warnings as shown to people: a capped bound's note says why in words, not "standard error 0, t not available". */
 export function shownWarnings(result: Pick<OvbResult, 'warnings'>): string[] {
-  return result.warnings.map((w) => w.replace(/ \(adjusted standard error 0, adjusted t not available\)\.$/, `: ${CAPPED_BOUND_WORDS}.`));
+  return result.warnings.map((w) => w.replace(/, ?\(adjusted standard error 0, (?:so no adjusted t|adjusted t not available)\)\.$/, `: ${CAPPED_BOUND_WORDS}.`));
 }
 
 /** Whether the estimate is statistically significant before any adjustment (|t| above the threshold). */
