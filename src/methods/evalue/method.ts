@@ -1,5 +1,5 @@
 import { InputError, inputProblem, type InputProblem } from '../../core/inputProblem';
-import { readCsvText, type CsvTable } from '../../data/csv';
+import { twoByTwoFromStream, type TwoByTwoFromCsv } from './twoByTwoFromCsv';
 import { NUMBER_READING_RULE } from '../../data/numberText';
 import type { CommandContext, MethodModule, OptionValues } from '../methodModule';
 import { eValueBottomLine } from './bottomLine';
@@ -218,16 +218,21 @@ async function runEValueCommand(form: EValueFormInputs, values: OptionValues, co
     return queryReport(sql, { table: form.summaryTable, exposure: form.exposureColumn.trim(), outcome: form.outcomeColumn.trim(), exposedValues: [...form.exposedValues], outcomeValues: [...form.outcomeValues] });
   }
   if (form.source === 'summary') form = { ...form, summaryResult: await readSummaryArgument(form.summaryResult ?? '', context, 'summaryResult') };
-  let table: CsvTable | null = null;
+  let table: TwoByTwoFromCsv | null = null;
   if (form.source === 'file') {
-    let content: string;
+    // Counted while the file streams by: memory stays bounded by the distinct values, not by the file's size.
     try {
-      content = await context.open(form.fileName).text();
+      table = await twoByTwoFromStream(context.open(form.fileName).bytes(), {
+        exposureColumn: form.exposureColumn,
+        outcomeColumn: form.outcomeColumn,
+        exposedValues: form.exposedValues,
+        outcomeValues: form.outcomeValues,
+      });
     } catch (error) {
-      const reason = (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (error as Error).message;
+      if (error instanceof InputError) throw new InputError(error.problems.map((p) => forCommandLine(p, form)));
+      const reason = (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (error as NodeJS.ErrnoException).code === 'EISDIR' ? 'it is a folder' : (error as Error).message;
       throw new InputError([inputProblem('file', 'unreadable-file', `cannot read "${form.fileName}": ${reason}`, form.fileName)]);
     }
-    table = readCsvText(content, 'file');
   }
   const outcome = evaluateEValueForm(form, table);
   if (outcome.problems.length > 0) throw new InputError(outcome.problems.map((p) => forCommandLine(p, form)));

@@ -168,7 +168,7 @@ export interface EValueFormOutcome {
  * @param form the form as typed (a choice typed in another case, "RR", is accepted)
  * @param table the CSV read from the chosen file (file source only), or null when none is loaded
  */
-export function evaluateEValueForm(form: EValueFormInputs, table: CsvTable | null): EValueFormOutcome {
+export function evaluateEValueForm(form: EValueFormInputs, table: CsvTable | TwoByTwoFromCsv | null): EValueFormOutcome {
   const reader = fieldReader();
   const problems = reader.problems;
   const number = (field: string, text: string, kind: NumberKind = 'decimal'): number | null => boundedSize(reader, field, reader.number(field, text, kind));
@@ -334,7 +334,7 @@ export function parseLevel(value: number | null): number | null {
 
 function countsFrom(
   form: EValueFormInputs,
-  table: CsvTable | null,
+  table: CsvTable | TwoByTwoFromCsv | null,
   number: (field: string, text: string, kind?: NumberKind) => number | null,
   problems: InputProblem[],
   keepCsv: (csv: TwoByTwoFromCsv) => void,
@@ -360,7 +360,8 @@ function countsFrom(
     return null;
   }
   try {
-    const csv = twoByTwoFromCsv(table, {
+    // A table already counted from a stream (a large file read chunk by chunk) is taken as it is.
+    const csv = 'counts' in table ? table : twoByTwoFromCsv(table, {
       exposureColumn: form.exposureColumn,
       outcomeColumn: form.outcomeColumn,
       exposedValues: form.exposedValues,

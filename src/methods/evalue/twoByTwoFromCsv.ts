@@ -1,7 +1,9 @@
 import { InputError, inputProblem } from '../../core/inputProblem';
 import type { InputProblem } from '../../core/inputProblem';
 import type { TwoByTwoCounts } from '../../core/twoByTwo';
-import { columnIndex, columnLevels } from '../../data/csv';
+import { columnIndex } from '../../data/csv';
+import { csvRowBatches, type CsvStreamOptions } from '../../data/csvStream';
+import type { ByteSource } from '../../data/byteSource';
 import type { CsvTable } from '../../data/csv';
 
 /** Which columns hold the exposure and the outcome, and which of their values mean "exposed" / "had the outcome". */
@@ -58,9 +60,75 @@ const YES_NO_PAIRS: ReadonlyArray<readonly [string, string]> = [
  *   occur) and `exposedValues`/`outcomeValues`
  */
 export function twoByTwoFromCsv(table: CsvTable, columns: TwoByTwoColumns): TwoByTwoFromCsv {
+  const [e, o] = chosenIndices(table.columns, columns);
+  const pairs = new PairCounts();
+  if (e >= 0 && o >= 0) for (const row of table.rows) pairs.add(row[e], row[o]);
+  return twoByTwoFromPairCounts(table.columns, pairs, columns, table.warnings);
+}
+
+/**
+ * The same table counted from a CSV byte stream (a file of any size, read chunk by chunk): only the distinct
+ * (exposure, outcome) value pairs and their counts are kept, so memory stays bounded by the number of distinct
+ * values, not by the file. Same rules and messages as {@link twoByTwoFromCsv}.
+ */
+export async function twoByTwoFromStream(source: ByteSource, columns: TwoByTwoColumns, options: CsvStreamOptions = {}): Promise<TwoByTwoFromCsv> {
+  const pairs = new PairCounts();
+  let header: readonly string[] | null = null;
+  let e = -1;
+  let o = -1;
+  const batches = csvRowBatches(source, options);
+  for (;;) {
+    const next = await batches.next();
+    if (next.done) {
+      return twoByTwoFromPairCounts(next.value.columns, pairs, columns, next.value.warnings);
+    }
+    const batch = next.value;
+    if (header === null) {
+      header = batch.columns;
+      [e, o] = chosenIndices(header, columns);
+      // Unknown columns: the messages come from the counting step; nothing more to read.
+      if (e < 0 || o < 0) return twoByTwoFromPairCounts(header, pairs, columns, []);
+    }
+    for (const row of batch.rows) pairs.add(row[e], row[o]);
+  }
+}
+
+/** How often each (exposure, outcome) cell pair occurs; null is a missing cell. */
+class PairCounts {
+  readonly byExposure = new Map<string | null, Map<string | null, number>>();
+  add(exposure: string | null, outcome: string | null): void {
+    let inner = this.byExposure.get(exposure);
+    if (!inner) this.byExposure.set(exposure, (inner = new Map()));
+    inner.set(outcome, (inner.get(outcome) ?? 0) + 1);
+  }
+  /** The non-missing values of one side, in the order `columnLevels` gives (numbers in numeric order). */
+  levels(side: 'exposure' | 'outcome'): string[] {
+    const values = new Set<string>();
+    for (const [ev, inner] of this.byExposure) {
+      if (side === 'exposure') {
+        if (ev !== null) values.add(ev);
+      } else for (const ov of inner.keys()) if (ov !== null) values.add(ov);
+    }
+    return [...values].sort((a, b) => a.localeCompare(b, 'en', { numeric: true }));
+  }
+}
+
+function chosenIndices(header: readonly string[], columns: TwoByTwoColumns): [number, number] {
+  const find = (name: string) => {
+    if (typeof name !== 'string' || name.trim() === '') return -1;
+    try {
+      return columnIndex({ columns: header }, name, 'column');
+    } catch {
+      return -1;
+    }
+  };
+  return [find(columns.exposureColumn), find(columns.outcomeColumn)];
+}
+
+function twoByTwoFromPairCounts(header: readonly string[], pairs: PairCounts, columns: TwoByTwoColumns, readWarnings: readonly string[]): TwoByTwoFromCsv {
   const problems: InputProblem[] = [];
-  const exposure = mapColumn(table, columns.exposureColumn, columns.exposedValues, 'exposure', 'exposedValues', 'exposed', problems);
-  const outcome = mapColumn(table, columns.outcomeColumn, columns.outcomeValues, 'outcome', 'outcomeValues', 'had the outcome', problems);
+  const exposure = mapColumn(header, pairs.levels('exposure'), columns.exposureColumn, columns.exposedValues, 'exposure', 'exposedValues', 'exposed', problems);
+  const outcome = mapColumn(header, pairs.levels('outcome'), columns.outcomeColumn, columns.outcomeValues, 'outcome', 'outcomeValues', 'had the outcome', problems);
   if (!exposure || !outcome || problems.length > 0) throw new InputError(problems);
 
   const exposed = new Set(exposure.yesValues);
@@ -70,20 +138,17 @@ export function twoByTwoFromCsv(table: CsvTable, columns: TwoByTwoColumns): TwoB
   let c = 0;
   let d = 0;
   let rowsMissing = 0;
-  for (const row of table.rows) {
-    const e = row[exposure.index];
-    const o = row[outcome.index];
-    if (e === null || o === null) {
-      rowsMissing++;
-      continue;
+  for (const [e, inner] of pairs.byExposure) {
+    for (const [o, count] of inner) {
+      if (e === null || o === null) rowsMissing += count;
+      else if (exposed.has(e)) {
+        if (hadOutcome.has(o)) a += count;
+        else b += count;
+      } else if (hadOutcome.has(o)) c += count;
+      else d += count;
     }
-    if (exposed.has(e)) {
-      if (hadOutcome.has(o)) a++;
-      else b++;
-    } else if (hadOutcome.has(o)) c++;
-    else d++;
   }
-  const warnings = [...table.warnings];
+  const warnings = [...readWarnings];
   if (rowsMissing > 0) {
     warnings.push(
       `${rowsMissing} ${rowsMissing === 1 ? 'row was' : 'rows were'} left out because the exposure or the outcome was missing.`,
@@ -117,7 +182,8 @@ export function guessYesValues(levels: readonly string[]): string[] | null {
 }
 
 function mapColumn(
-  table: CsvTable,
+  header: readonly string[],
+  levelsOfColumn: readonly string[],
   column: string,
   given: readonly string[] | null | undefined,
   columnField: string,
@@ -131,13 +197,14 @@ function mapColumn(
   }
   let index: number;
   try {
-    index = columnIndex(table, column, columnField);
+    index = columnIndex({ columns: header }, column, columnField);
   } catch (error) {
     if (error instanceof InputError) problems.push(...error.problems);
     else throw error;
     return null;
   }
-  const levels = columnLevels(table, table.columns[index], columnField).map((level) => level.value);
+  const table = { columns: header };
+  const levels = [...levelsOfColumn];
   if (levels.length === 0) {
     problems.push(inputProblem(columnField, 'empty-column', `column "${table.columns[index]}" has no values`));
     return null;

@@ -19,9 +19,12 @@ function filesContext(files: Record<string, string> = {}): CommandContext {
         if (!(path in files)) throw Object.assign(new Error('missing'), { code: 'ENOENT' });
         return files[path];
       },
-      bytes: () => {
-        throw new Error('not used');
-      },
+      // The command streams a file: its bytes, or a rejected read for a missing file.
+      bytes: () =>
+        (async function* () {
+          if (!(path in files)) throw Object.assign(new Error('missing'), { code: 'ENOENT' });
+          yield new TextEncoder().encode(files[path]);
+        })(),
     }),
   };
 }

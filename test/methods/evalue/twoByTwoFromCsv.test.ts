@@ -125,3 +125,25 @@ describe('guessYesValues', () => {
     expect(guessYesValues(['1'])).toBeNull();
   });
 });
+
+describe('twoByTwoFromStream', () => {
+  it('counts the same table as the whole-text reader, whatever the chunk size (BOM, CRLF, quotes, NA)', async () => {
+    const { twoByTwoFromStream } = await import('../../../src/methods/evalue/twoByTwoFromCsv');
+    const { readCsvText } = await import('../../../src/data/csv');
+    const lines = ['\ufeff"smoker","lung cancer"'];
+    for (let i = 0; i < 500; i++) lines.push(`${i % 7 === 0 ? 'NA' : i % 3 === 0 ? 'yes' : 'no'},"${i % 5 < 2 ? 'yes' : 'no'}"`);
+    const text = lines.join('\r\n') + '\r\n';
+    const columns = { exposureColumn: 'smoker', outcomeColumn: 'lung cancer' };
+    const whole = twoByTwoFromCsv(readCsvText(text, 'file'), columns);
+    for (const size of [1, 7, 64, 100_000]) {
+      const bytes = new TextEncoder().encode(text);
+      const chunks = (async function* () {
+        for (let i = 0; i < bytes.length; i += size) yield bytes.slice(i, i + size);
+      })();
+      const streamed = await twoByTwoFromStream(chunks, columns);
+      expect(streamed.counts).toEqual(whole.counts);
+      expect(streamed.rowsMissing).toBe(whole.rowsMissing);
+      expect(streamed.exposure).toEqual(whole.exposure);
+    }
+  });
+});
