@@ -1,6 +1,8 @@
 import { InputError } from '../core/inputProblem';
 import type { InputProblem } from '../core/inputProblem';
 import { columnIndex, readCsvText, type CsvTable } from '../data/csv';
+import { csvRowBatches } from '../data/csvStream';
+import type { ByteSource } from '../data/byteSource';
 import { emptyEValueForm, evaluateEValueForm, type EValueFormInputs } from '../methods/evalue/request';
 import { emptyOvbForm, evaluateOvbForm, type OvbFormInputs } from '../methods/regression/request';
 
@@ -71,14 +73,41 @@ export function appraiseBatchCsv(text: string, alpha = 0.05): BatchResult {
 }
 
 export function appraiseBatchTable(table: CsvTable, alpha = 0.05): BatchResult {
-  const normal = (c: string) => c.trim().toLowerCase().replace(/[\s.-]+/g, '_');
-  const find = (name: string): number => table.columns.findIndex((c) => normal(c) === name);
-  for (const required of ['measure', 'estimate']) if (find(required) < 0) columnIndex(table, required, 'file');
-  const at = Object.fromEntries(BATCH_COLUMNS.map((c) => [c, find(c)])) as Record<BatchColumn, number>;
-  const unknown = table.columns.filter((c) => !BATCH_COLUMNS.includes(normal(c) as BatchColumn));
-  const warnings = [...table.warnings];
-  if (unknown.length > 0) warnings.push(`columns not used: ${unknown.join(', ')}`);
+  const { at, unknown } = batchColumns(table.columns);
   const rows = table.rows.map((cells, i) => appraiseRow((column) => (at[column] >= 0 ? (cells[at[column]] ?? '') : ''), i + 1, alpha));
+  return batchResult(rows, [...table.warnings, ...unknown], alpha);
+}
+
+/**
+ * The same appraisal of a CSV byte stream (a file of any size, read chunk by chunk): each row is appraised as it
+ * arrives and only its results are kept, so memory holds one chunk of the file at a time.
+ */
+export async function appraiseBatchStream(source: ByteSource, alpha = 0.05): Promise<BatchResult> {
+  const rows: BatchRow[] = [];
+  let layout: ReturnType<typeof batchColumns> | null = null;
+  const batches = csvRowBatches(source);
+  for (;;) {
+    const next = await batches.next();
+    if (next.done) return batchResult(rows, [...next.value.warnings, ...(layout?.unknown ?? [])], alpha);
+    const batch = next.value;
+    layout ??= batchColumns(batch.columns);
+    const { at } = layout;
+    batch.rows.forEach((cells, i) => rows.push(appraiseRow((column) => (at[column] >= 0 ? (cells[at[column]] ?? '') : ''), batch.firstRowNumber + i, alpha)));
+  }
+}
+
+/** Where each batch column is (−1 when absent); the file must have `measure` and `estimate`. */
+function batchColumns(columns: readonly string[]): { at: Record<BatchColumn, number>; unknown: string[] } {
+  const normal = (c: string) => c.trim().toLowerCase().replace(/[\s.-]+/g, '_');
+  const find = (name: string): number => columns.findIndex((c) => normal(c) === name);
+  for (const required of ['measure', 'estimate']) if (find(required) < 0) columnIndex({ columns }, required, 'file');
+  const at = Object.fromEntries(BATCH_COLUMNS.map((c) => [c, find(c)])) as Record<BatchColumn, number>;
+  const unknownColumns = columns.filter((c) => !BATCH_COLUMNS.includes(normal(c) as BatchColumn));
+  return { at, unknown: unknownColumns.length > 0 ? [`columns not used: ${unknownColumns.join(', ')}`] : [] };
+}
+
+function batchResult(rows: BatchRow[], readWarnings: string[], alpha: number): BatchResult {
+  const warnings = [...readWarnings];
   if (rows.some((r) => r.measure !== 'coef' && r.measure !== '' && r.se !== null && r.df !== null)) warnings.push(BATCH_RV_RULE);
   return Object.freeze({
     rows: Object.freeze(rows),

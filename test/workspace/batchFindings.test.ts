@@ -52,3 +52,19 @@ describe('appraiseBatchCsv', () => {
     }
   });
 });
+
+describe('appraiseBatchStream', () => {
+  it('gives the same rows as the whole-text reader, whatever the chunk size', async () => {
+    const { appraiseBatchStream } = await import('../../src/workspace/batchFindings');
+    const whole = appraiseBatchCsv(batchText);
+    for (const size of [3, 64, 1 << 20]) {
+      const bytes = new TextEncoder().encode(batchText);
+      const chunks = (async function* () {
+        for (let i = 0; i < bytes.length; i += size) yield bytes.slice(i, i + size);
+      })();
+      const streamed = await appraiseBatchStream(chunks);
+      expect(streamed.rows).toEqual(whole.rows);
+      expect(streamed.warnings).toEqual(whole.warnings);
+    }
+  });
+});

@@ -1,4 +1,4 @@
-import { appraiseBatchCsv, BATCH_COLUMNS, BATCH_MEASURES, BATCH_RV_RULE, type BatchResult } from '../../workspace/batchFindings';
+import { appraiseBatchStream, BATCH_COLUMNS, BATCH_MEASURES, BATCH_RV_RULE, type BatchResult } from '../../workspace/batchFindings';
 import { batchCsvText } from '../../workspace/batchCsv';
 import { formatNumber, formatPercent } from '../../format/formatNumber';
 import type { LurkCommand } from '../defineCommand';
@@ -6,7 +6,6 @@ import { numberOption, type OptionKinds } from '../parseOptions';
 import { EXIT_WITH_PROBLEMS, UsageError } from '../usageError';
 import { InputError } from '../../methods/problems';
 import { ALPHA_RANGE } from '../../methods/fieldReader';
-import { readFileArgument } from '../readFileArgument';
 import { defineCommand } from '../defineCommand';
 import { printableLines } from '../../data/printable';
 
@@ -56,8 +55,8 @@ export const command: LurkCommand = defineCommand({
     if (!(alpha >= ALPHA_RANGE.low && alpha <= ALPHA_RANGE.high)) {
       throw new UsageError('--alpha', `must be between ${ALPHA_RANGE.low} and ${ALPHA_RANGE.high} (a significance level), got ${alpha}`);
     }
-    const text = await readFileArgument(io, positionals[0], 'FILE');
-    const result = asFileProblem(() => appraiseBatchCsv(text, alpha));
+    // Rows are appraised as the file streams by (memory: one chunk of the file, plus the results).
+    const result = await asFileProblem(() => appraiseBatchStream(io.openStream(positionals[0]), alpha), positionals[0]);
     if (values.json) io.out(JSON.stringify(result, null, 2) + '\n');
     else if (values.csv) io.out(batchCsvText(result));
     else io.out(printableLines(batchReport(result)));
@@ -69,11 +68,12 @@ export const command: LurkCommand = defineCommand({
 });
 
 /** Problems of the file as a whole are named by the FILE argument (the command has no --file option). */
-function asFileProblem<T>(read: () => T): T {
+async function asFileProblem<T>(read: () => Promise<T>, path: string): Promise<T> {
   try {
-    return read();
+    return await read();
   } catch (error) {
     if (error instanceof InputError) throw new UsageError('FILE', error.problems[0]?.message ?? 'cannot be read as a table of findings');
+    if (typeof (error as NodeJS.ErrnoException).code === 'string') throw new UsageError('FILE', `cannot read "${path}"`);
     throw error;
   }
 }
