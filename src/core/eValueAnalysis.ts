@@ -132,7 +132,7 @@ export const E_VALUE_REFERENCES: readonly string[] = Object.freeze([
   'Ding P, VanderWeele TJ (2016). Sensitivity analysis without assumptions. Epidemiology 27(3):368–377.',
 ]);
 
-const CONVERSION_REFERENCES: Partial<Record<RiskRatioConversion, string>> = {
+export const CONVERSION_REFERENCES: Partial<Record<RiskRatioConversion, string>> = {
   'odds-ratio-square-root':
     'VanderWeele TJ (2017). On a square-root transformation of the odds ratio for a common outcome. Epidemiology 28(6):e58–e60 (recalled from memory).',
   'hazard-ratio-common-outcome':

@@ -136,7 +136,8 @@ const CURVE_EXACT_LIMIT = 300;
  */
 export const EXACT_PAIRS_LIMIT = 1000;
 
-const REFERENCES = Object.freeze([
+/** The works the matched-pairs analysis follows (also what the robustness statement cites). */
+export const PAIRS_ANALYSIS_REFERENCES = Object.freeze([
   'Rosenbaum PR (2002) Observational Studies, 2nd ed. New York: Springer, chapter 4.',
   'Rosenbaum PR (1987) Sensitivity analysis for certain permutation inferences in matched observational studies. Biometrika 74(1):13–26.',
   'Rosenbaum PR (1993) Hodges–Lehmann point estimates of treatment effect in observational studies. JASA 88(424):1250–1253.',
@@ -477,7 +478,7 @@ export function analysePairs(input: PairsInput): PairsResult {
       test === 'signrank'
         ? 'Rosenbaum bounds for the Wilcoxon signed-rank test in matched pairs'
         : 'Rosenbaum bounds for the sign test in matched pairs (McNemar for a binary outcome)',
-    references: zeroRule === 'pratt' ? Object.freeze([...REFERENCES, PRATT_REFERENCE]) : REFERENCES,
+    references: zeroRule === 'pratt' ? Object.freeze([...PAIRS_ANALYSIS_REFERENCES, PRATT_REFERENCE]) : PAIRS_ANALYSIS_REFERENCES,
     test,
     alternative,
     alpha,

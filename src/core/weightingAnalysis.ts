@@ -103,7 +103,8 @@ const METHOD =
   'from the fitted odds by a factor between 1/Λ and Λ for each person): exact bounds on the weighted effect ' +
   'at each Λ, and a percentile-bootstrap sensitivity interval.';
 
-const REFERENCES = Object.freeze([
+/** The works the weighting analysis follows (also what the robustness statement cites). */
+export const WEIGHTING_ANALYSIS_REFERENCES = Object.freeze([
   'Tan Z (2006) A distributional approach for causal inference using propensity scores. Journal of the American Statistical Association 101(476):1619–1637 (the marginal sensitivity model) — recalled from memory.',
   'Zhao Q, Small DS, Bhattacharya BB (2019) Sensitivity analysis for inverse probability weighting estimators via the percentile bootstrap. Journal of the Royal Statistical Society Series B 81(4):735–761 (exact bounds by sorting; percentile-bootstrap sensitivity interval) — recalled from memory.',
   'Rosenbaum PR, Rubin DB (1983) The central role of the propensity score in observational studies for causal effects. Biometrika 70(1):41–55.',
@@ -297,7 +298,7 @@ export function finishWeighting(prepared: PreparedWeighting, chunks: readonly Bo
     overlap,
     weights,
     conventions: conventions(prepared),
-    references: REFERENCES,
+    references: WEIGHTING_ANALYSIS_REFERENCES,
     warnings,
   });
 }

@@ -1,14 +1,16 @@
+import { CONVERSION_REFERENCES, E_VALUE_REFERENCES } from '../../core/eValueAnalysis';
+import { statementCitation } from '../../format/citation';
 import { echoTyped, formatNumber } from '../../format/formatNumber';
 import { exposureLabel, outcomeLabel, type StudyLabels } from '../../format/studyLabels';
 import type { StatementPart } from '../methodModule';
 import type { EValueSummary } from './summary';
 
-/** The works the E-value paragraph cites, in the statement's reference style. */
+/** The works the E-value paragraph cites: the core's own references, in the statement's reference style. */
 export const E_VALUE_STATEMENT_REFERENCES = {
-  evalue: 'VanderWeele TJ, Ding P. Sensitivity analysis in observational research: introducing the E-value. Annals of Internal Medicine. 2017;167(4):268–274.',
-  bounding: 'Ding P, VanderWeele TJ. Sensitivity analysis without assumptions. Epidemiology. 2016;27(3):368–377.',
-  orCommon: 'VanderWeele TJ. On a square-root transformation of the odds ratio for a common outcome. Epidemiology. 2017;28(6):e58–e60.',
-  hrCommon: 'VanderWeele TJ. Optimal approximate conversions of odds ratios and hazard ratios to risk ratios. Biometrics. 2020;76(3):746–752.',
+  evalue: statementCitation(E_VALUE_REFERENCES[0]),
+  bounding: statementCitation(E_VALUE_REFERENCES[1]),
+  orCommon: statementCitation(CONVERSION_REFERENCES['odds-ratio-square-root'] ?? ''),
+  hrCommon: statementCitation(CONVERSION_REFERENCES['hazard-ratio-common-outcome'] ?? ''),
 } as const;
 
 const MEASURE_NAMES: Record<string, string> = {

@@ -1,3 +1,5 @@
+import { PAIRS_ANALYSIS_REFERENCES } from '../../core/pairsAnalysis';
+import { statementCitation } from '../../format/citation';
 import { formatNumber, pValueClause } from '../../format/formatNumber';
 import { exposureLabel, outcomeLabel, outcomeNoun, type StudyLabels } from '../../format/studyLabels';
 import type { StatementPart } from '../methodModule';
@@ -6,10 +8,15 @@ import { formatGamma } from './text';
 
 /** The works the matched-pairs paragraph cites (full citations). */
 export const PAIRS_REFERENCES = {
-  rosenbaum: 'Rosenbaum PR. Observational Studies. 2nd ed. New York: Springer; 2002. Chapter 4.',
-  hodgesLehmann: 'Rosenbaum PR. Hodges–Lehmann point estimates of treatment effect in observational studies. Journal of the American Statistical Association. 1993;88(424):1250–1253.',
-  amplification: 'Rosenbaum PR, Silber JH. Amplification of sensitivity analysis in matched observational studies. Journal of the American Statistical Association. 2009;104(488):1398–1405.',
+  rosenbaum: coreReference(/Observational Studies/),
+  hodgesLehmann: coreReference(/Hodges–Lehmann/),
+  amplification: coreReference(/Amplification/),
 } as const;
+
+/** One of the core's own references of the matched-pairs analysis, in the statement's reference style. */
+function coreReference(pattern: RegExp): string {
+  return statementCitation(PAIRS_ANALYSIS_REFERENCES.find((r) => pattern.test(r)) ?? '');
+}
 
 /**
  * The matched-pairs paragraph of the robustness statement, with the conventions it relies on; null when the

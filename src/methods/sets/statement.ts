@@ -1,3 +1,4 @@
+import { statementCitation } from '../../format/citation';
 import { formatNumber, formatPValue } from '../../format/formatNumber';
 import { formatGamma } from '../../format/gammaText';
 import { exposureLabel, outcomeLabel, type StudyLabels } from '../../format/studyLabels';
@@ -15,7 +16,7 @@ export function setsStatement(p: SetsSummary, study: StudyLabels, cite: (referen
   const outcome = outcomeLabel(study);
   const amplificationReference = p.references.find((r) => /amplification/i.test(r));
   const methodReferences = p.references.filter((r) => r !== amplificationReference);
-  const marks = methodReferences.map(cite).join('');
+  const marks = methodReferences.map((r) => cite(statementCitation(r))).join('');
   const direction = p.alternative === 'less' ? 'lowers' : 'raises';
   const test =
     p.outcomeKind === 'binary'
@@ -37,7 +38,7 @@ export function setsStatement(p: SetsSummary, study: StudyLabels, cite: (referen
     const amp = p.amplification.find((a) => a.lambda !== null && a.delta !== null);
     if (amp && amplificationReference) {
       parts.push(
-        `By amplification ${cite(amplificationReference)}, Γ = ${g} is equivalent, for example, to an unobserved covariate that multiplies the odds of ${exposure} by ${num(amp.lambda)} and the odds of a ${p.alternative === 'less' ? 'lower' : 'higher'} ${outcome} by ${num(amp.delta)}.`,
+        `By amplification ${cite(statementCitation(amplificationReference))}, Γ = ${g} is equivalent, for example, to an unobserved covariate that multiplies the odds of ${exposure} by ${num(amp.lambda)} and the odds of a ${p.alternative === 'less' ? 'lower' : 'higher'} ${outcome} by ${num(amp.delta)}.`,
       );
     }
   } else if (p.sensitivityStatus === 'beyond-range') {

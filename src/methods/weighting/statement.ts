@@ -1,3 +1,5 @@
+import { WEIGHTING_ANALYSIS_REFERENCES } from '../../core/weightingAnalysis';
+import { statementCitation } from '../../format/citation';
 import { formatNumber } from '../../format/formatNumber';
 import { exposureLabel, outcomeLabel, type StudyLabels } from '../../format/studyLabels';
 import type { StatementPart } from '../methodModule';
@@ -6,8 +8,8 @@ import { formatLambda } from './text';
 
 /** The works the weighting paragraph cites (full citations; recalled from memory). */
 export const WEIGHTING_REFERENCES = {
-  tan: 'Tan Z. A distributional approach for causal inference using propensity scores. Journal of the American Statistical Association. 2006;101(476):1619–1637.',
-  zhao: 'Zhao Q, Small DS, Bhattacharya BB. Sensitivity analysis for inverse probability weighting estimators via the percentile bootstrap. Journal of the Royal Statistical Society Series B. 2019;81(4):735–761.',
+  tan: statementCitation(WEIGHTING_ANALYSIS_REFERENCES.find((r) => r.startsWith('Tan Z')) ?? ''),
+  zhao: statementCitation(WEIGHTING_ANALYSIS_REFERENCES.find((r) => r.startsWith('Zhao Q, Small DS')) ?? ''),
 } as const;
 
 /**

@@ -1,3 +1,4 @@
+import { statementCitation } from '../../../src/format/citation';
 import { describe, expect, test } from 'vitest';
 import { analyseMatchedSets } from '../../../src/core/matchedSetsAnalysis';
 import { setsBottomLine } from '../../../src/methods/sets/bottomLine';
@@ -31,7 +32,8 @@ describe('setsStatement', () => {
   });
 
   test('cites the result’s own references, and only those', () => {
-    expect([...cited].sort()).toEqual([...result.references].sort());
+    // In the statement's reference style (src/format/citation.ts), built from the core's own list.
+    expect([...cited].sort()).toEqual(result.references.map(statementCitation).sort());
   });
 
   test('its assumptions are the result’s conventions', () => {
