@@ -1,8 +1,8 @@
-import type { TemplateResult } from 'lit';
 import { state } from 'lit/decorators.js';
 import type { InputProblem } from '../src/core/inputProblem';
 import type { MethodOutcome } from '../src/methods/methodModule';
 import { CalculatorElement } from './calculatorBase';
+import type { FileFormView } from './fileFields';
 
 /** What a run needs now: an outcome at once, or a Web Worker run (with the outcome and progress shown meanwhile). */
 export type FileRunPlan<Outcome, Progress> =
@@ -22,18 +22,6 @@ export interface ChosenFileRead {
   readonly text: string | null;
   /** "" when the file could be read. */
   readonly problem: string;
-}
-
-/** The hooks a file-based form view gets from its element. */
-export interface FileFormHooks<Form> {
-  readonly form: Form;
-  readonly columns: readonly string[];
-  readonly chosenFile: string | null;
-  readonly fileError: string;
-  problemFor(field: string): InputProblem | undefined;
-  field(field: string, label: string, value: string, change: (text: string) => Partial<Form>, hint?: string, inputMode?: 'decimal' | 'numeric' | 'text'): TemplateResult;
-  edit(change: Partial<Form>): void;
-  onFile(event: Event): void;
 }
 
 /** Bytes read from the start of a file to find its header row. */
@@ -110,7 +98,7 @@ export abstract class FileCalculatorElement<
   }
 
   /** What the form view needs from this element. */
-  protected formHooks(): FileFormHooks<Form> {
+  protected formHooks(): FileFormView<Form> {
     return {
       form: this.form,
       columns: this.columns,
