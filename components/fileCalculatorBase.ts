@@ -1,6 +1,6 @@
 import { state } from 'lit/decorators.js';
 import type { InputProblem } from '../src/core/inputProblem';
-import type { MethodOutcome } from '../src/methods/methodModule';
+import type { MethodModule, MethodOutcome, MethodSummary } from '../src/methods/methodModule';
 import { CalculatorElement } from './calculatorBase';
 import type { FileFormView } from './fileFields';
 
@@ -52,7 +52,9 @@ export abstract class FileCalculatorElement<
   Outcome extends MethodOutcome,
   Progress,
   Specs,
+  Summary extends MethodSummary,
 > extends CalculatorElement<Form, Outcome> {
+  protected abstract override readonly method: MethodModule<Form, Outcome, Summary>;
   @state() protected columns: readonly string[] = [];
   @state() protected fileProblem = '';
   @state() protected progress: Progress | null = null;
@@ -83,6 +85,11 @@ export abstract class FileCalculatorElement<
   protected abstract columnsFor(columns: readonly string[]): Partial<Form>;
   /** The plot specs of a result (or the empty specs when there is none). */
   protected abstract plotsFor(result: Outcome['result']): Specs;
+
+  /** Headline numbers of the current result, for the workspace (null while there is none). */
+  override get summary(): Summary | null {
+    return this.outcome.result ? this.method.workspace.summarise(this.outcome) : null;
+  }
 
   protected override willUpdate(changed: Map<string, unknown>): void {
     super.willUpdate(changed);

@@ -80,3 +80,32 @@ export function columnSelect(o: ColumnSelect): TemplateResult {
     <div class="field-error" id="${errorId}">${o.problem ? o.problem.message : ''}</div>
   </div>`;
 }
+
+/** What `chosenFileInput` needs of a file form's view. */
+export type ChosenFileView = Pick<FileFormView<unknown>, 'columns' | 'chosenFile' | 'fileError' | 'onFile'> & { readonly form: { readonly fileName: string } };
+
+/**
+ * The CSV file input of a file form: once a file is chosen, its hint names the file and its columns (`names`) or
+ * counts them (`count`); the error line shows the view's file error.
+ */
+export function chosenFileInput(v: ChosenFileView, emptyHint: string, columnsShown: 'names' | 'count'): TemplateResult {
+  const columns = columnsShown === 'names' ? `columns ${v.columns.join(', ')}` : `${v.columns.length} columns`;
+  return csvFileInput({
+    chosenHint: v.chosenFile ? `${v.chosenFile}: ${columns}. It stays in this browser.` : null,
+    savedName: v.form.fileName,
+    emptyHint,
+    invalid: v.fileError !== '',
+    error: v.fileError,
+    onFile: (e) => v.onFile(e),
+  });
+}
+
+/** The "Columns" fieldset, shown once the file's columns are known. */
+export function columnsFieldset(columns: readonly string[], content: TemplateResult): TemplateResult | typeof nothing {
+  return columns.length > 0
+    ? html`<fieldset>
+        <legend>Columns</legend>
+        ${content}
+      </fieldset>`
+    : nothing;
+}

@@ -5,11 +5,11 @@ import type { PairsResult } from '../src/core/pairsAnalysis';
 import { pairsMethod } from '../src/methods/pairs/method';
 import { guessPairsColumns, type PairsFormInputs } from '../src/methods/pairs/request';
 import { csvHeaderOf, planPairs, runPairsPlan, WORKER_FILE_BYTES, type PairsOutcome } from '../src/methods/pairs/runner';
-import type { PairsSummary } from '../src/methods/pairs/summary';
 import type { PairsWorkerProgress } from '../src/methods/pairs/pairsWorkerClient';
 import { amplificationPlot } from '../src/methods/pairs/amplificationPlot';
 import { estimateRangePlot } from '../src/methods/pairs/estimateRangePlot';
 import { pValueByGammaPlot } from '../src/methods/pairs/pValueByGammaPlot';
+import type { PairsSummary } from '../src/methods/pairs/summary';
 import { FileCalculatorElement, readCsvHead, type ChosenFileRead, type FileRunPlan } from './fileCalculatorBase';
 import { pairsFormTemplate } from './pairs/pairsFormView';
 import { pairsResultsTemplate, type PairsPlotSpecs } from './pairs/pairsResultsView';
@@ -52,18 +52,13 @@ const NO_PLOTS: PairsPlotSpecs = { pValue: null, estimate: null, amplification: 
  * @cssprop --lurk-radius - corner radius
  */
 @customElement('lurk-pairs')
-export class LurkPairs extends FileCalculatorElement<PairsFormInputs, PairsOutcome, PairsWorkerProgress, PairsPlotSpecs> {
+export class LurkPairs extends FileCalculatorElement<PairsFormInputs, PairsOutcome, PairsWorkerProgress, PairsPlotSpecs, PairsSummary> {
   static override styles = [baseStyles, calculatorLayoutStyles, pairsStyles, queryBoxStyles];
 
   protected readonly method = pairsMethod;
   @state() protected outcome: PairsOutcome = NO_OUTCOME;
   protected readonly listField = 'gammas';
   protected readonly fileField = 'file';
-
-  /** Headline numbers of the current result, for the workspace (null while there is none). */
-  override get summary(): PairsSummary | null {
-    return this.outcome.result ? pairsMethod.workspace.summarise(this.outcome) : null;
-  }
 
   override render() {
     return html`

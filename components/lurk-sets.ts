@@ -5,8 +5,8 @@ import { setsMethod } from '../src/methods/sets/method';
 import { setsAmplificationPlot, setsEstimatePlot, setsPValuePlot } from '../src/methods/sets/plots';
 import { guessSetsColumns, type SetsFormInputs } from '../src/methods/sets/request';
 import { csvHeaderOf, planSets, runSetsPlan, SETS_WORKER_FILE_BYTES, type SetsOutcome } from '../src/methods/sets/runner';
-import type { SetsSummary } from '../src/methods/sets/summary';
 import type { SetsWorkerProgress } from '../src/methods/sets/setsWorkerClient';
+import type { SetsSummary } from '../src/methods/sets/summary';
 import { FileCalculatorElement, readCsvHead, type ChosenFileRead, type FileRunPlan } from './fileCalculatorBase';
 import { setsFormTemplate } from './sets/setsFormView';
 import { setsResultsTemplate, type SetsPlotSpecs } from './sets/setsResultsView';
@@ -31,18 +31,13 @@ const NO_PLOTS: SetsPlotSpecs = { pValue: null, estimate: null, amplification: n
  * @csspart results - the results column.
  */
 @customElement('lurk-sets')
-export class LurkSets extends FileCalculatorElement<SetsFormInputs, SetsOutcome, SetsWorkerProgress, SetsPlotSpecs> {
+export class LurkSets extends FileCalculatorElement<SetsFormInputs, SetsOutcome, SetsWorkerProgress, SetsPlotSpecs, SetsSummary> {
   static override styles = [baseStyles, calculatorLayoutStyles, pairsStyles];
 
   protected readonly method = setsMethod;
   @state() protected outcome: SetsOutcome = NO_OUTCOME;
   protected readonly listField = 'gammas';
   protected readonly fileField = 'file';
-
-  /** Headline numbers of the current result, for the workspace (null while there is none). */
-  override get summary(): SetsSummary | null {
-    return this.outcome.result ? setsMethod.workspace.summarise(this.outcome) : null;
-  }
 
   override render() {
     return html`

@@ -42,7 +42,7 @@ const NO_PLOTS: WeightingPlotSpecs = { bounds: null, overlap: null, weights: nul
  * @cssprop --lurk-radius - corner radius
  */
 @customElement('lurk-weighting')
-export class LurkWeighting extends FileCalculatorElement<WeightingFormInputs, WeightingOutcome, WeightingProgress, WeightingPlotSpecs> {
+export class LurkWeighting extends FileCalculatorElement<WeightingFormInputs, WeightingOutcome, WeightingProgress, WeightingPlotSpecs, WeightingSummary> {
   static override styles = [baseStyles, calculatorLayoutStyles, weightingStyles];
 
   protected readonly method = weightingMethod;
@@ -50,10 +50,6 @@ export class LurkWeighting extends FileCalculatorElement<WeightingFormInputs, We
   protected readonly listField = 'lambdas';
   protected readonly fileField = 'fileName';
   protected override readonly plotsShowStudy = false;
-
-  override get summary(): WeightingSummary | null {
-    return this.outcome.result ? weightingMethod.workspace.summarise(this.outcome) : null;
-  }
 
   override render() {
     return html`

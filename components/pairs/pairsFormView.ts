@@ -1,6 +1,6 @@
 import { html, nothing, type TemplateResult } from 'lit';
 import type { PairsFormInputs, PairsSource } from '../../src/methods/pairs/request';
-import { columnSelect, csvFileInput, type FileFormView } from '../fileFields';
+import { chosenFileInput, columnSelect, columnsFieldset, type FileFormView } from '../fileFields';
 import { sourceChoice } from '../sourceChoice';
 import { pairsSummaryFields } from './pairsSummaryFields';
 
@@ -31,32 +31,25 @@ function pairsColumnSelect(v: PairsFormView, id: string, label: string, value: s
 function fileFields(v: PairsFormView): TemplateResult {
   const f = v.form;
   return html`
-    ${csvFileInput({
-      chosenHint: v.chosenFile ? `${v.chosenFile}: columns ${v.columns.join(', ')}. It stays in this browser.` : null,
-      savedName: f.fileName,
-      emptyHint: 'A header row, then one row per pair: the treated and the control outcome, or their difference. It stays in this browser.',
-      invalid: v.fileError !== '',
-      error: v.fileError,
-      onFile: (e) => v.onFile(e),
-    })}
-    ${v.columns.length > 0
-      ? html`<fieldset>
-          <legend>Columns</legend>
-          <label class="choice"
-            ><input type="radio" name="columns-by" .checked=${f.columnsBy === 'outcomes'} @change=${() => v.edit({ columnsBy: 'outcomes' })} />Treated and control outcomes</label
-          >
-          <label class="choice"
-            ><input type="radio" name="columns-by" .checked=${f.columnsBy === 'difference'} @change=${() => v.edit({ columnsBy: 'difference' })} />One column of differences</label
-          >
-          ${f.columnsBy === 'outcomes'
-            ? html`<div class="pair">
-                ${pairsColumnSelect(v, 'treated', 'Treated outcome', f.treatedColumn, 'treatedColumn', 'treated')}
-                ${pairsColumnSelect(v, 'control', 'Control outcome', f.controlColumn, 'controlColumn', 'control')}
-              </div>`
-            : pairsColumnSelect(v, 'difference', 'Difference (treated − control)', f.differenceColumn, 'differenceColumn', 'difference')}
-          <p class="hint">Two columns holding only 0 and 1 are read as a binary outcome (discordant pairs).</p>
-        </fieldset>`
-      : nothing}
+    ${chosenFileInput(v, 'A header row, then one row per pair: the treated and the control outcome, or their difference. It stays in this browser.', 'names')}
+    ${columnsFieldset(
+      v.columns,
+      html`
+        <label class="choice"
+          ><input type="radio" name="columns-by" .checked=${f.columnsBy === 'outcomes'} @change=${() => v.edit({ columnsBy: 'outcomes' })} />Treated and control outcomes</label
+        >
+        <label class="choice"
+          ><input type="radio" name="columns-by" .checked=${f.columnsBy === 'difference'} @change=${() => v.edit({ columnsBy: 'difference' })} />One column of differences</label
+        >
+        ${f.columnsBy === 'outcomes'
+          ? html`<div class="pair">
+              ${pairsColumnSelect(v, 'treated', 'Treated outcome', f.treatedColumn, 'treatedColumn', 'treated')}
+              ${pairsColumnSelect(v, 'control', 'Control outcome', f.controlColumn, 'controlColumn', 'control')}
+            </div>`
+          : pairsColumnSelect(v, 'difference', 'Difference (treated − control)', f.differenceColumn, 'differenceColumn', 'difference')}
+        <p class="hint">Two columns holding only 0 and 1 are read as a binary outcome (discordant pairs).</p>
+      `,
+    )}
   `;
 }
 

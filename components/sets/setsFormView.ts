@@ -1,6 +1,6 @@
-import { html, nothing, type TemplateResult } from 'lit';
+import { html, type TemplateResult } from 'lit';
 import type { SetsFormInputs } from '../../src/methods/sets/request';
-import { columnSelect, csvFileInput, type FileFormView } from '../fileFields';
+import { chosenFileInput, columnSelect, columnsFieldset, type FileFormView } from '../fileFields';
 
 /** What the matched-sets form needs from its element: the form, the file's columns, problems and the edit hooks. */
 export type SetsFormView = FileFormView<SetsFormInputs>;
@@ -19,23 +19,15 @@ function setsColumnSelect(v: SetsFormView, key: ColumnKey, label: string): Templ
 function fileFields(v: SetsFormView): TemplateResult {
   const f = v.form;
   return html`
-    ${csvFileInput({
-      chosenHint: v.chosenFile ? `${v.chosenFile}: columns ${v.columns.join(', ')}. It stays in this browser.` : null,
-      savedName: f.fileName,
-      emptyHint:
-        'A header row, then one row per unit: its matched set, 1 if treated or 0 if a control, and the outcome. Each set has one treated unit and one or more controls. It stays in this browser.',
-      invalid: v.fileError !== '',
-      error: v.fileError,
-      onFile: (e) => v.onFile(e),
-    })}
-    ${v.columns.length > 0
-      ? html`<fieldset>
-          <legend>Columns</legend>
-          ${setsColumnSelect(v, 'setColumn', 'Matched set')} ${setsColumnSelect(v, 'treatedColumn', 'Treated (1) or control (0)')}
-          ${setsColumnSelect(v, 'outcomeColumn', 'Outcome')}
-          <p class="hint">An empty outcome (or NA) is missing: that row is left out and counted.</p>
-        </fieldset>`
-      : nothing}
+    ${chosenFileInput(v, 'A header row, then one row per unit: its matched set, 1 if treated or 0 if a control, and the outcome. Each set has one treated unit and one or more controls. It stays in this browser.', 'names')}
+    ${columnsFieldset(
+      v.columns,
+      html`
+        ${setsColumnSelect(v, 'setColumn', 'Matched set')} ${setsColumnSelect(v, 'treatedColumn', 'Treated (1) or control (0)')}
+        ${setsColumnSelect(v, 'outcomeColumn', 'Outcome')}
+        <p class="hint">An empty outcome (or NA) is missing: that row is left out and counted.</p>
+      `,
+    )}
   `;
 }
 

@@ -1,6 +1,6 @@
 import { html, nothing, type TemplateResult } from 'lit';
 import { columnList, type WeightingFormInputs } from '../../src/methods/weighting/request';
-import { columnSelect, csvFileInput, type FileFormView } from '../fileFields';
+import { chosenFileInput, columnSelect, type FileFormView } from '../fileFields';
 
 /** What the weighting form needs from its element: the form, the file's columns, problems and the edit hooks. */
 export type WeightingFormView = FileFormView<WeightingFormInputs>;
@@ -13,14 +13,7 @@ export function weightingFormTemplate(v: WeightingFormView): TemplateResult {
 }
 
 function fileField(v: WeightingFormView): TemplateResult {
-  return csvFileInput({
-    chosenHint: v.chosenFile ? `${v.chosenFile}: ${v.columns.length} columns. It stays in this browser.` : null,
-    savedName: v.form.fileName,
-    emptyHint: 'A header row, then one row per person: a 0/1 treatment, a numeric outcome and covariates. It stays in this browser.',
-    invalid: v.fileError !== '',
-    error: v.fileError,
-    onFile: (e) => v.onFile(e),
-  });
+  return chosenFileInput(v, 'A header row, then one row per person: a 0/1 treatment, a numeric outcome and covariates. It stays in this browser.', 'count');
 }
 
 function weightingColumnSelect(v: WeightingFormView, key: 'treatment' | 'outcome', label: string): TemplateResult {
