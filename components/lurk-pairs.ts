@@ -5,12 +5,12 @@ import type { PairsResult } from '../src/core/pairsAnalysis';
 import { pairsMethod } from '../src/methods/pairs/method';
 import { guessPairsColumns, type PairsFormInputs } from '../src/methods/pairs/request';
 import { csvHeaderOf, planPairs, runPairsPlan, WORKER_FILE_BYTES, type PairsOutcome } from '../src/methods/pairs/runner';
-import type { PairsSummary } from '../src/methods/pairs/summary';
 import type { PairsWorkerProgress } from '../src/methods/pairs/pairsWorkerClient';
 import { amplificationPlot } from '../src/methods/pairs/amplificationPlot';
 import { estimateRangePlot } from '../src/methods/pairs/estimateRangePlot';
 import { pValueByGammaPlot } from '../src/methods/pairs/pValueByGammaPlot';
-import { CalculatorElement } from './calculatorBase';
+import type { PairsSummary } from '../src/methods/pairs/summary';
+import { FileCalculatorElement, readCsvHead, type ChosenFileRead, type FileRunPlan } from './fileCalculatorBase';
 import { pairsFormTemplate } from './pairs/pairsFormView';
 import { pairsResultsTemplate, type PairsPlotSpecs } from './pairs/pairsResultsView';
 import { baseStyles } from './styles/base';
@@ -52,55 +52,18 @@ const NO_PLOTS: PairsPlotSpecs = { pValue: null, estimate: null, amplification: 
  * @cssprop --lurk-radius - corner radius
  */
 @customElement('lurk-pairs')
-export class LurkPairs extends CalculatorElement<PairsFormInputs, PairsOutcome> {
+export class LurkPairs extends FileCalculatorElement<PairsFormInputs, PairsOutcome, PairsWorkerProgress, PairsPlotSpecs, PairsSummary> {
   static override styles = [baseStyles, calculatorLayoutStyles, pairsStyles, queryBoxStyles];
 
   protected readonly method = pairsMethod;
   @state() protected outcome: PairsOutcome = NO_OUTCOME;
-  @state() private columns: readonly string[] = [];
-  @state() private fileProblem = '';
-  @state() private progress: PairsWorkerProgress | null = null;
-
-  private file: File | null = null;
-  private fileText: string | null = null;
-  private abort: AbortController | null = null;
-  /** Whether the user has edited the form (a restored form shows no "required" problems until then). */
-  private userStarted = false;
-  /** A user's edit started a worker run: `lurk-result` is fired when it ends. */
-  private resultOwed = false;
-  private evaluatedKey: { form: PairsFormInputs; file: File | null; text: string | null } | null = null;
-  private plottedFor: PairsResult | null | undefined = undefined;
-  private specs: PairsPlotSpecs = NO_PLOTS;
-
-  /** Headline numbers of the current result, for the workspace (null while there is none). */
-  override get summary(): PairsSummary | null {
-    return this.outcome.result ? pairsMethod.workspace.summarise(this.outcome) : null;
-  }
-
-  protected override willUpdate(changed: Map<string, unknown>): void {
-    super.willUpdate(changed);
-    if (this.plottedFor !== this.outcome.result || changed.has('study')) this.makePlots();
-  }
-
-  override disconnectedCallback(): void {
-    super.disconnectedCallback();
-    this.abort?.abort();
-  }
+  protected readonly listField = 'gammas';
+  protected readonly fileField = 'file';
 
   override render() {
-    const fileError = this.fileProblem || (this.outcome.started ? (this.problemFor('file')?.message ?? '') : '');
     return html`
       <div class="layout">
-        ${pairsFormTemplate({
-          form: this.form,
-          columns: this.columns,
-          chosenFile: this.file?.name ?? null,
-          fileError,
-          problemFor: (field) => this.problemFor(field),
-          field: (...args) => this.field(...args),
-          edit: (change) => this.edit(change),
-          onFile: (event) => void this.onFile(event),
-        })}
+        ${pairsFormTemplate(this.formHooks())}
         <section part="results" aria-label="Matched-pairs results">
           ${pairsResultsTemplate({
             outcome: this.outcome,
@@ -109,91 +72,39 @@ export class LurkPairs extends CalculatorElement<PairsFormInputs, PairsOutcome> 
             source: this.form.source,
             study: this.study,
             specs: this.specs,
-            cancel: () => this.abort?.abort(),
+            cancel: () => this.cancel(),
           })}
         </section>
       </div>
     `;
   }
 
-  /** A problem of the Γ list is shown under the list, whichever value it names. */
-  protected override problemFor(field: string): InputProblem | undefined {
-    return super.problemFor(field) ?? (field === 'gammas' ? this.shown().find((p) => p.field.startsWith('gammas[')) : undefined);
-  }
-
-  protected override edit(change: Partial<PairsFormInputs>): void {
-    this.userStarted = true;
-    super.edit(change);
-  }
-
-  /** While the worker runs, the result event waits for its end. */
-  protected override fireResult(): void {
-    if (this.abort) this.resultOwed = true;
-    else super.fireResult();
-  }
-
-  /** Reads the form with the method's runner: at once, or in the Web Worker (then the outcome comes later). */
-  protected evaluate(): void {
-    // A change of the study's labels alone needs no new analysis (nor a new worker run).
-    const key = { form: this.form, file: this.file, text: this.fileText };
-    if (this.evaluatedKey && key.form === this.evaluatedKey.form && key.file === this.evaluatedKey.file && key.text === this.evaluatedKey.text) return;
-    this.evaluatedKey = key;
-    this.abort?.abort();
-    this.abort = null;
-    this.progress = null;
-    this.resultOwed = false;
+  protected planRun(): FileRunPlan<PairsOutcome, PairsWorkerProgress> {
     const plan = planPairs(this.form, { file: this.file, fileText: this.fileText }, this.userStarted);
-    if (plan.kind === 'done') {
-      this.outcome = plan.outcome;
-      return;
-    }
-    this.outcome = Object.freeze({ result: null, read: plan.read, problems: Object.freeze([]), started: plan.started });
-    const controller = new AbortController();
-    this.abort = controller;
-    this.progress = { phase: plan.phase, bytesRead: 0, totalBytes: this.file?.size ?? null, rowsRead: 0 };
-    void runPairsPlan(plan, { signal: controller.signal, onProgress: (p) => (this.progress = p) }).then((outcome) => {
-      if (this.abort !== controller) return; // a newer evaluation took over
-      this.abort = null;
-      this.progress = null;
-      this.outcome = outcome;
-      if (this.resultOwed) {
-        this.resultOwed = false;
-        super.fireResult();
-      }
-    });
+    if (plan.kind === 'done') return plan;
+    return {
+      kind: 'worker',
+      waiting: Object.freeze({ result: null, read: plan.read, problems: Object.freeze([]), started: plan.started }),
+      progress: { phase: plan.phase, bytesRead: 0, totalBytes: this.file?.size ?? null, rowsRead: 0 },
+      run: (options) => runPairsPlan(plan, options),
+    };
   }
 
-  private async onFile(event: Event): Promise<void> {
-    const input = event.target as HTMLInputElement;
-    const file = input.files?.[0];
-    if (!file) return;
-    this.fileProblem = '';
-    this.file = file;
-    this.fileText = null;
-    try {
-      this.columns = csvHeaderOf(await file.slice(0, 64 * 1024).text());
-      if (file.size <= WORKER_FILE_BYTES) this.fileText = await file.text();
-    } catch {
-      this.fileProblem = `${file.name} could not be read.`;
-      this.columns = [];
-    }
-    if (this.columns.length === 0 && !this.fileProblem) this.fileProblem = `${file.name} is empty or has no header row.`;
-    const keep = this.columns.length > 0 && this.columnsStillThere();
-    this.edit({ fileName: file.name, ...(keep ? {} : guessPairsColumns(this.columns)) });
+  protected readFile(file: File): Promise<ChosenFileRead> {
+    return readCsvHead(file, WORKER_FILE_BYTES, csvHeaderOf);
   }
 
-  /** Whether the form's column choice names columns of the new file (then it is kept). */
-  private columnsStillThere(): boolean {
+  /** The form's column choice is kept when it names columns of the new file. */
+  protected columnsFor(columns: readonly string[]): Partial<PairsFormInputs> {
     const f = this.form;
-    const has = (c: string) => c !== '' && this.columns.includes(c);
-    return f.columnsBy === 'difference' ? has(f.differenceColumn) : has(f.treatedColumn) && has(f.controlColumn);
+    const has = (c: string) => c !== '' && columns.includes(c);
+    const keep = columns.length > 0 && (f.columnsBy === 'difference' ? has(f.differenceColumn) : has(f.treatedColumn) && has(f.controlColumn));
+    return keep ? {} : guessPairsColumns(columns);
   }
 
-  private makePlots(): void {
-    const r = this.outcome.result;
-    this.plottedFor = r;
+  protected plotsFor(r: PairsResult | null): PairsPlotSpecs {
     const labels = { study: this.study };
-    this.specs = r ? { pValue: pValueByGammaPlot(r, labels), estimate: estimateRangePlot(r, labels), amplification: amplificationPlot(r, labels) } : NO_PLOTS;
+    return r ? { pValue: pValueByGammaPlot(r, labels), estimate: estimateRangePlot(r, labels), amplification: amplificationPlot(r, labels) } : NO_PLOTS;
   }
 }
 

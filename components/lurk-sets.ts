@@ -1,14 +1,13 @@
 import { html } from 'lit';
 import { customElement, state } from 'lit/decorators.js';
-import type { InputProblem } from '../src/core/inputProblem';
 import type { MatchedSetsResult } from '../src/core/matchedSetsAnalysis';
 import { setsMethod } from '../src/methods/sets/method';
 import { setsAmplificationPlot, setsEstimatePlot, setsPValuePlot } from '../src/methods/sets/plots';
 import { guessSetsColumns, type SetsFormInputs } from '../src/methods/sets/request';
 import { csvHeaderOf, planSets, runSetsPlan, SETS_WORKER_FILE_BYTES, type SetsOutcome } from '../src/methods/sets/runner';
-import type { SetsSummary } from '../src/methods/sets/summary';
 import type { SetsWorkerProgress } from '../src/methods/sets/setsWorkerClient';
-import { CalculatorElement } from './calculatorBase';
+import type { SetsSummary } from '../src/methods/sets/summary';
+import { FileCalculatorElement, readCsvHead, type ChosenFileRead, type FileRunPlan } from './fileCalculatorBase';
 import { setsFormTemplate } from './sets/setsFormView';
 import { setsResultsTemplate, type SetsPlotSpecs } from './sets/setsResultsView';
 import { baseStyles } from './styles/base';
@@ -32,55 +31,18 @@ const NO_PLOTS: SetsPlotSpecs = { pValue: null, estimate: null, amplification: n
  * @csspart results - the results column.
  */
 @customElement('lurk-sets')
-export class LurkSets extends CalculatorElement<SetsFormInputs, SetsOutcome> {
+export class LurkSets extends FileCalculatorElement<SetsFormInputs, SetsOutcome, SetsWorkerProgress, SetsPlotSpecs, SetsSummary> {
   static override styles = [baseStyles, calculatorLayoutStyles, pairsStyles];
 
   protected readonly method = setsMethod;
   @state() protected outcome: SetsOutcome = NO_OUTCOME;
-  @state() private columns: readonly string[] = [];
-  @state() private fileProblem = '';
-  @state() private progress: SetsWorkerProgress | null = null;
-
-  private file: File | null = null;
-  private fileText: string | null = null;
-  private abort: AbortController | null = null;
-  /** Whether the user has edited the form (a restored form shows no "required" problems until then). */
-  private userStarted = false;
-  /** A user's edit started a worker run: `lurk-result` is fired when it ends. */
-  private resultOwed = false;
-  private evaluatedKey: { form: SetsFormInputs; file: File | null; text: string | null } | null = null;
-  private plottedFor: MatchedSetsResult | null | undefined = undefined;
-  private specs: SetsPlotSpecs = NO_PLOTS;
-
-  /** Headline numbers of the current result, for the workspace (null while there is none). */
-  override get summary(): SetsSummary | null {
-    return this.outcome.result ? setsMethod.workspace.summarise(this.outcome) : null;
-  }
-
-  protected override willUpdate(changed: Map<string, unknown>): void {
-    super.willUpdate(changed);
-    if (this.plottedFor !== this.outcome.result || changed.has('study')) this.makePlots();
-  }
-
-  override disconnectedCallback(): void {
-    super.disconnectedCallback();
-    this.abort?.abort();
-  }
+  protected readonly listField = 'gammas';
+  protected readonly fileField = 'file';
 
   override render() {
-    const fileError = this.fileProblem || (this.outcome.started ? (this.problemFor('file')?.message ?? '') : '');
     return html`
       <div class="layout">
-        ${setsFormTemplate({
-          form: this.form,
-          columns: this.columns,
-          chosenFile: this.file?.name ?? null,
-          fileError,
-          problemFor: (field) => this.problemFor(field),
-          field: (...args) => this.field(...args),
-          edit: (change) => this.edit(change),
-          onFile: (event) => void this.onFile(event),
-        })}
+        ${setsFormTemplate(this.formHooks())}
         <section part="results" aria-label="Matched-sets results">
           ${setsResultsTemplate({
             outcome: this.outcome,
@@ -88,85 +50,38 @@ export class LurkSets extends CalculatorElement<SetsFormInputs, SetsOutcome> {
             progress: this.progress,
             study: this.study,
             specs: this.specs,
-            cancel: () => this.abort?.abort(),
+            cancel: () => this.cancel(),
           })}
         </section>
       </div>
     `;
   }
 
-  /** A problem of the Γ list is shown under the list, whichever value it names. */
-  protected override problemFor(field: string): InputProblem | undefined {
-    return super.problemFor(field) ?? (field === 'gammas' ? this.shown().find((p) => p.field.startsWith('gammas[')) : undefined);
-  }
-
-  protected override edit(change: Partial<SetsFormInputs>): void {
-    this.userStarted = true;
-    super.edit(change);
-  }
-
-  /** While the worker runs, the result event waits for its end. */
-  protected override fireResult(): void {
-    if (this.abort) this.resultOwed = true;
-    else super.fireResult();
-  }
-
-  /** Reads the form with the method's runner: at once, or in the Web Worker (then the outcome comes later). */
-  protected evaluate(): void {
-    const key = { form: this.form, file: this.file, text: this.fileText };
-    if (this.evaluatedKey && key.form === this.evaluatedKey.form && key.file === this.evaluatedKey.file && key.text === this.evaluatedKey.text) return;
-    this.evaluatedKey = key;
-    this.abort?.abort();
-    this.abort = null;
-    this.progress = null;
-    this.resultOwed = false;
+  protected planRun(): FileRunPlan<SetsOutcome, SetsWorkerProgress> {
     const plan = planSets(this.form, { file: this.file, fileText: this.fileText }, this.userStarted);
-    if (plan.kind === 'done') {
-      this.outcome = plan.outcome;
-      return;
-    }
-    this.outcome = Object.freeze({ result: null, read: null, problems: Object.freeze([]), started: plan.started });
-    const controller = new AbortController();
-    this.abort = controller;
-    this.progress = { phase: 'reading', bytesRead: 0, totalBytes: this.file?.size ?? null, rowsRead: 0 };
-    void runSetsPlan(plan, { signal: controller.signal, onProgress: (p) => (this.progress = p) }).then((outcome) => {
-      if (this.abort !== controller) return; // a newer evaluation took over
-      this.abort = null;
-      this.progress = null;
-      this.outcome = outcome;
-      if (this.resultOwed) {
-        this.resultOwed = false;
-        super.fireResult();
-      }
-    });
+    if (plan.kind === 'done') return plan;
+    return {
+      kind: 'worker',
+      waiting: Object.freeze({ result: null, read: null, problems: Object.freeze([]), started: plan.started }),
+      progress: { phase: 'reading', bytesRead: 0, totalBytes: this.file?.size ?? null, rowsRead: 0 },
+      run: (options) => runSetsPlan(plan, options),
+    };
   }
 
-  private async onFile(event: Event): Promise<void> {
-    const input = event.target as HTMLInputElement;
-    const file = input.files?.[0];
-    if (!file) return;
-    this.fileProblem = '';
-    this.file = file;
-    this.fileText = null;
-    try {
-      this.columns = csvHeaderOf(await file.slice(0, 64 * 1024).text());
-      if (file.size <= SETS_WORKER_FILE_BYTES) this.fileText = await file.text();
-    } catch {
-      this.fileProblem = `${file.name} could not be read.`;
-      this.columns = [];
-    }
-    if (this.columns.length === 0 && !this.fileProblem) this.fileProblem = `${file.name} is empty or has no header row.`;
+  protected readFile(file: File): Promise<ChosenFileRead> {
+    return readCsvHead(file, SETS_WORKER_FILE_BYTES, csvHeaderOf);
+  }
+
+  /** The form's column choices are kept when the new file has all three. */
+  protected columnsFor(columns: readonly string[]): Partial<SetsFormInputs> {
     const f = this.form;
-    const has = (c: string) => c !== '' && this.columns.includes(c);
-    const keep = has(f.setColumn) && has(f.treatedColumn) && has(f.outcomeColumn);
-    this.edit({ fileName: file.name, ...(keep ? {} : guessSetsColumns(this.columns)) });
+    const has = (c: string) => c !== '' && columns.includes(c);
+    return has(f.setColumn) && has(f.treatedColumn) && has(f.outcomeColumn) ? {} : guessSetsColumns(columns);
   }
 
-  private makePlots(): void {
-    const r = this.outcome.result;
-    this.plottedFor = r;
+  protected plotsFor(r: MatchedSetsResult | null): SetsPlotSpecs {
     const labels = { study: this.study };
-    this.specs = r ? { pValue: setsPValuePlot(r, labels), estimate: setsEstimatePlot(r, labels), amplification: setsAmplificationPlot(r, labels) } : NO_PLOTS;
+    return r ? { pValue: setsPValuePlot(r, labels), estimate: setsEstimatePlot(r, labels), amplification: setsAmplificationPlot(r, labels) } : NO_PLOTS;
   }
 }
 

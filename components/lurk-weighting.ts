@@ -6,7 +6,7 @@ import { weightingPlots } from '../src/methods/weighting/plots';
 import type { WeightingFormInputs } from '../src/methods/weighting/request';
 import { guessWeightingColumns, planWeighting, readWeightingFileColumns, runWeightingPlan, type WeightingOutcome, type WeightingProgress } from '../src/methods/weighting/runner';
 import type { WeightingSummary } from '../src/methods/weighting/summary';
-import { CalculatorElement } from './calculatorBase';
+import { FileCalculatorElement, type ChosenFileRead, type FileRunPlan } from './fileCalculatorBase';
 import { weightingFormTemplate } from './weighting/weightingFormView';
 import { weightingResultsTemplate, type WeightingPlotSpecs } from './weighting/weightingResultsView';
 import { baseStyles } from './styles/base';
@@ -42,131 +42,57 @@ const NO_PLOTS: WeightingPlotSpecs = { bounds: null, overlap: null, weights: nul
  * @cssprop --lurk-radius - corner radius
  */
 @customElement('lurk-weighting')
-export class LurkWeighting extends CalculatorElement<WeightingFormInputs, WeightingOutcome> {
+export class LurkWeighting extends FileCalculatorElement<WeightingFormInputs, WeightingOutcome, WeightingProgress, WeightingPlotSpecs, WeightingSummary> {
   static override styles = [baseStyles, calculatorLayoutStyles, weightingStyles];
 
   protected readonly method = weightingMethod;
   @state() protected outcome: WeightingOutcome = NO_OUTCOME;
-  @state() private columns: readonly string[] = [];
-  @state() private fileProblem = '';
-  @state() private progress: WeightingProgress | null = null;
-
-  private file: File | null = null;
-  private abort: AbortController | null = null;
-  private userStarted = false;
-  private resultOwed = false;
-  private evaluatedKey: { form: WeightingFormInputs; file: File | null } | null = null;
-  private plottedFor: WeightingResult | null | undefined = undefined;
-  private specs: WeightingPlotSpecs = NO_PLOTS;
-
-  override get summary(): WeightingSummary | null {
-    return this.outcome.result ? weightingMethod.workspace.summarise(this.outcome) : null;
-  }
-
-  protected override willUpdate(changed: Map<string, unknown>): void {
-    super.willUpdate(changed);
-    if (this.plottedFor !== this.outcome.result) this.makePlots();
-  }
-
-  override disconnectedCallback(): void {
-    super.disconnectedCallback();
-    this.abort?.abort();
-  }
+  protected readonly listField = 'lambdas';
+  protected readonly fileField = 'fileName';
+  protected override readonly plotsShowStudy = false;
 
   override render() {
-    const fileError = this.fileProblem || (this.outcome.started ? (this.problemFor('fileName')?.message ?? '') : '');
     return html`
       <div class="layout">
-        ${weightingFormTemplate({
-          form: this.form,
-          columns: this.columns,
-          chosenFile: this.file?.name ?? null,
-          fileError,
-          problemFor: (field) => this.problemFor(field),
-          field: (...args) => this.field(...args),
-          edit: (change) => this.edit(change),
-          onFile: (event) => void this.onFile(event),
-        })}
+        ${weightingFormTemplate(this.formHooks())}
         <section part="results" aria-label="Weighting results">
           ${weightingResultsTemplate({
             outcome: this.outcome,
             shown: this.shown(),
             progress: this.progress,
             specs: this.specs,
-            cancel: () => this.abort?.abort(),
-            runAgain: () => {
-              this.evaluatedKey = null;
-              this.evaluate();
-            },
+            cancel: () => this.cancel(),
+            runAgain: () => this.runAgain(),
           })}
         </section>
       </div>
     `;
   }
 
-  /** A problem of a Λ value is shown under the Λ list. */
-  protected override problemFor(field: string) {
-    return super.problemFor(field) ?? (field === 'lambdas' ? this.shown().find((p) => p.field.startsWith('lambdas[')) : undefined);
-  }
-
-  protected override edit(change: Partial<WeightingFormInputs>): void {
-    this.userStarted = true;
-    super.edit(change);
-  }
-
-  /** While the worker runs, the result event waits for its end. */
-  protected override fireResult(): void {
-    if (this.abort) this.resultOwed = true;
-    else super.fireResult();
-  }
-
   /** Reads the settings; with a file and no problems, runs the Web Worker (the outcome comes later). */
-  protected evaluate(): void {
-    const key = { form: this.form, file: this.file };
-    if (this.evaluatedKey && key.form === this.evaluatedKey.form && key.file === this.evaluatedKey.file) return;
-    this.evaluatedKey = key;
-    this.abort?.abort();
-    this.abort = null;
-    this.progress = null;
-    this.resultOwed = false;
+  protected planRun(): FileRunPlan<WeightingOutcome, WeightingProgress> {
     const plan = planWeighting(this.form, this.file, this.userStarted);
-    if (plan.kind === 'done') {
-      this.outcome = plan.outcome;
-      return;
-    }
-    this.outcome = Object.freeze({ ...NO_OUTCOME, started: plan.started });
-    const controller = new AbortController();
-    this.abort = controller;
-    this.progress = { phase: 'reading', bytesRead: 0, totalBytes: this.file?.size ?? 0, rowsRead: 0, resamplesDone: 0, resamplesTotal: 0 };
-    void runWeightingPlan(plan, { signal: controller.signal, onProgress: (p) => (this.progress = p) }).then((outcome) => {
-      if (this.abort !== controller) return; // a newer evaluation took over
-      this.abort = null;
-      this.progress = null;
-      this.outcome = outcome;
-      if (this.resultOwed) {
-        this.resultOwed = false;
-        super.fireResult();
-      }
-    });
+    if (plan.kind === 'done') return plan;
+    return {
+      kind: 'worker',
+      waiting: Object.freeze({ ...NO_OUTCOME, started: plan.started }),
+      progress: { phase: 'reading', bytesRead: 0, totalBytes: this.file?.size ?? 0, rowsRead: 0, resamplesDone: 0, resamplesTotal: 0 },
+      run: (options) => runWeightingPlan(plan, options),
+    };
   }
 
-  private async onFile(event: Event): Promise<void> {
-    const input = event.target as HTMLInputElement;
-    const file = input.files?.[0];
-    if (!file) return;
-    this.file = file;
-    const { columns, problem } = await readWeightingFileColumns(file);
-    this.columns = columns;
-    this.fileProblem = problem || (columns.length === 0 ? `${file.name} is empty or has no header row.` : '');
+  protected async readFile(file: File): Promise<ChosenFileRead> {
+    return { ...(await readWeightingFileColumns(file)), text: null };
+  }
+
+  /** The treatment and outcome are kept when the new file has both; otherwise guessed, with no covariates. */
+  protected columnsFor(columns: readonly string[]): Partial<WeightingFormInputs> {
     const f = this.form;
-    const keep = columns.includes(f.treatment) && columns.includes(f.outcome);
-    this.edit({ fileName: file.name, ...(keep ? {} : { ...guessWeightingColumns(columns), covariates: '', categorical: '' }) });
+    return columns.includes(f.treatment) && columns.includes(f.outcome) ? {} : { ...guessWeightingColumns(columns), covariates: '', categorical: '' };
   }
 
-  private makePlots(): void {
-    const r = this.outcome.result;
-    this.plottedFor = r;
-    this.specs = r ? weightingPlots(r) : NO_PLOTS;
+  protected plotsFor(r: WeightingResult | null): WeightingPlotSpecs {
+    return r ? weightingPlots(r) : NO_PLOTS;
   }
 }
 

@@ -3,6 +3,7 @@ import type { EffectMeasure } from '../../src/core/riskRatioScale';
 import { columnLevels } from '../../src/data/csv';
 import type { EValueSource } from '../../src/methods/evalue/request';
 import { guessYesValues } from '../../src/methods/evalue/twoByTwoFromCsv';
+import { columnSelect, csvFileInput } from '../fileFields';
 import { sourceChoice } from '../sourceChoice';
 import type { EValueView } from './view';
 import { eValueSummaryFields } from './summaryFields';
@@ -114,47 +115,30 @@ function countInput(v: EValueView, cell: 'a' | 'b' | 'c' | 'd', label: string): 
 function fileFields(v: EValueView): TemplateResult {
   const f = v.form;
   const table = v.table;
-  const columnSelect = (id: 'exposure' | 'outcome', label: string, value: string, key: 'exposureColumn' | 'outcomeColumn') => {
-    const problem = v.problemFor(id);
-    return html`<div class="field">
-      <label for="column-${id}">${label}</label>
-      <select
-        id="column-${id}"
-        aria-invalid=${problem ? 'true' : 'false'}
-        aria-describedby="${id}-error"
-        @change=${(e: Event) => v.edit({ [key]: (e.target as HTMLSelectElement).value, [key === 'exposureColumn' ? 'exposedValues' : 'outcomeValues']: [] })}
-      >
-        <option value="" ?selected=${value === ''}>Choose a column</option>
-        ${table?.columns.map((c) => html`<option value=${c} ?selected=${value === c}>${c}</option>`)}
-      </select>
-      ${v.errorLine(id, `${id}-error`)}
-    </div>`;
-  };
+  const pickColumn = (id: 'exposure' | 'outcome', label: string, value: string, key: 'exposureColumn' | 'outcomeColumn') =>
+    columnSelect({
+      id: `column-${id}`,
+      errorId: `${id}-error`,
+      label,
+      value,
+      columns: table?.columns ?? [],
+      problem: v.problemFor(id),
+      onChange: (column) => v.edit({ [key]: column, [key === 'exposureColumn' ? 'exposedValues' : 'outcomeValues']: [] }),
+    });
   const csv = v.outcome.csv;
   return html`
-    <div class="field">
-      <label for="file">CSV file</label>
-      <input
-        id="file"
-        type="file"
-        accept=".csv,.tsv,.txt,text/csv,text/plain"
-        aria-describedby="file-hint file-error"
-        aria-invalid=${v.fileProblem || (v.outcome.started && v.problemFor('file')) ? 'true' : 'false'}
-        @change=${(e: Event) => v.onFile(e)}
-      />
-      <div class="hint" id="file-hint">
-        ${table
-          ? `${f.fileName}: ${table.rows.length} rows, columns ${table.columns.join(', ')}. It stays in this browser.`
-          : f.fileName
-            ? `Choose ${f.fileName} again: the rows of a file are never saved, only the choices below.`
-            : 'A header row, then one row per person; comma, semicolon or tab separated. It stays in this browser.'}
-      </div>
-      <div class="field-error" id="file-error">${v.fileProblem}</div>
-    </div>
+    ${csvFileInput({
+      chosenHint: table ? `${f.fileName}: ${table.rows.length} rows, columns ${table.columns.join(', ')}. It stays in this browser.` : null,
+      savedName: f.fileName,
+      emptyHint: 'A header row, then one row per person; comma, semicolon or tab separated. It stays in this browser.',
+      invalid: Boolean(v.fileProblem || (v.outcome.started && v.problemFor('file'))),
+      error: v.fileProblem,
+      onFile: (e) => v.onFile(e),
+    })}
     ${table
       ? html`<div class="pair">
-            ${columnSelect('exposure', 'Exposure column', f.exposureColumn, 'exposureColumn')}
-            ${columnSelect('outcome', 'Outcome column', f.outcomeColumn, 'outcomeColumn')}
+            ${pickColumn('exposure', 'Exposure column', f.exposureColumn, 'exposureColumn')}
+            ${pickColumn('outcome', 'Outcome column', f.outcomeColumn, 'outcomeColumn')}
           </div>
           ${valueChoices(v, 'exposedValues', 'Values that mean exposed', f.exposureColumn)}
           ${valueChoices(v, 'outcomeValues', 'Values that mean the outcome happened', f.outcomeColumn)}

@@ -1,22 +1,11 @@
 import { html, nothing, type TemplateResult } from 'lit';
-import type { InputProblem } from '../../src/core/inputProblem';
 import type { PairsFormInputs, PairsSource } from '../../src/methods/pairs/request';
+import { chosenFileInput, columnSelect, columnsFieldset, type FileFormView } from '../fileFields';
 import { sourceChoice } from '../sourceChoice';
 import { pairsSummaryFields } from './pairsSummaryFields';
 
 /** What the matched-pairs form needs from its element: the form, the file's columns, problems and the edit hooks. */
-export interface PairsFormView {
-  readonly form: PairsFormInputs;
-  readonly columns: readonly string[];
-  /** The name of the file chosen in this session (null when none: a saved form's file must be chosen again). */
-  readonly chosenFile: string | null;
-  /** The message under the file input ("" when none). */
-  readonly fileError: string;
-  problemFor(field: string): InputProblem | undefined;
-  field(field: string, label: string, value: string, change: (text: string) => Partial<PairsFormInputs>, hint?: string, inputMode?: 'decimal' | 'numeric' | 'text'): TemplateResult;
-  edit(change: Partial<PairsFormInputs>): void;
-  onFile(event: Event): void;
-}
+export type PairsFormView = FileFormView<PairsFormInputs>;
 
 const SOURCES: ReadonlyArray<{ id: PairsSource; label: string }> = [
   { id: 'file', label: 'A CSV file of pairs' },
@@ -35,63 +24,32 @@ export function pairsFormTemplate(v: PairsFormView): TemplateResult {
   </form>`;
 }
 
-function columnSelect(v: PairsFormView, id: string, label: string, value: string, key: 'treatedColumn' | 'controlColumn' | 'differenceColumn', field: string): TemplateResult {
-  const problem = v.problemFor(field);
-  return html`<div class="field">
-    <label for="column-${id}">${label}</label>
-    <select
-      id="column-${id}"
-      aria-invalid=${problem ? 'true' : 'false'}
-      aria-describedby="column-${id}-error"
-      @change=${(e: Event) => v.edit({ [key]: (e.target as HTMLSelectElement).value })}
-    >
-      <option value="" ?selected=${value === ''}>Choose a column</option>
-      ${v.columns.map((c) => html`<option value=${c} ?selected=${value === c}>${c}</option>`)}
-    </select>
-    <div class="field-error" id="column-${id}-error">${problem ? problem.message : ''}</div>
-  </div>`;
+function pairsColumnSelect(v: PairsFormView, id: string, label: string, value: string, key: 'treatedColumn' | 'controlColumn' | 'differenceColumn', field: string): TemplateResult {
+  return columnSelect({ id: `column-${id}`, label, value, columns: v.columns, problem: v.problemFor(field), onChange: (column) => v.edit({ [key]: column }) });
 }
 
 function fileFields(v: PairsFormView): TemplateResult {
   const f = v.form;
   return html`
-    <div class="field">
-      <label for="file">CSV file</label>
-      <input
-        id="file"
-        type="file"
-        accept=".csv,.tsv,.txt,text/csv,text/plain"
-        aria-describedby="file-hint file-error"
-        aria-invalid=${v.fileError ? 'true' : 'false'}
-        @change=${(e: Event) => v.onFile(e)}
-      />
-      <div class="hint" id="file-hint">
-        ${v.chosenFile
-          ? `${v.chosenFile}: columns ${v.columns.join(', ')}. It stays in this browser.`
-          : f.fileName
-            ? `Choose ${f.fileName} again: the rows of a file are never saved, only the choices below.`
-            : 'A header row, then one row per pair: the treated and the control outcome, or their difference. It stays in this browser.'}
-      </div>
-      <div class="field-error" id="file-error">${v.fileError}</div>
-    </div>
-    ${v.columns.length > 0
-      ? html`<fieldset>
-          <legend>Columns</legend>
-          <label class="choice"
-            ><input type="radio" name="columns-by" .checked=${f.columnsBy === 'outcomes'} @change=${() => v.edit({ columnsBy: 'outcomes' })} />Treated and control outcomes</label
-          >
-          <label class="choice"
-            ><input type="radio" name="columns-by" .checked=${f.columnsBy === 'difference'} @change=${() => v.edit({ columnsBy: 'difference' })} />One column of differences</label
-          >
-          ${f.columnsBy === 'outcomes'
-            ? html`<div class="pair">
-                ${columnSelect(v, 'treated', 'Treated outcome', f.treatedColumn, 'treatedColumn', 'treated')}
-                ${columnSelect(v, 'control', 'Control outcome', f.controlColumn, 'controlColumn', 'control')}
-              </div>`
-            : columnSelect(v, 'difference', 'Difference (treated − control)', f.differenceColumn, 'differenceColumn', 'difference')}
-          <p class="hint">Two columns holding only 0 and 1 are read as a binary outcome (discordant pairs).</p>
-        </fieldset>`
-      : nothing}
+    ${chosenFileInput(v, 'A header row, then one row per pair: the treated and the control outcome, or their difference. It stays in this browser.', 'names')}
+    ${columnsFieldset(
+      v.columns,
+      html`
+        <label class="choice"
+          ><input type="radio" name="columns-by" .checked=${f.columnsBy === 'outcomes'} @change=${() => v.edit({ columnsBy: 'outcomes' })} />Treated and control outcomes</label
+        >
+        <label class="choice"
+          ><input type="radio" name="columns-by" .checked=${f.columnsBy === 'difference'} @change=${() => v.edit({ columnsBy: 'difference' })} />One column of differences</label
+        >
+        ${f.columnsBy === 'outcomes'
+          ? html`<div class="pair">
+              ${pairsColumnSelect(v, 'treated', 'Treated outcome', f.treatedColumn, 'treatedColumn', 'treated')}
+              ${pairsColumnSelect(v, 'control', 'Control outcome', f.controlColumn, 'controlColumn', 'control')}
+            </div>`
+          : pairsColumnSelect(v, 'difference', 'Difference (treated − control)', f.differenceColumn, 'differenceColumn', 'difference')}
+        <p class="hint">Two columns holding only 0 and 1 are read as a binary outcome (discordant pairs).</p>
+      `,
+    )}
   `;
 }
 

@@ -1,6 +1,7 @@
 import { html, nothing, type TemplateResult } from 'lit';
 import type { InputProblem } from '../../src/core/inputProblem';
 import { ovbSummarySql, type OvbFormInputs } from '../../src/methods/regression/request';
+import { columnSelect, csvFileInput } from '../fileFields';
 import { queryBox } from '../queryBox';
 
 const categoricalOf = (text: string) => text.split(',').some((s) => s.trim() !== '');
@@ -97,37 +98,20 @@ export function reportedFields(v: OvbFormView): TemplateResult {
 export function fileFields(v: OvbFormView): TemplateResult {
   const f = v.form;
   const fileError = v.fileProblem || (v.started ? (v.problemFor('file')?.message ?? '') : '');
-  const select = (key: 'outcome' | 'treatment', label: string) => {
-    const problem = v.problemFor(key);
-    return html`<div class="field">
-      <label for="column-${key}">${label}</label>
-      <select
-        id="column-${key}"
-        aria-invalid=${problem ? 'true' : 'false'}
-        aria-describedby="column-${key}-error"
-        @change=${(e: Event) => v.chooseRole(key, (e.target as HTMLSelectElement).value)}
-      >
-        <option value="" ?selected=${f[key] === ''}>Choose a column</option>
-        ${v.columns.map((c) => html`<option value=${c} ?selected=${f[key] === c}>${c}</option>`)}
-      </select>
-      <div class="field-error" id="column-${key}-error">${problem ? problem.message : ''}</div>
-    </div>`;
-  };
+  const select = (key: 'outcome' | 'treatment', label: string) =>
+    columnSelect({ id: `column-${key}`, label, value: f[key], columns: v.columns, problem: v.problemFor(key), onChange: (column) => v.chooseRole(key, column) });
   const candidates = v.columns.filter((c) => c !== f.outcome && c !== f.treatment);
   const covariateProblem = v.problemFor('covariates');
   return html`
-    <div class="field">
-      <label for="file">CSV file</label>
-      <input id="file" type="file" accept=".csv,.tsv,.txt,text/csv,text/plain" aria-describedby="file-hint file-error" aria-invalid=${fileError ? 'true' : 'false'} @change=${v.onFile} />
-      <div class="hint" id="file-hint">
-        ${v.file
-          ? `${v.file.name}: ${v.columns.length} columns. It is read in this browser, in chunks; nothing is uploaded.`
-          : f.fileName
-            ? `Choose ${f.fileName} again: the rows of a file are never saved, only the choices below.`
-            : 'A header row, then one row per observation. Read in this browser, in chunks; nothing is uploaded.'}
-      </div>
-      <div class="field-error" id="file-error" role=${fileError ? 'alert' : nothing}>${fileError}</div>
-    </div>
+    ${csvFileInput({
+      chosenHint: v.file ? `${v.file.name}: ${v.columns.length} columns. It is read in this browser, in chunks; nothing is uploaded.` : null,
+      savedName: f.fileName,
+      emptyHint: 'A header row, then one row per observation. Read in this browser, in chunks; nothing is uploaded.',
+      invalid: fileError !== '',
+      error: fileError,
+      alert: true,
+      onFile: (e) => v.onFile(e),
+    })}
     ${v.columns.length > 0
       ? html`<div class="pair">${select('outcome', 'Outcome')} ${select('treatment', 'Treatment (exposure)')}</div>
           <fieldset aria-describedby="covariates-error">

@@ -1,20 +1,9 @@
-import { html, nothing, type TemplateResult } from 'lit';
-import type { InputProblem } from '../../src/core/inputProblem';
+import { html, type TemplateResult } from 'lit';
 import type { SetsFormInputs } from '../../src/methods/sets/request';
+import { chosenFileInput, columnSelect, columnsFieldset, type FileFormView } from '../fileFields';
 
 /** What the matched-sets form needs from its element: the form, the file's columns, problems and the edit hooks. */
-export interface SetsFormView {
-  readonly form: SetsFormInputs;
-  readonly columns: readonly string[];
-  /** The name of the file chosen in this session (null when none: a saved form's file must be chosen again). */
-  readonly chosenFile: string | null;
-  /** The message under the file input ("" when none). */
-  readonly fileError: string;
-  problemFor(field: string): InputProblem | undefined;
-  field(field: string, label: string, value: string, change: (text: string) => Partial<SetsFormInputs>, hint?: string, inputMode?: 'decimal' | 'numeric' | 'text'): TemplateResult;
-  edit(change: Partial<SetsFormInputs>): void;
-  onFile(event: Event): void;
-}
+export type SetsFormView = FileFormView<SetsFormInputs>;
 
 /** The matched-sets form: the file and its three columns, then the analysis settings. */
 export function setsFormTemplate(v: SetsFormView): TemplateResult {
@@ -23,54 +12,22 @@ export function setsFormTemplate(v: SetsFormView): TemplateResult {
 
 type ColumnKey = 'setColumn' | 'treatedColumn' | 'outcomeColumn';
 
-function columnSelect(v: SetsFormView, key: ColumnKey, label: string): TemplateResult {
-  const problem = v.problemFor(key);
-  const value = v.form[key];
-  return html`<div class="field">
-    <label for="${key}">${label}</label>
-    <select
-      id="${key}"
-      aria-invalid=${problem ? 'true' : 'false'}
-      aria-describedby="${key}-error"
-      @change=${(e: Event) => v.edit({ [key]: (e.target as HTMLSelectElement).value })}
-    >
-      <option value="" ?selected=${value === ''}>Choose a column</option>
-      ${v.columns.map((c) => html`<option value=${c} ?selected=${value === c}>${c}</option>`)}
-    </select>
-    <div class="field-error" id="${key}-error">${problem ? problem.message : ''}</div>
-  </div>`;
+function setsColumnSelect(v: SetsFormView, key: ColumnKey, label: string): TemplateResult {
+  return columnSelect({ id: key, label, value: v.form[key], columns: v.columns, problem: v.problemFor(key), onChange: (column) => v.edit({ [key]: column }) });
 }
 
 function fileFields(v: SetsFormView): TemplateResult {
   const f = v.form;
   return html`
-    <div class="field">
-      <label for="file">CSV file</label>
-      <input
-        id="file"
-        type="file"
-        accept=".csv,.tsv,.txt,text/csv,text/plain"
-        aria-describedby="file-hint file-error"
-        aria-invalid=${v.fileError ? 'true' : 'false'}
-        @change=${(e: Event) => v.onFile(e)}
-      />
-      <div class="hint" id="file-hint">
-        ${v.chosenFile
-          ? `${v.chosenFile}: columns ${v.columns.join(', ')}. It stays in this browser.`
-          : f.fileName
-            ? `Choose ${f.fileName} again: the rows of a file are never saved, only the choices below.`
-            : 'A header row, then one row per unit: its matched set, 1 if treated or 0 if a control, and the outcome. Each set has one treated unit and one or more controls. It stays in this browser.'}
-      </div>
-      <div class="field-error" id="file-error">${v.fileError}</div>
-    </div>
-    ${v.columns.length > 0
-      ? html`<fieldset>
-          <legend>Columns</legend>
-          ${columnSelect(v, 'setColumn', 'Matched set')} ${columnSelect(v, 'treatedColumn', 'Treated (1) or control (0)')}
-          ${columnSelect(v, 'outcomeColumn', 'Outcome')}
-          <p class="hint">An empty outcome (or NA) is missing: that row is left out and counted.</p>
-        </fieldset>`
-      : nothing}
+    ${chosenFileInput(v, 'A header row, then one row per unit: its matched set, 1 if treated or 0 if a control, and the outcome. Each set has one treated unit and one or more controls. It stays in this browser.', 'names')}
+    ${columnsFieldset(
+      v.columns,
+      html`
+        ${setsColumnSelect(v, 'setColumn', 'Matched set')} ${setsColumnSelect(v, 'treatedColumn', 'Treated (1) or control (0)')}
+        ${setsColumnSelect(v, 'outcomeColumn', 'Outcome')}
+        <p class="hint">An empty outcome (or NA) is missing: that row is left out and counted.</p>
+      `,
+    )}
   `;
 }
 

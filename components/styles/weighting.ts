@@ -1,61 +1,14 @@
 import { css } from 'lit';
+import { resultPanelStyles } from './resultPanels';
 
-/** The weighting calculator's own styles; the shared layout is `calculatorLayoutStyles`. */
-export const weightingStyles = css`
-  .headlines {
-    display: grid;
-    gap: 0.5rem 1rem;
-    grid-template-columns: repeat(auto-fit, minmax(10rem, 1fr));
-    margin: 0.25rem 0 0.5rem;
-  }
-  .headline-box {
-    border: 1px solid var(--_border);
-    border-radius: var(--_radius);
-    padding: 0.5rem 0.75rem;
-    background: var(--_surface);
-  }
-  .headline-box .label {
-    font-size: 0.85rem;
-    color: var(--_muted);
-    display: block;
-  }
-  .headline-box .number {
-    font-size: 1.8rem;
-    display: block;
-  }
-  .headline-box .small {
-    font-size: 1.2rem;
-  }
-  .reading p {
-    margin: 0.4rem 0;
-  }
-  .checks {
-    display: flex;
-    flex-wrap: wrap;
-    gap: 0.25rem 1rem;
-  }
-  .busy {
-    display: flex;
-    flex-wrap: wrap;
-    gap: 0.5rem;
-    align-items: center;
-    margin: 0.5rem 0;
-  }
-  .busy progress {
-    flex: 1 1 12rem;
-    height: 1rem;
-  }
-  .method {
-    font-size: 0.85rem;
-    color: var(--_muted);
-  }
-  .plots {
-    display: grid;
-    gap: 1rem;
-  }
-  caption {
-    text-align: left;
-    font-weight: 600;
-    padding-bottom: 0.25rem;
-  }
-`;
+/** The weighting calculator's styles: the shared results column and the covariate checkboxes; the shared layout is `calculatorLayoutStyles`. */
+export const weightingStyles = [
+  resultPanelStyles,
+  css`
+    .checks {
+      display: flex;
+      flex-wrap: wrap;
+      gap: 0.25rem 1rem;
+    }
+  `,
+];

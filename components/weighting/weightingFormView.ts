@@ -1,19 +1,9 @@
 import { html, nothing, type TemplateResult } from 'lit';
-import type { InputProblem } from '../../src/core/inputProblem';
 import { columnList, type WeightingFormInputs } from '../../src/methods/weighting/request';
+import { chosenFileInput, columnSelect, type FileFormView } from '../fileFields';
 
 /** What the weighting form needs from its element: the form, the file's columns, problems and the edit hooks. */
-export interface WeightingFormView {
-  readonly form: WeightingFormInputs;
-  readonly columns: readonly string[];
-  /** The name of the file chosen in this session (null when none: a saved form's file must be chosen again). */
-  readonly chosenFile: string | null;
-  readonly fileError: string;
-  problemFor(field: string): InputProblem | undefined;
-  field(field: string, label: string, value: string, change: (text: string) => Partial<WeightingFormInputs>, hint?: string, inputMode?: 'decimal' | 'numeric' | 'text'): TemplateResult;
-  edit(change: Partial<WeightingFormInputs>): void;
-  onFile(event: Event): void;
-}
+export type WeightingFormView = FileFormView<WeightingFormInputs>;
 
 /** The weighting form: the file, its columns, and the analysis settings. */
 export function weightingFormTemplate(v: WeightingFormView): TemplateResult {
@@ -23,39 +13,11 @@ export function weightingFormTemplate(v: WeightingFormView): TemplateResult {
 }
 
 function fileField(v: WeightingFormView): TemplateResult {
-  const f = v.form;
-  return html`<div class="field">
-    <label for="file">CSV file</label>
-    <input
-      id="file"
-      type="file"
-      accept=".csv,.tsv,.txt,text/csv,text/plain"
-      aria-describedby="file-hint file-error"
-      aria-invalid=${v.fileError ? 'true' : 'false'}
-      @change=${(e: Event) => v.onFile(e)}
-    />
-    <div class="hint" id="file-hint">
-      ${v.chosenFile
-        ? `${v.chosenFile}: ${v.columns.length} columns. It stays in this browser.`
-        : f.fileName
-          ? `Choose ${f.fileName} again: the rows of a file are never saved, only the choices below.`
-          : 'A header row, then one row per person: a 0/1 treatment, a numeric outcome and covariates. It stays in this browser.'}
-    </div>
-    <div class="field-error" id="file-error">${v.fileError}</div>
-  </div>`;
+  return chosenFileInput(v, 'A header row, then one row per person: a 0/1 treatment, a numeric outcome and covariates. It stays in this browser.', 'count');
 }
 
-function columnSelect(v: WeightingFormView, key: 'treatment' | 'outcome', label: string): TemplateResult {
-  const problem = v.problemFor(key);
-  const value = v.form[key];
-  return html`<div class="field">
-    <label for="column-${key}">${label}</label>
-    <select id="column-${key}" aria-invalid=${problem ? 'true' : 'false'} aria-describedby="column-${key}-error" @change=${(e: Event) => v.edit({ [key]: (e.target as HTMLSelectElement).value })}>
-      <option value="" ?selected=${value === ''}>Choose a column</option>
-      ${v.columns.map((c) => html`<option value=${c} ?selected=${value === c}>${c}</option>`)}
-    </select>
-    <div class="field-error" id="column-${key}-error">${problem ? problem.message : ''}</div>
-  </div>`;
+function weightingColumnSelect(v: WeightingFormView, key: 'treatment' | 'outcome', label: string): TemplateResult {
+  return columnSelect({ id: `column-${key}`, label, value: v.form[key], columns: v.columns, problem: v.problemFor(key), onChange: (column) => v.edit({ [key]: column }) });
 }
 
 function columnFields(v: WeightingFormView): TemplateResult {
@@ -70,7 +32,7 @@ function columnFields(v: WeightingFormView): TemplateResult {
   };
   const problem = v.problemFor('covariates');
   return html`
-    ${columnSelect(v, 'treatment', 'Treatment column (0 = control, 1 = treated)')} ${columnSelect(v, 'outcome', 'Outcome column (numbers)')}
+    ${weightingColumnSelect(v, 'treatment', 'Treatment column (0 = control, 1 = treated)')} ${weightingColumnSelect(v, 'outcome', 'Outcome column (numbers)')}
     <fieldset aria-describedby="covariates-hint covariates-error">
       <legend>Covariates of the propensity model</legend>
       <div class="hint" id="covariates-hint">Text columns are dummy-coded. All ticked = every other column.</div>

@@ -5,7 +5,7 @@ import { coveragePercent, formatEffectValue, formatLambda, tippingWords, WEIGHTI
 import { readNote } from '../../src/methods/weighting/analysis';
 import { formatNumber } from '../../src/format/formatNumber';
 import type { PlotSpec } from '../../src/plot/plotSpec';
-import '../lurk-plot';
+import { notesBlock, plotColumn, waitingLine } from '../resultParts';
 
 /** The three figures of a result (null without a result). */
 export interface WeightingPlotSpecs {
@@ -44,14 +44,7 @@ export function weightingResultsTemplate(v: WeightingResultsView): TemplateResul
     return html`<p class="waiting" role="status" id="cancelled">The analysis was cancelled.</p>
       <button type="button" id="run-again" @click=${() => v.runAgain()}>Run again</button>`;
   }
-  if (!result) {
-    const shown = v.shown;
-    return html`<p class="waiting" role="status">
-      ${shown.length > 0
-        ? `Fix the ${shown.length === 1 ? 'field' : `${shown.length} fields`} marked in the form to see the bounds.`
-        : 'Choose a CSV file, its treatment and outcome columns to see the bounds.'}
-    </p>`;
-  }
+  if (!result) return waitingLine(v.shown, 'Choose a CSV file, its treatment and outcome columns to see the bounds.');
   const pct = coveragePercent(result.inputs.alpha);
   const c = result.counts;
   const notes = [...(v.outcome.read?.warnings ?? []), ...result.warnings];
@@ -84,7 +77,7 @@ export function weightingResultsTemplate(v: WeightingResultsView): TemplateResul
       Point bounds: ${tippingWords(result.tippingLambdaPoint, result.tippingPointStatus, result.inputs.lambdaSearchLimit, 'point bounds')}. Interval:
       ${tippingWords(result.tippingLambdaInterval, result.tippingIntervalStatus, result.inputs.lambdaSearchLimit, 'interval')}.
     </p>
-    ${notes.length > 0 ? html`<div class="warning" role="note" id="weighting-warnings">${notes.map((n) => html`<div>${n}</div>`)}</div>` : nothing}
+    ${notesBlock(notes, 'weighting-warnings')}
     <div class="table-scroll" tabindex="0" role="region" aria-label="Bounds table (scrolls sideways)">
       <table id="bounds-table">
         <caption>Bounds on the weighted effect and the ${pct}% sensitivity interval by Λ</caption>
@@ -135,11 +128,7 @@ export function weightingResultsTemplate(v: WeightingResultsView): TemplateResul
         </tbody>
       </table>
     </div>
-    <div class="plots">
-      ${v.specs.bounds ? html`<lurk-plot .spec=${v.specs.bounds}></lurk-plot>` : nothing}
-      ${v.specs.overlap ? html`<lurk-plot .spec=${v.specs.overlap}></lurk-plot>` : nothing}
-      ${v.specs.weights ? html`<lurk-plot .spec=${v.specs.weights}></lurk-plot>` : nothing}
-    </div>
+    ${plotColumn([v.specs.bounds, v.specs.overlap, v.specs.weights])}
     <p class="caution" role="note">${WEIGHTING_CAUTION}</p>
   `;
 }

@@ -3,6 +3,7 @@ import { statementCitation } from '../../format/citation';
 import { echoTyped, formatNumber } from '../../format/formatNumber';
 import { exposureLabel, outcomeLabel, type StudyLabels } from '../../format/studyLabels';
 import type { StatementPart } from '../methodModule';
+import { statementNumber as num } from '../workspaceText';
 import type { EValueSummary } from './summary';
 
 /** The works the E-value paragraph cites: the core's own references, in the statement's reference style. */
@@ -103,11 +104,6 @@ function olderFileAssumptions(e: EValueSummary, measure: string): string[] {
   if (e.conversion === 'standardized-mean-difference' || e.conversion === 'mean-difference-via-sd') return ['A standardized mean difference d corresponds approximately to a risk ratio of exp(0.91·d).'];
   if (e.conversion === 'odds-ratio-rare-outcome' || e.conversion === 'hazard-ratio-rare-outcome') return [`For a rare outcome (under about 15%) the ${measure} approximates the risk ratio.`];
   return [];
-}
-
-function num(value: number | null | undefined): string {
-  const text = formatNumber(value, { significant: 3 });
-  return /^-?\d+\.\d+$/.test(text) ? text.replace(/\.?0+$/, '') : text;
 }
 
 function ratio(value: number | null | undefined): string {

@@ -1,6 +1,7 @@
 import { formatNumber, pValueClause } from '../../format/formatNumber';
-import { exposureLabel, outcomeLabel, type StudyLabels } from '../../format/studyLabels';
+import type { StudyLabels } from '../../format/studyLabels';
 import type { BottomLinePart } from '../methodModule';
+import { bottomLineDraft, finishBottomLine } from '../workspaceText';
 import type { PairsSummary } from './summary';
 import { formatGamma } from './text';
 
@@ -10,11 +11,8 @@ import { formatGamma } from './text';
  * summary has no p-value.
  */
 export function pairsBottomLine(p: PairsSummary, study: StudyLabels): BottomLinePart {
-  const exposure = exposureLabel(study);
-  const outcome = outcomeLabel(study);
-  const howStrong: string[] = [];
-  const change: string[] = [];
-  const notChange: string[] = [];
+  const draft = bottomLineDraft(study);
+  const { exposure, outcome, howStrong, wouldChange: change, wouldNotChange: notChange } = draft;
   if (p.pValue !== null) {
     if (p.sensitivityValue !== null) {
       const g = formatGamma(p.sensitivityValue);
@@ -34,10 +32,5 @@ export function pairsBottomLine(p: PairsSummary, study: StudyLabels): BottomLine
       howStrong.push(`The matched comparison stays significant for every amount of hidden bias examined (up to ${formatNumber(p.searchedUpTo, { digits: 2 })}-fold).`);
     }
   }
-  return Object.freeze({
-    howStrong: Object.freeze(howStrong),
-    comparedWithMeasured: Object.freeze([]),
-    wouldChange: Object.freeze(change),
-    wouldNotChange: Object.freeze(notChange),
-  });
+  return finishBottomLine(draft);
 }

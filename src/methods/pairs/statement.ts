@@ -1,8 +1,9 @@
 import { PAIRS_ANALYSIS_REFERENCES } from '../../core/pairsAnalysis';
 import { statementCitation } from '../../format/citation';
-import { formatNumber, pValueClause } from '../../format/formatNumber';
+import { pValueClause } from '../../format/formatNumber';
 import { exposureLabel, outcomeLabel, outcomeNoun, type StudyLabels } from '../../format/studyLabels';
 import type { StatementPart } from '../methodModule';
+import { statementCount as int, statementNumber as num, unitSuffix } from '../workspaceText';
 import type { PairsSummary } from './summary';
 import { formatGamma } from './text';
 
@@ -28,7 +29,7 @@ export function pairsStatement(p: PairsSummary, study: StudyLabels, cite: (refer
   const outcome = outcomeLabel(study);
   const testName = p.test === 'sign' ? 'sign test' : 'Wilcoxon signed-rank test';
   const direction = p.alternative === 'less' ? 'lowers' : 'raises';
-  const unit = study.units.trim() ? ` ${study.units.trim()}` : '';
+  const unit = unitSuffix(study);
   const parts: string[] = [];
   if (p.sensitivityStatus === 'not-significant') {
     parts.push(
@@ -73,13 +74,4 @@ export function pairsStatement(p: PairsSummary, study: StudyLabels, cite: (refer
   if (p.estimate !== null) assumptions.push('The Hodges–Lehmann estimates and sensitivity intervals further assume an additive, constant effect.');
   for (const c of p.conventions ?? []) assumptions.push(c.text);
   return Object.freeze({ paragraph: parts.join(' '), assumptions: Object.freeze(assumptions) });
-}
-
-function num(value: number | null | undefined): string {
-  const text = formatNumber(value, { significant: 3 });
-  return /^-?\d+\.\d+$/.test(text) ? text.replace(/\.?0+$/, '') : text;
-}
-
-function int(value: number | null | undefined): string {
-  return value === null || value === undefined || !Number.isFinite(value) ? formatNumber(value) : String(Math.round(value));
 }

@@ -1,6 +1,7 @@
-import { formatNumber, formatPercent } from '../../format/formatNumber';
+import { formatPercent } from '../../format/formatNumber';
 import { exposureLabel, outcomeLabel, type StudyLabels } from '../../format/studyLabels';
 import type { StatementPart } from '../methodModule';
+import { statementCount as int, statementNumber as num } from '../workspaceText';
 import type { OvbSummary } from './summary';
 import { summaryBenchmarkOutcome, summaryMultiple, summaryShares, summarySignificant, summaryStrongest } from './summaryWords';
 
@@ -51,15 +52,6 @@ export function ovbStatement(r: OvbSummary, study: StudyLabels, cite: (reference
     'The bounds assume a linear model and consider the combined linear effect of the omitted confounders; benchmark comparisons assume the confounder is related to the treatment and outcome no more strongly, relative to the named covariate, than the stated multiple.',
   );
   return { paragraph: parts.join(' '), assumptions };
-}
-
-function num(value: number | null | undefined): string {
-  const text = formatNumber(value, { significant: 3 });
-  return /^-?\d+\.\d+$/.test(text) ? text.replace(/\.?0+$/, '') : text;
-}
-
-function int(value: number | null | undefined): string {
-  return value === null || value === undefined || !Number.isFinite(value) ? formatNumber(value) : String(Math.round(value));
 }
 
 function capitalise(text: string): string {

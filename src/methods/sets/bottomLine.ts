@@ -1,7 +1,8 @@
 import { formatNumber } from '../../format/formatNumber';
 import { formatGamma } from '../../format/gammaText';
-import { exposureLabel, outcomeLabel, type StudyLabels } from '../../format/studyLabels';
+import type { StudyLabels } from '../../format/studyLabels';
 import type { BottomLinePart } from '../methodModule';
+import { bottomLineDraft, finishBottomLine } from '../workspaceText';
 import type { SetsSummary } from './summary';
 
 /**
@@ -10,11 +11,8 @@ import type { SetsSummary } from './summary';
  * could not do (there is no finding to explain away). Empty lists when the summary has no p-value.
  */
 export function setsBottomLine(p: SetsSummary, study: StudyLabels): BottomLinePart {
-  const exposure = exposureLabel(study);
-  const outcome = outcomeLabel(study);
-  const howStrong: string[] = [];
-  const change: string[] = [];
-  const notChange: string[] = [];
+  const draft = bottomLineDraft(study);
+  const { exposure, outcome, howStrong, wouldChange: change, wouldNotChange: notChange } = draft;
   if (p.pValue !== null) {
     if (p.sensitivityStatus === 'not-significant' || (p.sensitivityValue === null && p.sensitivityStatus !== 'beyond-range')) {
       howStrong.push('The matched-sets comparison is not statistically significant even without any hidden bias, so on its own it gives no firm evidence of a link.');
@@ -31,10 +29,5 @@ export function setsBottomLine(p: SetsSummary, study: StudyLabels): BottomLinePa
       notChange.push(`Hidden differences in the odds of ${exposure} of up to ${top}-fold within matched sets could not make the matched finding lose significance.`);
     }
   }
-  return Object.freeze({
-    howStrong: Object.freeze(howStrong),
-    comparedWithMeasured: Object.freeze([]),
-    wouldChange: Object.freeze(change),
-    wouldNotChange: Object.freeze(notChange),
-  });
+  return finishBottomLine(draft);
 }

@@ -1,8 +1,9 @@
 import { statementCitation } from '../../format/citation';
-import { formatNumber, formatPValue } from '../../format/formatNumber';
+import { formatPValue } from '../../format/formatNumber';
 import { formatGamma } from '../../format/gammaText';
 import { exposureLabel, outcomeLabel, type StudyLabels } from '../../format/studyLabels';
 import type { StatementPart } from '../methodModule';
+import { statementCount as int, statementNumber as num, unitSuffix } from '../workspaceText';
 import type { SetsSummary } from './summary';
 
 /**
@@ -46,7 +47,7 @@ export function setsStatement(p: SetsSummary, study: StudyLabels, cite: (referen
   } else {
     parts.push(`The finding is not significant at α = ${num(p.alpha)} even without hidden bias, so no sensitivity value is reported.`);
   }
-  const unit = study.units.trim() ? ` ${study.units.trim()}` : '';
+  const unit = unitSuffix(study);
   if (p.estimate !== null) {
     let sentence = `The m-estimate of the effect is ${num(p.estimate)}${unit}`;
     if (p.rangeAt && p.rangeAt.gamma !== null && p.rangeAt.gamma > 1) {
@@ -58,13 +59,4 @@ export function setsStatement(p: SetsSummary, study: StudyLabels, cite: (referen
     parts.push(`${sentence}.`);
   }
   return Object.freeze({ paragraph: parts.join(' '), assumptions: Object.freeze([...p.conventions]) });
-}
-
-function num(value: number | null | undefined): string {
-  const text = formatNumber(value, { significant: 3 });
-  return /^-?\d+\.\d+$/.test(text) ? text.replace(/\.?0+$/, '') : text;
-}
-
-function int(value: number | null | undefined): string {
-  return value === null || value === undefined || !Number.isFinite(value) ? formatNumber(value) : String(Math.round(value));
 }

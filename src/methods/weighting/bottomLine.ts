@@ -1,5 +1,6 @@
-import { exposureLabel, outcomeLabel, type StudyLabels } from '../../format/studyLabels';
+import type { StudyLabels } from '../../format/studyLabels';
 import type { BottomLinePart } from '../methodModule';
+import { bottomLineDraft, finishBottomLine } from '../workspaceText';
 import type { WeightingSummary } from './summary';
 import { formatLambda } from './text';
 
@@ -8,11 +9,8 @@ import { formatLambda } from './text';
  * effect, that is said first.
  */
 export function weightingBottomLine(s: WeightingSummary, study: StudyLabels): BottomLinePart {
-  const exposure = exposureLabel(study);
-  const outcome = outcomeLabel(study);
-  const howStrong: string[] = [];
-  const change: string[] = [];
-  const notChange: string[] = [];
+  const draft = bottomLineDraft(study);
+  const { exposure, outcome, howStrong, wouldChange: change, wouldNotChange: notChange } = draft;
   if (s.effect !== null) {
     if (s.tippingIntervalStatus === 'includes-zero-at-one') {
       howStrong.push(`The weighted comparison of ${exposure} and ${outcome} is inconclusive even without hidden bias: its interval already includes no effect.`);
@@ -30,10 +28,5 @@ export function weightingBottomLine(s: WeightingSummary, study: StudyLabels): Bo
       howStrong.push(`The weighted estimate stays away from no effect for every amount of hidden bias examined (up to ${formatLambda(s.searchedUpTo)}-fold).`);
     }
   }
-  return Object.freeze({
-    howStrong: Object.freeze(howStrong),
-    comparedWithMeasured: Object.freeze([]),
-    wouldChange: Object.freeze(change),
-    wouldNotChange: Object.freeze(notChange),
-  });
+  return finishBottomLine(draft);
 }

@@ -1,8 +1,8 @@
 import { WEIGHTING_ANALYSIS_REFERENCES } from '../../core/weightingAnalysis';
 import { statementCitation } from '../../format/citation';
-import { formatNumber } from '../../format/formatNumber';
 import { exposureLabel, outcomeLabel, type StudyLabels } from '../../format/studyLabels';
 import type { StatementPart } from '../methodModule';
+import { statementCount as int, statementNumber as num, unitSuffix } from '../workspaceText';
 import type { WeightingSummary } from './summary';
 import { formatLambda } from './text';
 
@@ -20,7 +20,7 @@ export function weightingStatement(s: WeightingSummary, study: StudyLabels, cite
   if (s.effect === null) return null;
   const exposure = exposureLabel(study);
   const outcome = outcomeLabel(study);
-  const unit = study.units.trim() ? ` ${study.units.trim()}` : '';
+  const unit = unitSuffix(study);
   const pct = num((1 - (s.alpha ?? 0.05)) * 100);
   const target = s.estimand === 'ate' ? 'average effect' : 'average effect among the treated';
   const parts: string[] = [];
@@ -51,13 +51,4 @@ export function weightingStatement(s: WeightingSummary, study: StudyLabels, cite
     'The weighting analysis assumes that the logistic propensity model is correctly specified for the measured covariates, that every person had some chance of either treatment (overlap), and that a hidden factor acts only through the odds of treatment, by at most Λ-fold for each person.',
   ];
   return Object.freeze({ paragraph: parts.join(' '), assumptions: Object.freeze(assumptions) });
-}
-
-function num(value: number | null | undefined): string {
-  const text = formatNumber(value, { significant: 3 });
-  return /^-?\d+\.\d+$/.test(text) ? text.replace(/\.?0+$/, '') : text;
-}
-
-function int(value: number | null | undefined): string {
-  return value === null || value === undefined || !Number.isFinite(value) ? formatNumber(value) : String(Math.round(value));
 }
