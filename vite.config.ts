@@ -40,6 +40,9 @@ export default defineConfig(({ mode }) => ({
         test: {
           name: 'unit',
           environment: 'node',
+          // Every project runs at once on a 2-core machine: generous limits keep a slow moment from failing a test.
+          testTimeout: 60_000,
+          hookTimeout: 180_000,
           include: ['test/**/*.test.ts'],
           exclude: ['test/browser/**', 'test/e2e/**', 'node_modules/**'],
           benchmark: { include: ['bench/**/*.bench.ts'] },
@@ -49,6 +52,8 @@ export default defineConfig(({ mode }) => ({
         extends: true,
         test: {
           name: 'browser',
+          testTimeout: 60_000,
+          hookTimeout: 180_000,
           include: ['test/browser/**/*.test.ts'],
           browser: {
             enabled: true,
