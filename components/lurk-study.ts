@@ -37,6 +37,10 @@ export class LurkStudy extends LitElement {
       .grid {
         grid-template-columns: repeat(auto-fit, minmax(13rem, 1fr));
       }
+      /* A grid cell may shrink below its input's natural width, so no input spills past the panel. */
+      .grid > * {
+        min-width: 0;
+      }
     `,
   ];
 
