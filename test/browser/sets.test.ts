@@ -39,7 +39,7 @@ describe('<lurk-sets>', () => {
     expect(text('#sets-counts')).toMatch(/14 matched sets \(1 to 4 controls each\), 52 units used/);
     expect(text('#estimate')).toBe('3.87 points');
     const header = [...shadow().querySelectorAll('#bounds-table thead th')].map((th) => th.textContent!.trim());
-    expect(header).toEqual(['Γ', 'p upper bound', 'p lower bound', 'estimate low (points)', 'estimate high (points)', '95% interval (points)']);
+    expect(header).toEqual(['Γ', 'worst-case p', 'best-case p', 'smallest effect estimate (points)', 'largest effect estimate (points)', '95% interval (points)']);
     expect(text('.reading')).toMatch(/odds of the garden programme by a factor of more than 8\.804/);
     expect(text('.caution')).toMatch(/does not prove causation/);
     expect(shadow().querySelectorAll('#sets-conventions li').length).toBeGreaterThan(5);

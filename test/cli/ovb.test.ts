@@ -144,9 +144,9 @@ describe('lurk ovb', () => {
       [['--estimate', '1', '--se', '0', '--df', '10'], /^lurk ovb: --se: /],
       [['--estimate', 'abc', '--se', '1', '--df', '10'], /^lurk ovb: --estimate: must be a number, got "abc"/],
       [['--se', '1', '--df', '10'], /^lurk ovb: --estimate: is required/],
-      [['--estimate', '1', '--se', '1', '--df', '10', '--r2dz', '1', '--r2yz', '0.1'], /^lurk ovb: --r2dz: must be a partial R² in \[0, 1\)/],
-      [['--estimate', '1', '--se', '1', '--df', '10', '--r2yz', '0.1'], /^lurk ovb: --r2dz: is needed/],
-      [['--estimate', '1', '--se', '1', '--df', '10', '--k', '1,-1'], /^lurk ovb: --k: must be greater than 0/],
+      [['--estimate', '1', '--se', '1', '--df', '10', '--r2dz', '1', '--r2yz', '0.1'], /^lurk ovb: --confounder-treatment-r2: must be a partial R² in \[0, 1\)/],
+      [['--estimate', '1', '--se', '1', '--df', '10', '--r2yz', '0.1'], /^lurk ovb: --confounder-treatment-r2: is needed/],
+      [['--estimate', '1', '--se', '1', '--df', '10', '--k', '1,-1'], /^lurk ovb: --times: must be greater than 0/],
       [['--estimate', '1', '--se', '1', '--df', '10', '--direction', 'up'], /^lurk ovb: --direction: must be one of/],
       [['--estimate', '1', '--se', '1', '--df', '10', '--file', swissPath], /^lurk ovb: --estimate: gives reported numbers/],
       [['--estimate', '1', '--se', '1', '--df', '10', '--covariate-t', 'age'], /^lurk ovb: --covariate-t: item 1/],
@@ -315,5 +315,21 @@ describe('lurk ovb --sql / --summary with categorical covariates: levels query, 
     expect((await lurk(['--sql', 't', '--outcome', 'y', '--treatment', 'd', '--covariates', 'a', '--categorical', 'd'])).err).toMatch(/--categorical: "d" is not among the covariate columns/);
     const pairsRow = JSON.stringify({ lurk_query: 'lurk-pairs-signed-ranks', pairs: 3 });
     expect((await lurk(['--summary', pairsRow, '--outcome', 'y', '--treatment', 'd', '--covariates', 'a'])).err).toMatch(/--summary: is the result of another calculator's query/);
+  });
+});
+
+describe('lurk ovb: self-explaining option names, with the earlier ones kept for one release', () => {
+  const base = ['--estimate', '4.18', '--se', '1', '--df', '783', '--covariate-t', 'age=2:1.5'];
+  it('--times, --fraction and --confounder-*-r2 give what --k, --q, --r2dz and --r2yz gave', async () => {
+    // Cinelli & Hazlett 2020 published example (t = 4.18, df = 783) as the reported numbers.
+    const now = JSON.parse((await lurk([...base, '--times', '1,2', '--fraction', '0.5', '--confounder-treatment-r2', '0.05', '--confounder-outcome-r2', '0.1', '--json'])).out);
+    const before = JSON.parse((await lurk([...base, '--k', '1,2', '--q', '0.5', '--r2dz', '0.05', '--r2yz', '0.1', '--json'])).out);
+    expect(now).toEqual(before);
+  });
+  it('an earlier name prints a note; both names at once are refused', async () => {
+    expect((await lurk([...base, '--k', '1'])).out).toMatch(/Note: --k is the earlier name of --times/);
+    const both = await lurk([...base, '--k', '1', '--times', '2']);
+    expect(both.code).toBe(2);
+    expect(both.err).toMatch(/^lurk ovb: --k: is the earlier name of --times: give one of them/);
   });
 });

@@ -76,7 +76,7 @@ describe('readable report', () => {
     const { code, stdout } = await lurk(['pairs', '--file', referencePath('rosenbaum_small_n15.csv'), '--diff', 'd']);
     expect(code).toBe(0);
     expect(stdout).toMatch(/Tipping Γ \(sensitivity value\): 1\.611/);
-    expect(stdout).toMatch(/p upper bound/);
+    expect(stdout).toMatch(/worst-case p/);
     expect(stdout).toMatch(/by a factor of more than 1\.611/);
     expect(stdout).toMatch(/does not prove causation/);
     expect(stdout).not.toMatch(/NaN|undefined|Infinity/);

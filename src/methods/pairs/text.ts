@@ -183,9 +183,9 @@ export function alignTable(header: string[], rows: string[][]): string {
 /** The sensitivity table as header + formatted rows (shared by the command line and the page); units go in the header. */
 export function pairsTable(result: PairsResult, study?: Partial<StudyLabels>): { header: string[]; rows: string[][] } {
   const withEstimates = result.estimates.length === result.rows.length && result.estimates.length > 0;
-  const header = ['Γ', 'p upper bound', 'p lower bound'];
+  const header = ['Γ', 'worst-case p', 'best-case p'];
   const units = study?.units?.trim() ? ` (${study.units.trim()})` : '';
-  if (withEstimates) header.push(`estimate low${units}`, `estimate high${units}`, `${formatAsTyped(result.intervalLevel * 100)}% interval${units}`);
+  if (withEstimates) header.push(`smallest effect estimate${units}`, `largest effect estimate${units}`, `${formatAsTyped(result.intervalLevel * 100)}% interval${units}`);
   const scale = estimateScale(result);
   const rows = result.rows.map((row, i) => {
     const cells = [formatGammaValue(row.gamma), formatPValue(row.pUpper), formatPValue(row.pLower)];

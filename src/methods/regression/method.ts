@@ -78,7 +78,18 @@ async function runOvbCommand(form: OvbFormInputs, values: OptionValues, context:
     : form.source === 'summary'
       ? { kind: 'summary', path: isInlineResult(form.fileName) ? 'the result given to --summary' : form.fileName, n: outcome.regression?.n ?? 0, outcome: form.outcome, treatment: form.treatment, covariates: covariatesOf(form) }
       : { kind: 'reported', typed: { estimate: form.estimate, se: form.se } };
-  return plot ? ovbSvgReport(outcome.result, origin, plot) : ovbCommandReport(outcome.result, origin, { q: form.q, alpha: form.alpha });
+  if (plot) return ovbSvgReport(outcome.result, origin, plot);
+  const report = ovbCommandReport(outcome.result, origin, { q: form.q, alpha: form.alpha });
+  const notes = earlierNamesUsed(values);
+  return notes.length === 0 ? report : { ...report, text: `${report.text}\n${notes.join('\n')}\n` };
+}
+
+/** A note for each earlier option name used: it keeps working for one release. */
+function earlierNamesUsed(values: OptionValues): string[] {
+  const renamed: Record<string, string> = { k: 'times', q: 'fraction', r2dz: 'confounder-treatment-r2', r2yz: 'confounder-outcome-r2' };
+  return Object.entries(renamed)
+    .filter(([old]) => values[old] !== undefined)
+    .map(([old, name]) => `Note: --${old} is the earlier name of --${name}; it keeps working for this release.`);
 }
 
 function covariatesOf(form: OvbFormInputs): string[] {

@@ -23,12 +23,16 @@ export const OVB_OPTIONS: Readonly<Record<string, OptionSpec>> = {
   categorical: { type: 'string' },
   levels: { type: 'string' },
   benchmark: { type: 'string' },
+  times: { type: 'string' },
   k: { type: 'string' },
   'times-outcome': { type: 'string' },
   'se-kind': { type: 'string' },
+  fraction: { type: 'string' },
   q: { type: 'string' },
   alpha: { type: 'string' },
   direction: { type: 'string' },
+  'confounder-treatment-r2': { type: 'string' },
+  'confounder-outcome-r2': { type: 'string' },
   r2dz: { type: 'string' },
   r2yz: { type: 'string' },
   svg: { type: 'string' },
@@ -64,16 +68,20 @@ Options:
                   regression of the treatment on the covariates (needed for its bounds), e.g. age=2.4:-2.6
   --covariate-r2  with reported numbers: a covariate's partial R² with the outcome and, if known, with the
                   treatment (fractions or percentages), e.g. age=0.04:1.2%
-  --k             multiples for the bounds (default ${DEFAULT_BENCHMARK_MULTIPLES.join(',')}): the confounder is k times as strongly
+  --times         multiples for the bounds (default ${DEFAULT_BENCHMARK_MULTIPLES.join(',')}): the confounder is k times as strongly
                   associated with the treatment as the covariate, and k times with the outcome unless
-  --times-outcome gives separate outcome-side multiples k_Y, one per k (e.g. --k 1,2 --times-outcome 3,3)
+  --times-outcome gives separate outcome-side multiples k_Y, one per k (e.g. --times 1,2 --times-outcome 3,3)
   --se-kind       how the reported standard error was computed: classical (default), robust, clustered or
                   unknown. The bias formula assumes the classical OLS standard error: with any other kind the
                   adjusted estimates hold, but the adjusted standard errors and t-values do not (a warning says so)
-  --q             fraction of the estimate to explain away (default 1: all of it)
+  --fraction      fraction of the estimate to explain away, q (default 1: all of it)
   --alpha         significance level (default 0.05)
   --direction     toward-zero (default) or away-from-zero: which way the confounder moves the estimate
-  --r2dz, --r2yz  a confounder strength to evaluate (partial R²s with treatment and outcome, in [0, 1))
+  --confounder-treatment-r2, --confounder-outcome-r2
+                  a confounder strength to evaluate: its partial R² with the treatment and with the outcome, in [0, 1)
+
+Earlier names, kept for one release: --k (now --times), --q (--fraction), --r2dz (--confounder-treatment-r2),
+--r2yz (--confounder-outcome-r2).
   --json          one JSON object: estimate, se, t, df, partialR2, rv, rvAlpha, benchmarks [{covariate, k,
                   r2dz, r2yz, correctedEstimate, correctedSe, correctedT, ...}], extremeScenarios, ...
                   (with --sql: {query, table, outcome, treatment, covariates})
@@ -123,15 +131,20 @@ export function ovbFormFromOptions(values: OptionValues): OvbFormInputs {
     for (const o of ['outcome', 'treatment', 'covariates', 'categorical']) if (values[o] !== undefined) refuse(`--${o}`, 'needs --file, --summary or --sql (data columns)');
   }
   const base = emptyOvbForm();
+  // Each setting has a self-explaining name; the earlier short name keeps working for one release.
+  const renamed = (name: string, old: string): string | undefined => {
+    if (values[name] !== undefined && values[old] !== undefined) refuse(`--${old}`, `is the earlier name of --${name}: give one of them`);
+    return text(name) ?? text(old);
+  };
   const settings: Partial<OvbFormInputs> = {
-    k: text('k') ?? base.k,
+    k: renamed('times', 'k') ?? base.k,
     kOutcome: text('times-outcome') ?? '',
     seKind: text('se-kind') ?? '',
-    q: text('q') ?? base.q,
+    q: renamed('fraction', 'q') ?? base.q,
     alpha: text('alpha') ?? base.alpha,
     direction: text('direction') ?? base.direction,
-    r2dz: text('r2dz') ?? '',
-    r2yz: text('r2yz') ?? '',
+    r2dz: renamed('confounder-treatment-r2', 'r2dz') ?? '',
+    r2yz: renamed('confounder-outcome-r2', 'r2yz') ?? '',
   };
   const source = sources[0];
   if (source === undefined) {
@@ -214,7 +227,11 @@ const FIELD_OPTIONS: [RegExp, string][] = [
   [/^summaryTable$/, '--sql'],
   [/^kOutcome\b/, '--times-outcome'],
   [/^seKind$/, '--se-kind'],
-  [/^(estimate|se|df|n|parameters|outcome|treatment|k|q|alpha|direction|r2dz|r2yz)$/, ''],
+  [/^k$/, '--times'],
+  [/^q$/, '--fraction'],
+  [/^r2dz$/, '--confounder-treatment-r2'],
+  [/^r2yz$/, '--confounder-outcome-r2'],
+  [/^(estimate|se|df|n|parameters|outcome|treatment|alpha|direction)$/, ''],
 ];
 
 /** The option that holds a form field (`covariateTs[0].outcomeT` → `--covariate-t`), for messages. */

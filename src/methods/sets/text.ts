@@ -64,9 +64,9 @@ function limit(x: number | null, study?: Partial<StudyLabels>): string {
 /** The sensitivity table as header + formatted rows (shared by the command line and the page); units go in the header. */
 export function setsTable(result: MatchedSetsResult, study?: Partial<StudyLabels>): { header: string[]; rows: string[][] } {
   const withEstimates = result.outcomeKind === 'continuous';
-  const header = ['Γ', 'p upper bound', 'p lower bound'];
+  const header = ['Γ', 'worst-case p', 'best-case p'];
   const units = study?.units?.trim() ? ` (${study.units.trim()})` : '';
-  if (withEstimates) header.push(`estimate low${units}`, `estimate high${units}`, `${formatAsTyped(result.intervalLevel * 100)}% interval${units}`);
+  if (withEstimates) header.push(`smallest effect estimate${units}`, `largest effect estimate${units}`, `${formatAsTyped(result.intervalLevel * 100)}% interval${units}`);
   const rows = result.rows.map((row) => {
     const cells = [formatGammaValue(row.gamma), formatPValue(row.pUpper), formatPValue(row.pLower)];
     if (withEstimates) cells.push(formatEffect(row.estimateLow), formatEffect(row.estimateHigh), `${limit(row.intervalLow)} to ${limit(row.intervalHigh)}`);

@@ -66,8 +66,8 @@ describe('text report', () => {
   });
 
   test('the table has plain column names, with estimates only for a continuous outcome', () => {
-    expect(setsTable(analyse('fictional_d_large_effect')).header).toEqual(['Γ', 'p upper bound', 'p lower bound', 'estimate low', 'estimate high', '95% interval']);
-    expect(setsTable(analyse('fictional_binary_mixed')).header).toEqual(['Γ', 'p upper bound', 'p lower bound']);
+    expect(setsTable(analyse('fictional_d_large_effect')).header).toEqual(['Γ', 'worst-case p', 'best-case p', 'smallest effect estimate', 'largest effect estimate', '95% interval']);
+    expect(setsTable(analyse('fictional_binary_mixed')).header).toEqual(['Γ', 'worst-case p', 'best-case p']);
   });
 });
 
