@@ -46,3 +46,4 @@ export * from './weightingBounds';
 export * from './weightingPreparation';
 export * from './weightingBootstrap';
 export * from './weightingAnalysis';
+export * from './gammaList';

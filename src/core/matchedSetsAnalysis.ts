@@ -1,3 +1,4 @@
+import { gammaListProblems } from './gammaList';
 import { inputProblem, throwIfProblems, type InputProblem } from './inputProblem';
 import { groupMatchedSets, mapMatchedSetsOutcomes, type MatchedSetsGrouping, type MatchedSetsLayout } from './matchedSetsGrouping';
 import { matchedSetsMStatistic, mStatisticScale, mStatisticUpperP } from './matchedSetsMStatistic';
@@ -313,19 +314,7 @@ function checkOptions(input: MatchedSetsInput, problems: InputProblem[]): void {
   if (input?.trim !== undefined && !(typeof input.trim === 'number' && input.trim > 0 && Number.isFinite(input.trim))) {
     problems.push(inputProblem('trim', 'not-positive', 'must be a positive number (e.g. 2.5)', input.trim));
   }
-  if (input?.gammas !== undefined) {
-    if (!Array.isArray(input.gammas) || input.gammas.length === 0) {
-      problems.push(inputProblem('gammas', 'empty', 'give at least one Γ value, each 1 or more'));
-    } else {
-      input.gammas.forEach((g, i) => {
-        if (!(typeof g === 'number' && Number.isFinite(g))) {
-          problems.push(inputProblem(`gammas[${i}]`, 'not-finite', 'must be a finite number, 1 or more', g));
-        } else if (g < 1) {
-          problems.push(inputProblem(`gammas[${i}]`, 'below-one', `must be 1 or more (Γ = 1 means no hidden bias), got ${g}`, g));
-        }
-      });
-    }
-  }
+  if (input?.gammas !== undefined) problems.push(...gammaListProblems(input.gammas));
 }
 
 /**

@@ -1,3 +1,4 @@
+import { gammaListProblems } from './gammaList';
 import { inputProblem, throwIfProblems, type InputProblem } from './inputProblem';
 import { conventionList, type AnalysisConvention } from './analysisConvention';
 import { RANK_TIE_TOLERANCE, signedRanks, type SignedRanks, type ZeroRule } from './signedRanks';
@@ -215,19 +216,7 @@ export function validatePairsInput(input: PairsInput): InputProblem[] {
   if (input?.alpha !== undefined && !(typeof input.alpha === 'number' && input.alpha > 0 && input.alpha < 1)) {
     problems.push(inputProblem('alpha', 'outside-interval', 'must be between 0 and 1 (e.g. 0.05), exclusive', input.alpha));
   }
-  if (input?.gammas !== undefined) {
-    if (!Array.isArray(input.gammas) || input.gammas.length === 0) {
-      problems.push(inputProblem('gammas', 'empty', 'give at least one Γ value, each 1 or more'));
-    } else {
-      input.gammas.forEach((g, i) => {
-        if (!(typeof g === 'number' && Number.isFinite(g))) {
-          problems.push(inputProblem(`gammas[${i}]`, 'not-finite', 'must be a finite number, 1 or more', g));
-        } else if (g < 1) {
-          problems.push(inputProblem(`gammas[${i}]`, 'below-one', `must be 1 or more (Γ = 1 means no hidden bias), got ${g}`, g));
-        }
-      });
-    }
-  }
+  if (input?.gammas !== undefined) problems.push(...gammaListProblems(input.gammas));
   return problems;
 }
 
