@@ -145,7 +145,9 @@ describe('conversions: invariants', () => {
         for (const prevalence of ['rare', 'common'] as const) {
           expect(hazardRatioToRiskRatio(a, prevalence)).toBeLessThanOrEqual(hazardRatioToRiskRatio(b, prevalence));
           expect(oddsRatioToRiskRatio(a, prevalence)).toBeLessThanOrEqual(oddsRatioToRiskRatio(b, prevalence));
-          expect(Math.sign(Math.log(hazardRatioToRiskRatio(b, prevalence)))).toBe(Math.sign(Math.log(b)));
+          // Within a few units in the last place of 1 the converted ratio rounds to exactly 1: the side of the null
+          // is defined only beyond rounding (found by fast-check: HR = 1 + 2.2e-16 converts to 1).
+          if (Math.abs(Math.log(b)) > 1e-12) expect(Math.sign(Math.log(hazardRatioToRiskRatio(b, prevalence)))).toBe(Math.sign(Math.log(b)));
         }
       }),
     );
