@@ -1,7 +1,7 @@
+import { readCsvHeadColumns } from '../../data/csvHead';
 import { adjustForConfounder } from '../../core/confounderAdjustment';
 import { InputError } from '../../core/inputProblem';
 import type { OvbResult } from '../../core/ovbAnalysis';
-import { readCsvText } from '../../data/csv';
 import { formatNumber, formatPercent } from '../../format/formatNumber';
 import type { StudyLabels } from '../../format/studyLabels';
 import type { PlotSpec } from '../../plot/plotSpec';
@@ -14,20 +14,8 @@ import type { OvbFormInputs } from './request';
 
 export type { FittedFile } from './fileFit';
 
-/** Bytes read to find a CSV's header and first rows (the page's column pickers). */
-const HEAD_BYTES = 256 * 1024;
-
 /** The columns of a chosen file, from its first rows, or the reason it cannot be read. */
-export async function readFileColumns(file: Blob & { name: string }): Promise<{ columns: readonly string[]; problem: string }> {
-  try {
-    const head = await file.slice(0, HEAD_BYTES).text();
-    const complete = file.size > HEAD_BYTES ? head.slice(0, Math.max(head.lastIndexOf('\n'), 0)) : head;
-    return { columns: readCsvText(complete || head, 'file').columns, problem: '' };
-  } catch (error) {
-    if (!(error instanceof InputError)) throw error;
-    return { columns: [], problem: `${file.name}: ${error.problems.map((p) => p.message).join('; ')}` };
-  }
-}
+export const readFileColumns = readCsvHeadColumns;
 
 /**
  * Reads a whole CSV in a Web Worker, chunk by chunk (the page), and fits the regressions.

@@ -1,7 +1,7 @@
+import { readCsvHeadColumns } from '../../data/csvHead';
 import { InputError, inputProblem, type InputProblem } from '../../core/inputProblem';
 import type { WeightingResult } from '../../core/weightingAnalysis';
 import type { ByteSource } from '../../data/byteSource';
-import { readCsvText } from '../../data/csv';
 import type { MethodOutcome } from '../methodModule';
 import { bootstrapInPieces, finishAnalysis, prepareFromRead, type WeightingAnalysis } from './analysis';
 import { readWeightingSettings, type WeightingFormInputs, type WeightingSettings } from './request';
@@ -36,20 +36,8 @@ function outcomeOf(analysis: WeightingAnalysis | null, read: WeightingReadSummar
   });
 }
 
-/** Bytes read to find a CSV's header (the page's column pickers). */
-const HEAD_BYTES = 256 * 1024;
-
 /** The columns of a chosen file, from its first rows, or the reason it cannot be read. */
-export async function readWeightingFileColumns(file: Blob & { name: string }): Promise<{ columns: readonly string[]; problem: string }> {
-  try {
-    const head = await file.slice(0, HEAD_BYTES).text();
-    const complete = file.size > HEAD_BYTES ? head.slice(0, Math.max(head.lastIndexOf('\n'), 0)) : head;
-    return { columns: readCsvText(complete || head, 'file').columns, problem: '' };
-  } catch (error) {
-    if (!(error instanceof InputError)) throw error;
-    return { columns: [], problem: `${file.name}: ${error.problems.map((p) => p.message).join('; ')}` };
-  }
-}
+export const readWeightingFileColumns = readCsvHeadColumns;
 
 /** Guesses the treatment and outcome columns from a header ("treat…", "outcome"/"y"-like names). */
 export function guessWeightingColumns(columns: readonly string[]): { treatment: string; outcome: string } {
