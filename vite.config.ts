@@ -6,6 +6,10 @@ import { chromiumArgs, chromiumPath } from './test/support/chromium.ts';
 // One config for the app build (default), the embeddable components bundle (`--mode components`),
 // the test projects and the benchmarks.
 export default defineConfig(({ mode }) => ({
+  // The components bundle and the library may be copied to any folder of any site: their Web Workers and the
+  // parts they load are found relative to the module itself (`new URL('assets/…', import.meta.url)`), never from
+  // the site's root.
+  base: mode === 'components' || mode === 'library' ? './' : '/',
   server: { host: '127.0.0.1' },
   preview: { host: '127.0.0.1' },
   build:
