@@ -144,7 +144,7 @@ function regressionCsv(): string {
     const age = 25 + 40 * random.nextDouble();
     const income = 30 + 40 * random.nextDouble();
     const minutes = Math.max(0, 20 - 0.2 * (age - 45) + 0.1 * (income - 50) + 10 * normal());
-    rows.push(`${round1(110 + 0.5 * age - 0.1 * income - 0.25 * minutes + 8 * normal())},${round1(minutes)},${round1(age)},${round1(income)}`);
+    rows.push(`${round1(122 + 0.15 * age - 0.1 * income - 0.25 * minutes + 8 * normal())},${round1(minutes)},${round1(age)},${round1(income)}`);
   }
   return rows.join('\n') + '\n';
 }
@@ -244,6 +244,7 @@ describe(`the web components copied to ${VENDOR} of another site`, () => {
     await element('lurk-pairs').getByLabel('CSV file', { exact: true }).setInputFiles(csvFile('pairs-fictional.csv', pairsCsv()));
     expect(await settled('lurk-pairs', '#bounds-table tbody tr')).toBe('result');
     expect(await shadowText('lurk-pairs', '#pairs-counts')).toMatch(/2,000 pairs/);
+    expect(await shadowText('lurk-pairs', '#tipping-gamma')).toMatch(/^\d/);
     expect(workers.some((url) => /pairsWorker-[\w-]+\.js$/.test(url))).toBe(true);
   });
 
@@ -251,6 +252,7 @@ describe(`the web components copied to ${VENDOR} of another site`, () => {
     await element('lurk-sets').getByLabel('CSV file', { exact: true }).setInputFiles(csvFile('sets-fictional.csv', setsCsv()));
     expect(await settled('lurk-sets', '#bounds-table tbody tr')).toBe('result');
     expect(await shadowText('lurk-sets', '#sets-counts')).toMatch(/1,500 matched sets/);
+    expect(await shadowText('lurk-sets', '#tipping-gamma')).toMatch(/^\d/);
     expect(workers.some((url) => /setsWorker-[\w-]+\.js$/.test(url))).toBe(true);
   });
 
