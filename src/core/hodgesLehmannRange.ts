@@ -1,6 +1,7 @@
 import type { TailMethod } from './signedRankBound';
 import { biasProbabilities, boundingLowerTailTable } from './signedRankBound';
 import { decimalFraction } from './decimalFraction';
+import { criticalValueByInversion, prepareBernoulliSum, upperTailByInversion, type PreparedBernoulliSum } from './bernoulliSumInversion';
 import { upperNormalQuantile } from './upperNormalTail';
 import { walshMean, type WalshAverages } from './walshAverages';
 
@@ -121,6 +122,16 @@ export function exactCriticalValue(n: number, p: number, q: number, level: numbe
  */
 export function exactCriticalValueAndTail(n: number, p: number, q: number, level: number, t?: number): { critical: number; tail: number | null } {
   const N = (n * (n + 1)) / 2;
+  // Many pairs: the certified inversion (one circle of nodes serves every candidate c); the table otherwise.
+  if (n > INVERSION_PAIRS && p > 0 && q > 0) {
+    const prepared = ranksOneToN(n);
+    // Worth it only while cheaper than the table, whose cost is about n times the region it spans.
+    const critical = prepared ? criticalValueByInversion(prepared, p, q, level, (n * Math.max(16, q * N)) / 20) : null;
+    if (critical !== null) {
+      const tail = t === undefined || !prepared ? null : upperTailByInversion(prepared, t, p, q);
+      return { critical, tail };
+    }
+  }
   const weights = Float64Array.from({ length: n }, (_, i) => i + 1);
   const sd = Math.sqrt(p * q * ((n * (n + 1) * (2 * n + 1)) / 6));
   const z = upperNormalQuantile(level);
@@ -144,6 +155,17 @@ export function exactCriticalValueAndTail(n: number, p: number, q: number, level
     }
     m = Math.min(N, m + Math.max(64, Math.ceil(4 * sd)));
   }
+}
+
+/** Above this many pairs the critical value comes from the inversion (the table costs O(n³)). */
+const INVERSION_PAIRS = 200;
+
+let lastRanks: { n: number; prepared: PreparedBernoulliSum | null } | null = null;
+
+/** The ranks 1…n, prepared for inversion (the last n kept: an analysis asks for many Γ at one n). */
+function ranksOneToN(n: number): PreparedBernoulliSum | null {
+  if (lastRanks?.n !== n) lastRanks = { n, prepared: prepareBernoulliSum(Float64Array.from({ length: n }, (_, i) => i + 1)) };
+  return lastRanks.prepared;
 }
 
 /** c = ⌈μ + cc + z·sd⌉ from the normal approximation to Σ i·Bᵢ (capped at N + 1). */
