@@ -60,6 +60,7 @@ export const JSON_NULL_NOTE =
   'JSON (--json): a number that does not apply or cannot be computed (an interval that was not given, a bound that\n' +
   'does not exist, an E-value too large to represent, a sensitivity value beyond the range searched) is null, never\n' +
   'NaN or Infinity; so is a text field that does not apply (e.g. the interval limit used when there is no interval).\n' +
+  'The plain-language reading is the field reading: {text, sentences} (the sentences in order, and as one text).\n' +
   'Exit status: 0 done; 2 bad input (one line on standard error naming the option).\n';
 
 /** The help text with the figures section ({@link figureHelp}) before the JSON note (or its closing caution). */

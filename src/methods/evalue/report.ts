@@ -2,6 +2,7 @@ import type { EValueCountsResult } from '../../core/eValueAnalysis';
 import type { ReferenceConfounderAssessment } from '../../core/referenceConfounder';
 import type { EValueFormOutcome, EValueSource } from './request';
 import { echoTyped } from '../../format/formatNumber';
+import { jsonReading } from '../jsonReading';
 import type { CommandFigure } from '../methodModule';
 import type { PlotSpec } from '../../plot/plotSpec';
 import { jointStrengthPlot } from './jointStrengthPlot';
@@ -69,7 +70,7 @@ export function eValueJsonReport(input: EValueReportInput) {
       : undefined,
     file: csv ? { rowsUsed: csv.rowsUsed, rowsMissing: csv.rowsMissing, exposure: csv.exposure, outcome: csv.outcome } : undefined,
     referenceConfounders: confounders.map((c) => ({ ...c, sentence: describeReferenceConfounder(c, result) })),
-    reading: { estimate: reading.estimate, interval: reading.interval, sentences: reading.sentences },
+    reading: jsonReading(reading.sentences, { estimate: reading.estimate, interval: reading.interval }),
     caution: reading.caution,
     warnings: result.warnings,
   };

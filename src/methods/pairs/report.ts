@@ -1,9 +1,10 @@
 import type { PairsResult } from '../../core/pairsAnalysis';
 import type { CommandFigure, CommandReport } from '../methodModule';
+import { jsonReading } from '../jsonReading';
 import { amplificationPlot } from './amplificationPlot';
 import { estimateRangePlot } from './estimateRangePlot';
 import { pValueByGammaPlot } from './pValueByGammaPlot';
-import { PAIRS_CAUTION, pairsReportText, pairsResultJson } from './text';
+import { PAIRS_CAUTION, pairsReading, pairsReportText, pairsResultJson } from './text';
 
 /** The figures of `lurk pairs --svg NAME`, in the page's order. */
 export const PAIRS_FIGURES: readonly CommandFigure[] = Object.freeze([
@@ -20,6 +21,7 @@ export const PAIRS_FIGURES: readonly CommandFigure[] = Object.freeze([
 export function pairsReport(result: PairsResult, readWarnings: readonly string[] = [], typedAlpha?: string): CommandReport {
   const json = pairsResultJson(result);
   json.warnings = [...readWarnings, ...result.warnings];
+  json.reading = jsonReading(pairsReading(result, undefined, typedAlpha));
   json.caution = PAIRS_CAUTION;
   const text = readWarnings.map((w) => `Note: ${w}\n`).join('') + pairsReportText(result, undefined, typedAlpha);
   const figures = {

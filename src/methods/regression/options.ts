@@ -82,7 +82,7 @@ Options:
 Earlier names, kept for one release: --k (now --times), --q (--fraction), --r2dz (--confounder-treatment-r2),
 --r2yz (--confounder-outcome-r2).
   --json          one JSON object: estimate, se, t, df, partialR2, rv, rvAlpha, benchmarks [{covariate, k,
-                  r2dz, r2yz, correctedEstimate, correctedSe, correctedT, ...}], extremeScenarios, ...
+                  r2dz, r2yz, correctedEstimate, correctedSe, correctedT, ...}], extremeScenarios, reading, ...
                   (with --sql: {query, table, outcome, treatment, covariates})
 
 Conventions (each report lists the ones that apply):

@@ -1,7 +1,8 @@
 import type { MatchedSetsResult } from '../../core/matchedSetsAnalysis';
 import type { CommandFigure, CommandReport } from '../methodModule';
+import { jsonReading } from '../jsonReading';
 import { setsAmplificationPlot, setsEstimatePlot, setsPValuePlot } from './plots';
-import { SETS_CAUTION, setsReportText, setsResultJson } from './text';
+import { SETS_CAUTION, setsReading, setsReportText, setsResultJson } from './text';
 
 /** The figures of `lurk sets --svg NAME`, in the page's order. */
 export const SETS_FIGURES: readonly CommandFigure[] = Object.freeze([
@@ -18,6 +19,7 @@ export const SETS_FIGURES: readonly CommandFigure[] = Object.freeze([
 export function setsReport(result: MatchedSetsResult, readWarnings: readonly string[] = []): CommandReport {
   const json = setsResultJson(result);
   json.warnings = [...readWarnings, ...result.warnings];
+  json.reading = jsonReading(setsReading(result));
   json.caution = SETS_CAUTION;
   const text = readWarnings.map((w) => `Note: ${w}\n`).join('') + setsReportText(result);
   const figures = {

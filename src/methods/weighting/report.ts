@@ -1,4 +1,5 @@
 import type { CommandFigure, CommandReport } from '../methodModule';
+import { jsonReading } from '../jsonReading';
 import { boundsByLambdaPlot, propensityOverlapPlot, weightSummaryPlot } from './plots';
 import type { WeightingAnalysis } from './analysis';
 import { WEIGHTING_CAUTION, weightingReading, weightingReportText } from './text';
@@ -19,7 +20,7 @@ export function weightingResultJson(analysis: WeightingAnalysis, read: Weighting
     tippingPointStatus: r.tippingPointStatus,
     tippingLambdaInterval: r.tippingLambdaInterval,
     tippingIntervalStatus: r.tippingIntervalStatus,
-    reading: weightingReading(r),
+    reading: jsonReading(weightingReading(r)),
     propensityModel: {
       coefficients: r.propensityModel.coefficients.map((c, i) => ({ name: c.name, value: c.value, standardError: analysis.standardErrors[i] ?? null })),
       iterations: r.propensityModel.iterations,
