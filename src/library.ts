@@ -18,7 +18,9 @@ export { readCsvRows, csvRowBatches } from './data/csvStream';
 
 // The registry of methods and the contract each method fulfils.
 export { METHODS, methodById, methodByCommand } from './methods/registry';
-export type { MethodModule, MethodOutcome, MethodSummary, FormKit, CommandKit, WorkspaceKit, StatementPart, BottomLinePart, FileSource } from './methods/methodModule';
+export type { MethodModule, MethodOutcome, MethodSummary, FormKit, CommandKit, CommandFigure, CommandReport, WorkspaceKit, StatementPart, BottomLinePart, FileSource } from './methods/methodModule';
+// The shape of `reading` in every command's JSON output.
+export type { JsonReading } from './methods/jsonReading';
 
 // E-value: request reader, runner, module.
 export { emptyEValueForm, normaliseEValueForm, evaluateEValueForm, type EValueFormInputs, type EValueFormOutcome } from './methods/evalue/request';

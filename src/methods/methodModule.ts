@@ -1,6 +1,7 @@
 import type { InputProblem } from '../core/inputProblem';
 import type { ByteSource } from '../data/byteSource';
 import type { StudyLabels } from '../format/studyLabels';
+import type { PlotSpec } from '../plot/plotSpec';
 
 /**
  * What one method (E-value, matched pairs, regression, …) gives every face of Lurk. The page's tabs, the
@@ -59,6 +60,11 @@ export interface CommandKit<Form> {
   readonly help: string;
   readonly options: Readonly<Record<string, OptionSpec>>;
   /**
+   * The figures the command can print as SVG (`--svg NAME`; the same figures the page draws), in the order the
+   * page shows them. The command line adds --svg and --svg-width and lists these in the help.
+   */
+  readonly figures: readonly CommandFigure[];
+  /**
    * The form the options give (text as typed). Throws `InputError` with fields named as options
    * (`--counts`) for mixes the form cannot express (two sources at once).
    */
@@ -77,11 +83,25 @@ export interface CommandContext {
   open(path: string): FileSource;
 }
 
-/** A command's output: the report for people, the JSON object for --json, and figures as SVG for --svg. */
+/** A figure of a command's analysis, printed as SVG with `--svg NAME`. */
+export interface CommandFigure {
+  /** The name typed after --svg: a plain word or two for what the figure shows (`p-value`, `overlap`). */
+  readonly name: string;
+  /** What the figure shows, for --help (a short phrase). */
+  readonly shows: string;
+  /** When a result has no such figure (e.g. "there is no tipping Γ"), for the message; omitted when every result has it. */
+  readonly absentWhen?: string;
+}
+
+/**
+ * A command's output: the report for people, the JSON object for --json, and the figures of the analysis by
+ * name (built only when asked for with --svg; a builder gives null when this result has no such figure). A
+ * report without an analysis (a query printed for --sql) has no figures.
+ */
 export interface CommandReport {
   readonly text: string;
   readonly json: unknown;
-  readonly svg?: readonly { readonly name: string; readonly svg: string }[];
+  readonly figures?: Readonly<Record<string, () => PlotSpec | null>>;
 }
 
 /** What a method's reading of a form gives: the result (or null), every problem by field, and whether started. */

@@ -1,11 +1,23 @@
 // Option parsing, file reading and messages shared by every command: one line naming the right option, exit
 // status 2 for bad input (3 for batch/report with problems), never a stack trace, never a terminal escape.
 import { spawnSync } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { runLurk } from '../../src/cli/main';
 import { memoryIo } from '../../src/cli/cliIo';
 import { parseOptions } from '../../src/cli/parseOptions';
 import { buildCliForTest } from '../support/builtCli';
+import { referencePath } from '../support/reference';
+import { readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+
+const setsPath = fileURLToPath(new URL('../files/matched-sets-fictional.csv', import.meta.url));
+const batchPath = fileURLToPath(new URL('../files/batch-findings.csv', import.meta.url));
+const appraisalPath = fileURLToPath(new URL('../files/appraisal-reference.json', import.meta.url));
+/** A made-up 2×2 table as one row per person (fictional): exposure e, outcome o. */
+const people = 'e,o\n' + [...Array(30).fill('1,1'), ...Array(20).fill('1,0'), ...Array(10).fill('0,1'), ...Array(40).fill('0,0')].join('\n') + '\n';
 
 async function lurk(args: string[], files: Record<string, string> = {}) {
   const io = memoryIo(files);
@@ -88,12 +100,123 @@ describe('files and standard input', () => {
   });
 });
 
+/** Every `reading` anywhere in a JSON value. */
+function readingsIn(value: unknown): unknown[] {
+  if (Array.isArray(value)) return value.flatMap(readingsIn);
+  if (value === null || typeof value !== 'object') return [];
+  return Object.entries(value).flatMap(([key, v]) => (key === 'reading' ? [v, ...readingsIn(v)] : readingsIn(v)));
+}
+
+describe('one JSON shape: reading is {text, sentences} in every command', () => {
+  it.each([
+    ['evalue', ['--measure', 'rr', '--estimate', '3.9', '--lower', '1.8', '--upper', '8.7']],
+    ['pairs', ['--file', referencePath('rosenbaum_small_n15.csv'), '--diff', 'd']],
+    ['pairs', ['--discordant', '30,12']],
+    ['sets', ['--file', setsPath, '--set', 'matched_set', '--treated', 'treated', '--outcome', 'outcome']],
+    ['ovb', ['--estimate', '4.18', '--se', '1', '--df', '783']],
+    ['weighting', ['--file', referencePath('weighting_mtcars.csv'), '--treatment', 'am', '--outcome', 'mpg', '--bootstrap', '40']],
+  ])('lurk %s --json', async (command, args) => {
+    const { code, stdout } = await lurk([command, ...(args as string[]), '--json']);
+    expect(code).toBe(0);
+    const json = JSON.parse(stdout);
+    const reading = json.reading;
+    expect(Object.keys(reading).slice(0, 2)).toEqual(['text', 'sentences']);
+    expect(reading.sentences.length).toBeGreaterThan(0);
+    for (const sentence of reading.sentences) expect(typeof sentence).toBe('string');
+    expect(reading.text).toBe(reading.sentences.join(' '));
+    expect(readingsIn(json)).toHaveLength(1);
+  });
+
+  it('the E-value keeps its estimate and interval sentences beside them', async () => {
+    const json = JSON.parse((await lurk(['evalue', '--measure', 'rr', '--estimate', '3.9', '--lower', '1.8', '--upper', '8.7', '--json'])).stdout);
+    // VanderWeele & Ding 2017 worked example: E-values 7.26 and 3.00.
+    expect(json.reading.estimate).toMatch(/at least 7\.26 each/);
+    expect(json.reading.interval).toMatch(/at least 3\.00 each/);
+    expect(json.reading.sentences).toEqual([json.reading.estimate, json.reading.interval]);
+  });
+
+  it('batch --json has no reading of its own, and none of another shape', async () => {
+    const json = JSON.parse((await lurk(['batch', batchPath, '--json', '--keep-going'])).stdout);
+    expect(readingsIn(json)).toEqual([]);
+  });
+});
+
 describe('the built command', () => {
   let cli: { lurk: string; remove(): void };
   beforeAll(async () => {
     cli = await buildCliForTest();
   }, 120_000);
   afterAll(() => cli?.remove());
+
+  const run = (args: string[], input?: string) => spawnSync(process.execPath, [cli.lurk, ...args], { encoding: 'utf8', input });
+
+  // Every option that reads a file reads standard input for "-": the same output as the file by its path.
+  it.each([
+    ['evalue --file', ['evalue', '--exposure', 'e', '--outcome', 'o', '--json'], '--file', null],
+    ['pairs --file', ['pairs', '--diff', 'd', '--json'], '--file', referencePath('rosenbaum_small_n15.csv')],
+    ['sets --file', ['sets', '--set', 'matched_set', '--treated', 'treated', '--outcome', 'outcome', '--json'], '--file', setsPath],
+    ['ovb --file', ['ovb', '--outcome', 'Fertility', '--treatment', 'Education', '--json'], '--file', referencePath('swiss.csv')],
+    ['weighting --file', ['weighting', '--treatment', 'am', '--outcome', 'mpg', '--bootstrap', '40', '--json'], '--file', referencePath('weighting_mtcars.csv')],
+    ['batch FILE', ['batch', '--json', '--keep-going'], '', batchPath],
+    ['report FILE', ['report'], '', appraisalPath],
+  ] as const)('%s -: standard input', (_name, args, option, path) => {
+    const text = path === null ? people : readFileSync(path, 'utf8');
+    const where = (file: string) => (option ? [option, file] : [file]);
+    const fromStdin = run([...args, ...where('-')], text);
+    expect(fromStdin.stderr).toBe('');
+    expect(fromStdin.status).toBe(0);
+    const dir = mkdtempSync(join(tmpdir(), 'lurk-stdin-'));
+    try {
+      const file = join(dir, 'data');
+      writeFileSync(file, text);
+      const fromFile = run([...args, ...where(file)]);
+      expect(fromFile.status).toBe(0);
+      expect(fromStdin.stdout).toBe(fromFile.stdout.split(file).join('standard input'));
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+
+  it('--summary - reads the query result from standard input (evalue; pairs is checked in pairs.test.ts)', () => {
+    const result = run(['evalue', '--summary', '-', '--json'], 'lurk_query,a,b,c,d,rows_missing\nlurk-2x2-counts,30,70,10,90,2\n');
+    expect(result.stderr).toBe('');
+    expect(result.status).toBe(0);
+    expect(JSON.parse(result.stdout).table.counts).toEqual({ a: 30, b: 70, c: 10, d: 90 });
+  });
+
+  it('exit status: 2 for bad input on every command, one line on standard error', () => {
+    for (const args of [
+      ['evalue', '--measure', 'rr', '--estimate', '-1'],
+      ['pairs', '--discordant', '30'],
+      ['sets', '--file', setsPath, '--set', 'nope', '--treated', 'treated', '--outcome', 'outcome'],
+      ['ovb', '--estimate', '1', '--se', '0', '--df', '10'],
+      ['weighting', '--file', referencePath('weighting_mtcars.csv'), '--treatment', 'am', '--outcome', 'mpg', '--lambda', '0.5'],
+      ['batch', 'missing.csv'],
+      ['report', 'missing.json'],
+      ['nonsense'],
+    ]) {
+      const r = run(args);
+      expect(r.status, args.join(' ')).toBe(2);
+      expect(r.stdout, args.join(' ')).toBe('');
+      expect(r.stderr.trimEnd().split('\n'), r.stderr).toHaveLength(1);
+    }
+  });
+
+  it('exit status: 3 when batch rows or report calculators have problems, 0 with --keep-going', () => {
+    const rows = 'measure,estimate\nrr,2\nzz,1\n';
+    const batch = run(['batch', '-'], rows);
+    expect(batch.status).toBe(3);
+    expect(batch.stdout).toMatch(/Problems:/);
+    expect(batch.stderr).toMatch(/^lurk batch: 1 of 2 rows have problems/);
+    expect(run(['batch', '-', '--keep-going'], rows).status).toBe(0);
+    const appraisal = JSON.parse(readFileSync(appraisalPath, 'utf8'));
+    const broken = JSON.stringify({ ...appraisal, calculators: { ...appraisal.calculators, regression: { inputs: { source: 'reported', estimate: 'oops', se: '1', df: '10' }, summary: { kind: 'regression', estimate: 2, se: 1, t: 2, df: 10, q: 1, alpha: 0.05, direction: 'toward-zero', partialR2: 0.29, rv: 0.46, rvAlpha: 0, benchmarks: [] } } } });
+    const report = run(['report', '-'], broken);
+    expect(report.status).toBe(3);
+    expect(report.stderr).toMatch(/^lurk report: calculators\.regression: had a result when saved but gives none now/);
+    expect(run(['report', '-', '--keep-going'], broken).status).toBe(0);
+    expect(run(['report', '-'], readFileSync(appraisalPath, 'utf8')).status).toBe(0);
+  });
 
   it('a missing file is one line and exit 2, never a stack trace (with or without the columns named)', () => {
     for (const args of [['pairs', '--file', 'missing.csv'], ['pairs', '--file', 'missing.csv', '--treated', 'a', '--control', 'b'], ['ovb', '--file', 'missing.csv', '--outcome', 'y', '--treatment', 't']]) {

@@ -7,10 +7,11 @@ import { describe, expect, it } from 'vitest';
 import { runLurk } from '../../src/cli/main';
 import { memoryIo } from '../../src/cli/cliIo';
 import { METHODS } from '../../src/methods/registry';
+import { FIGURE_OPTIONS } from '../../src/cli/figureOutput';
 import { expectCleanText, FUZZ_RUNS, FUZZ_SEED, hostileValue, HOSTILE_NUMBERS, HOSTILE_WORDS } from './hostileInput';
 
 const OPTIONS_OF: Record<string, Record<string, { type: string; short?: string }>> = {
-  ...Object.fromEntries(METHODS.map((m) => [m.command.name, { ...m.command.options, json: { type: 'boolean' } }])),
+  ...Object.fromEntries(METHODS.map((m) => [m.command.name, { ...m.command.options, ...FIGURE_OPTIONS, json: { type: 'boolean' } }])),
   batch: { json: { type: 'boolean' }, csv: { type: 'boolean' }, alpha: { type: 'string' }, 'keep-going': { type: 'boolean' } },
   report: { format: { type: 'string' }, 'bottom-line': { type: 'boolean' }, 'keep-going': { type: 'boolean' } },
 };
@@ -53,7 +54,8 @@ const PLAUSIBLE: Record<string, fc.Arbitrary<string>> = {
   gamma: list(fc.constantFrom('1', '1.5', '2', '3', '0.5', '1e300', '6')),
   k: list(fc.constantFrom('1', '2', '3', '0.5', '1e300', '0')),
   direction: fc.constantFrom('toward-zero', 'away-from-zero'),
-  svg: fc.constantFrom('estimate', 't', 'extreme'),
+  svg: fc.constantFrom(...new Set(METHODS.flatMap((m) => m.command.figures.map((f) => f.name)))),
+  'svg-width': fc.constantFrom('column', 'two-columns'),
   format: fc.constantFrom('md', 'tex', 'html'),
   sql: fc.constantFrom('tbl', 'schema.tbl', 'a"b'),
 };

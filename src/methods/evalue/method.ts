@@ -3,7 +3,7 @@ import { twoByTwoFromStream, type TwoByTwoFromCsv } from './twoByTwoFromCsv';
 import { NUMBER_READING_RULE } from '../../data/numberText';
 import type { CommandContext, MethodModule, OptionValues } from '../methodModule';
 import { eValueBottomLine } from './bottomLine';
-import { eValueJsonReport, eValueTextReport } from './report';
+import { EVALUE_FIGURES, eValueFigures, eValueJsonReport, eValueTextReport } from './report';
 import { emptyEValueForm, evaluateEValueForm, normaliseEValueForm, type EValueFormInputs, type EValueFormOutcome } from './request';
 import { eValueStatement } from './statement';
 import { readEValueSummary, summariseEValue, type EValueSummary } from './summary';
@@ -238,7 +238,7 @@ async function runEValueCommand(form: EValueFormInputs, values: OptionValues, co
   if (outcome.problems.length > 0) throw new InputError(outcome.problems.map((p) => forCommandLine(p, form)));
   if (!outcome.result) throw new InputError([inputProblem('estimate', 'required', 'is required')]);
   const report = { outcome, source: form.source };
-  return { text: eValueTextReport(report), json: eValueJsonReport(report) };
+  return { text: eValueTextReport(report), json: eValueJsonReport(report), figures: eValueFigures(report) };
 }
 
 /**
@@ -320,6 +320,7 @@ export const evalueMethod: MethodModule<EValueFormInputs, EValueFormOutcome, EVa
     options: OPTIONS,
     formFromOptions: eValueFormFromOptions,
     optionOf: eValueOptionOf,
+    figures: EVALUE_FIGURES,
     run: runEValueCommand,
   },
   workspace: {

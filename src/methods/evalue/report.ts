@@ -2,6 +2,10 @@ import type { EValueCountsResult } from '../../core/eValueAnalysis';
 import type { ReferenceConfounderAssessment } from '../../core/referenceConfounder';
 import type { EValueFormOutcome, EValueSource } from './request';
 import { echoTyped } from '../../format/formatNumber';
+import { jsonReading } from '../jsonReading';
+import type { CommandFigure } from '../methodModule';
+import type { PlotSpec } from '../../plot/plotSpec';
+import { jointStrengthPlot } from './jointStrengthPlot';
 import { MEASURE_LABELS, describeEValue, describeReferenceConfounder, formatEValue, formatLevel, formatMeasureValue, formatPlain } from './text';
 
 /** What the reports are built from: the request reader's outcome (with a result) and where the estimate came from. */
@@ -15,6 +19,18 @@ function parts(input: EValueReportInput) {
   if (!result) throw new Error('an E-value report needs a result');
   const confounders = input.outcome.confounders.filter((c): c is ReferenceConfounderAssessment => c !== null);
   return { result, confounders, csv: input.outcome.csv };
+}
+
+/** The figures of `lurk evalue --svg NAME`. */
+export const EVALUE_FIGURES: readonly CommandFigure[] = Object.freeze([
+  { name: 'strengths', shows: 'the pairs of confounder strengths that would explain away the estimate and the interval, with the reference confounders' },
+]);
+
+/** The figures of an E-value result by name (the joint-strength plot the page draws, the file's columns as labels). */
+export function eValueFigures(input: EValueReportInput): Readonly<Record<string, () => PlotSpec | null>> {
+  const { result, confounders, csv } = parts(input);
+  const study = csv ? { exposure: csv.exposure.column, outcome: csv.outcome.column } : undefined;
+  return { strengths: () => jointStrengthPlot(result, { study, confounders }) };
 }
 
 /** The JSON report of `lurk evalue --json`: the inputs echoed, the E-values, the readings and the warnings. */
@@ -54,7 +70,7 @@ export function eValueJsonReport(input: EValueReportInput) {
       : undefined,
     file: csv ? { rowsUsed: csv.rowsUsed, rowsMissing: csv.rowsMissing, exposure: csv.exposure, outcome: csv.outcome } : undefined,
     referenceConfounders: confounders.map((c) => ({ ...c, sentence: describeReferenceConfounder(c, result) })),
-    reading: { estimate: reading.estimate, interval: reading.interval, sentences: reading.sentences },
+    reading: jsonReading(reading.sentences, { estimate: reading.estimate, interval: reading.interval }),
     caution: reading.caution,
     warnings: result.warnings,
   };

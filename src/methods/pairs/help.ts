@@ -41,7 +41,8 @@ Analysis:
   --continuity-correction  subtract ½ from the statistic in the normal approximation
   --zeros Z           signed-rank test: wilcoxon (default: pairs with a zero difference are left out of the test)
                       or pratt (ranked with the others and scored 0); both keep every pair in the estimate
-  --json              print one JSON object (n, sensitivityValue, rows of {gamma, pUpper, pLower}, estimates, ...)
+  --json              print one JSON object (n, sensitivityValue, rows of {gamma, pUpper, pLower}, estimates,
+                      reading, ...)
 
 Conventions (each report lists the ones that apply):
   - Zero differences: left out of the sign test; in the signed-rank test as --zeros says.

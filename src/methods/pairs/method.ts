@@ -3,7 +3,7 @@ import type { CommandContext, CommandReport, MethodModule, OptionValues } from '
 import { pairsBottomLine } from './bottomLine';
 import { PAIRS_HELP } from './help';
 import { pairsFromCsvStream, type PairsRead } from './pairsFromCsv';
-import { pairsReport } from './report';
+import { PAIRS_FIGURES, pairsReport } from './report';
 import { emptyPairsForm, normalisePairsForm, pairsColumnsOf, readPairsSettings, type PairsFormInputs } from './request';
 import { analysePairsForm, type PairsOutcome } from './runner';
 import { pairsStatement } from './statement';
@@ -196,6 +196,7 @@ export const pairsMethod: MethodModule<PairsFormInputs, PairsOutcome, PairsSumma
     options: OPTIONS,
     formFromOptions: pairsFormFromOptions,
     optionOf: (field) => pairsOptionOf(field),
+    figures: PAIRS_FIGURES,
     run: runPairsCommand,
   },
   workspace: {

@@ -1,16 +1,13 @@
 import { InputError, inputProblem } from '../../core/inputProblem';
-import { fieldReader } from '../fieldReader';
 import type { CommandContext, CommandReport, FileSource, MethodModule, OptionValues } from '../methodModule';
 import { ovbBottomLine } from './bottomLine';
 import { fitFileStream, type FittedFile } from './fileFit';
 import { OVB_HELP, OVB_OPTIONS, ovbFormFromOptions, ovbOptionOf } from './options';
-import { ovbCommandReport, ovbSqlReport, ovbSvgReport, type OvbDataOrigin } from './report';
+import { OVB_FIGURES, ovbCommandReport, ovbSqlReport, type OvbDataOrigin } from './report';
 import { emptyOvbForm, evaluateOvbForm, normaliseOvbForm, ovbSummarySql, type OvbFormInputs, type OvbFormOutcome } from './request';
 import { ovbStatement } from './statement';
 import { ovbSummary, readOvbSummary, type OvbSummary } from './summary';
 import { isInlineResult, readSummaryArgument } from '../summaryArgument';
-
-const PLOTS = ['estimate', 't', 'extreme'] as const;
 
 /** The regression (omitted-variable bias in partial R²) method: form, command `lurk ovb` and workspace part. */
 export const regressionMethod: MethodModule<OvbFormInputs, OvbFormOutcome, OvbSummary> = {
@@ -33,6 +30,7 @@ export const regressionMethod: MethodModule<OvbFormInputs, OvbFormOutcome, OvbSu
     options: OVB_OPTIONS,
     formFromOptions: ovbFormFromOptions,
     optionOf: ovbOptionOf,
+    figures: OVB_FIGURES,
     run: runOvbCommand,
   },
   workspace: {
@@ -49,12 +47,8 @@ export const regressionMethod: MethodModule<OvbFormInputs, OvbFormOutcome, OvbSu
   },
 };
 
-/** `lurk ovb`: the query for --sql, else the analysis of the form (and its file) as a report or a plot. */
+/** `lurk ovb`: the query for --sql, else the analysis of the form (and its file) as a report with its figures. */
 async function runOvbCommand(form: OvbFormInputs, values: OptionValues, context: CommandContext): Promise<CommandReport> {
-  const reader = fieldReader();
-  const plot = typeof values.svg === 'string' ? reader.choice('--svg', values.svg, PLOTS) : null;
-  if (reader.problems.length > 0) throw new InputError(reader.problems);
-  if (plot && values.json) throw new InputError([inputProblem('--svg', 'usage', 'cannot be combined with --json')]);
   if (values.sql !== undefined) {
     const read = (form.summaryLevels ?? '') !== '' ? { ...form, summaryLevels: await readSummaryArgument(form.summaryLevels ?? '', context, 'summaryLevels') } : form;
     const { sql, problem, stage } = ovbSummarySql(read);
@@ -78,7 +72,6 @@ async function runOvbCommand(form: OvbFormInputs, values: OptionValues, context:
     : form.source === 'summary'
       ? { kind: 'summary', path: isInlineResult(form.fileName) ? 'the result given to --summary' : form.fileName, n: outcome.regression?.n ?? 0, outcome: form.outcome, treatment: form.treatment, covariates: covariatesOf(form) }
       : { kind: 'reported', typed: { estimate: form.estimate, se: form.se } };
-  if (plot) return ovbSvgReport(outcome.result, origin, plot);
   const report = ovbCommandReport(outcome.result, origin, { q: form.q, alpha: form.alpha });
   const notes = earlierNamesUsed(values);
   return notes.length === 0 ? report : { ...report, text: `${report.text}\n${notes.join('\n')}\n` };

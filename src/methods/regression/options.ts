@@ -5,7 +5,7 @@ import { SUMMARY_ARGUMENT_RULE } from '../summaryArgument';
 import type { OptionSpec, OptionValues } from '../methodModule';
 import { emptyOvbForm, type CovariateR2Text, type CovariateTText, type OvbFormInputs } from './request';
 
-/** The options of `lurk ovb` (every one fills a form field, except --svg, an output choice). */
+/** The options of `lurk ovb` (every one fills a form field; --json, --svg and --svg-width are added by the command line). */
 export const OVB_OPTIONS: Readonly<Record<string, OptionSpec>> = {
   estimate: { type: 'string' },
   se: { type: 'string' },
@@ -35,7 +35,6 @@ export const OVB_OPTIONS: Readonly<Record<string, OptionSpec>> = {
   'confounder-outcome-r2': { type: 'string' },
   r2dz: { type: 'string' },
   r2yz: { type: 'string' },
-  svg: { type: 'string' },
 };
 
 export const OVB_HELP = `lurk ovb — how strong would an omitted confounder have to be to overturn a regression estimate?
@@ -83,10 +82,8 @@ Options:
 Earlier names, kept for one release: --k (now --times), --q (--fraction), --r2dz (--confounder-treatment-r2),
 --r2yz (--confounder-outcome-r2).
   --json          one JSON object: estimate, se, t, df, partialR2, rv, rvAlpha, benchmarks [{covariate, k,
-                  r2dz, r2yz, correctedEstimate, correctedSe, correctedT, ...}], extremeScenarios, ...
+                  r2dz, r2yz, correctedEstimate, correctedSe, correctedT, ...}], extremeScenarios, reading, ...
                   (with --sql: {query, table, outcome, treatment, covariates})
-  --svg PLOT      print a plot as SVG instead of the report: estimate (contours of the adjusted estimate),
-                  t (contours of the adjusted t) or extreme (extreme scenarios); e.g. --svg t > contours.svg
 
 Conventions (each report lists the ones that apply):
   - The partial R² and RV_q use the residual degrees of freedom df; the significance threshold (RV_q,α and the

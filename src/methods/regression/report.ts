@@ -1,7 +1,6 @@
 import type { OvbResult } from '../../core/ovbAnalysis';
 import type { StudyLabels } from '../../format/studyLabels';
-import { renderSvgString } from '../../plot/svgString';
-import type { CommandReport } from '../methodModule';
+import type { CommandFigure, CommandReport } from '../methodModule';
 import type { RegressionData } from './regressionData';
 import { ovbJson, ovbReport } from './text';
 import { ovbContourPlot } from './ovbContourPlot';
@@ -13,22 +12,26 @@ export type OvbDataOrigin =
   | { readonly kind: 'file'; readonly path: string; readonly data: RegressionData }
   | { readonly kind: 'summary'; readonly path: string; readonly n: number; readonly outcome: string; readonly treatment: string; readonly covariates: readonly string[] };
 
+/** The figures of `lurk ovb --svg NAME`, in the page's order. */
+export const OVB_FIGURES: readonly CommandFigure[] = Object.freeze([
+  { name: 'estimate', shows: 'contours of the adjusted estimate by the confounder’s partial R² with treatment and outcome' },
+  { name: 't', shows: 'contours of the adjusted t-statistic, with the significance threshold' },
+  { name: 'extreme', shows: 'the adjusted estimate if the confounder explained much of the outcome (extreme scenarios)' },
+]);
+
 /**
- * The report of an analysis: the text for people and the JSON object (every field of the command's JSON).
- * `settings` are q and α as typed, echoed with the precision typed.
+ * The report of an analysis: the text for people, the JSON object (every field of the command's JSON) and the
+ * figures (with the data's columns as labels). `settings` are q and α as typed, echoed with the precision typed.
  */
 export function ovbCommandReport(result: OvbResult, origin: OvbDataOrigin, settings: { readonly q?: string; readonly alpha?: string } = {}): CommandReport {
   const { dataNote, study, extra } = describeOrigin(origin);
   const typed = { ...(origin.kind === 'reported' ? origin.typed : {}), ...settings };
-  return { text: ovbReport(result, { dataNote, study, typed }), json: JSON.parse(ovbJson(result, extra)) as unknown };
-}
-
-/** One plot of an analysis as SVG: contours of the adjusted estimate or t, or the extreme scenarios. */
-export function ovbSvgReport(result: OvbResult, origin: OvbDataOrigin, plot: 'estimate' | 't' | 'extreme'): CommandReport {
-  const { study } = describeOrigin(origin);
-  const spec = plot === 'extreme' ? ovbExtremeScenarioPlot(result, { study }) : ovbContourPlot(result, { kind: plot, study });
-  const svg = renderSvgString(spec, { includeTitle: true });
-  return { text: svg + '\n', json: { plot, svg }, svg: [{ name: plot, svg }] };
+  const figures = {
+    estimate: () => ovbContourPlot(result, { kind: 'estimate', study }),
+    t: () => ovbContourPlot(result, { kind: 't', study }),
+    extreme: () => ovbExtremeScenarioPlot(result, { study }),
+  };
+  return { text: ovbReport(result, { dataNote, study, typed }), json: JSON.parse(ovbJson(result, extra)) as unknown, figures };
 }
 
 /** The summary-statistics query to run in a database, as text and as JSON. */

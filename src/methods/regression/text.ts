@@ -1,6 +1,7 @@
 import type { OvbBenchmarkRow, OvbResult } from '../../core/ovbAnalysis';
 import { echoTyped, formatNumber, formatPercent, withoutRoundingNoise } from '../../format/formatNumber';
 import { exposureLabel, outcomeLabel, unitsSuffix, type StudyLabels } from '../../format/studyLabels';
+import { jsonReading } from '../jsonReading';
 
 /** The caution that goes with every omitted-variable-bias report. */
 export const OVB_CAUTION =
@@ -285,7 +286,7 @@ export function ovbJson(result: OvbResult, extra: Record<string, unknown> = {}):
     extremeScenarios: result.extremeScenarios,
     scenario: result.scenario,
     ...extra,
-    reading: ovbReading(result).join(' '),
+    reading: jsonReading(ovbReading(result)),
     warnings: shownWarnings(result),
     method: result.method,
     references: result.references,

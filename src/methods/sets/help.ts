@@ -27,7 +27,7 @@ Analysis:
   --tail T            binary outcomes: exact (default) or normal; continuous outcomes always use the normal
                       approximation
   --json              print one JSON object (counts, sensitivityValue, rows of {gamma, pUpper, pLower, ...},
-                      estimates, amplification, conventions, warnings, references)
+                      estimates, amplification, reading, conventions, warnings, references)
 
 Conventions (continuous outcome: Rosenbaum's m-statistic, separable approximation):
   σ, the scale: the median of |treated − control| over all sets and all their controls, computed once at no effect.

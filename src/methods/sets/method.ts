@@ -2,7 +2,7 @@ import { InputError, inputProblem } from '../../core/inputProblem';
 import type { CommandContext, CommandReport, MethodModule, OptionValues } from '../methodModule';
 import { setsBottomLine } from './bottomLine';
 import { SETS_HELP } from './help';
-import { setsReport } from './report';
+import { SETS_FIGURES, setsReport } from './report';
 import { emptySetsForm, normaliseSetsForm, setsColumnsOf, setsSettingsProblems, validateSetsColumnsOfForm, type SetsFormInputs } from './request';
 import { analyseSetsForm, type SetsOutcome } from './runner';
 import { setsFromCsvStream, type SetsRead } from './setsFromCsv';
@@ -113,6 +113,7 @@ export const setsMethod: MethodModule<SetsFormInputs, SetsOutcome, SetsSummary> 
     options: OPTIONS,
     formFromOptions: setsFormFromOptions,
     optionOf: setsOptionOf,
+    figures: SETS_FIGURES,
     run: runSetsCommand,
   },
   workspace: {

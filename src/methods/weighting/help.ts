@@ -33,7 +33,7 @@ Analysis:
   --json              one JSON object: estimate, rows [{lambda, lowestEffect, highestEffect, intervalLow,
                       intervalHigh}], tippingLambdaPoint, tippingPointStatus, tippingLambdaInterval,
                       tippingIntervalStatus, propensityModel {coefficients [{name, value, standardError}],
-                      iterations, converged}, overlap, weights, counts, conventions, warnings, ...
+                      iterations, converged}, overlap, weights, counts, reading, conventions, warnings, ...
 
 Conventions:
   - Propensity model: logistic regression with an intercept, Newton/IRLS with R's glm stopping rule

@@ -3,7 +3,7 @@ import type { CommandContext, CommandReport, MethodModule, OptionValues } from '
 import { finishAnalysis, prepareFromRead } from './analysis';
 import { weightingBottomLine } from './bottomLine';
 import { WEIGHTING_HELP } from './help';
-import { weightingReport } from './report';
+import { WEIGHTING_FIGURES, weightingReport } from './report';
 import { emptyWeightingForm, normaliseWeightingForm, readWeightingSettings, type WeightingFormInputs } from './request';
 import type { WeightingOutcome } from './runner';
 import { weightingStatement } from './statement';
@@ -120,6 +120,7 @@ export const weightingMethod: MethodModule<WeightingFormInputs, WeightingOutcome
     options: OPTIONS,
     formFromOptions: weightingFormFromOptions,
     optionOf: weightingOptionOf,
+    figures: WEIGHTING_FIGURES,
     run: runWeightingCommand,
   },
   workspace: {

@@ -1,4 +1,6 @@
-import type { CommandReport } from '../methodModule';
+import type { CommandFigure, CommandReport } from '../methodModule';
+import { jsonReading } from '../jsonReading';
+import { boundsByLambdaPlot, propensityOverlapPlot, weightSummaryPlot } from './plots';
 import type { WeightingAnalysis } from './analysis';
 import { WEIGHTING_CAUTION, weightingReading, weightingReportText } from './text';
 import type { WeightingReadSummary } from './weightingData';
@@ -18,7 +20,7 @@ export function weightingResultJson(analysis: WeightingAnalysis, read: Weighting
     tippingPointStatus: r.tippingPointStatus,
     tippingLambdaInterval: r.tippingLambdaInterval,
     tippingIntervalStatus: r.tippingIntervalStatus,
-    reading: weightingReading(r),
+    reading: jsonReading(weightingReading(r)),
     propensityModel: {
       coefficients: r.propensityModel.coefficients.map((c, i) => ({ name: c.name, value: c.value, standardError: analysis.standardErrors[i] ?? null })),
       iterations: r.propensityModel.iterations,
@@ -35,7 +37,16 @@ export function weightingResultJson(analysis: WeightingAnalysis, read: Weighting
   };
 }
 
-/** The command's report: text for people and the JSON object. */
+/** The figures of `lurk weighting --svg NAME`, in the page's order. */
+export const WEIGHTING_FIGURES: readonly CommandFigure[] = Object.freeze([
+  { name: 'bounds', shows: 'the lowest and highest effect and the sensitivity interval against Λ, with the tipping Λ' },
+  { name: 'overlap', shows: 'the estimated propensity scores of the treated and the untreated' },
+  { name: 'weights', shows: 'the smallest, mean and largest weight of each group' },
+]);
+
+/** The command's report: text for people, the JSON object and the figures. */
 export function weightingReport(analysis: WeightingAnalysis, read: WeightingReadSummary | null): CommandReport {
-  return Object.freeze({ text: weightingReportText(analysis, read), json: weightingResultJson(analysis, read) });
+  const r = analysis.result;
+  const figures = { bounds: () => boundsByLambdaPlot(r), overlap: () => propensityOverlapPlot(r), weights: () => weightSummaryPlot(r) };
+  return Object.freeze({ text: weightingReportText(analysis, read), json: weightingResultJson(analysis, read), figures });
 }

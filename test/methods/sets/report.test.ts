@@ -21,7 +21,7 @@ describe('JSON report', () => {
     const setsJson = setsReport(analyse('fictional_d_large_effect')).json as Record<string, unknown>;
     const shared = pairsKeys.filter((k) => k in setsJson);
     expect(shared).toEqual(
-      ['method', 'alternative', 'alpha', 'tailMethod', 'statistic', 'pValue', 'sensitivityValue', 'sensitivityStatus', 'searchedUpTo', 'rows', 'estimate', 'conventions', 'intervalLevel', 'estimates', 'amplification', 'warnings', 'notes', 'references', 'caution'],
+      ['method', 'alternative', 'alpha', 'tailMethod', 'statistic', 'pValue', 'sensitivityValue', 'sensitivityStatus', 'searchedUpTo', 'rows', 'estimate', 'conventions', 'intervalLevel', 'estimates', 'amplification', 'warnings', 'notes', 'references', 'reading', 'caution'],
     );
     expect(Object.keys(setsJson).filter((k) => pairsKeys.includes(k))).toEqual(shared);
     expect(Object.keys((setsJson.rows as object[])[0])).toEqual(['gamma', 'pUpper', 'pLower', 'expectation', 'variance']);
