@@ -1,11 +1,17 @@
-// Speed of the exact matched-pairs analysis against the normal approximation of the same (invented) data, and
-// of the sign test at a billion discordant pairs. Prints the exact/normal ratio of mean times after each group.
+// Speed of the exact matched-pairs analysis against the normal approximation of the same (invented, fictional)
+// data: in process (analysePairs, mean of runs after a warm-up) and as whole processes of the built CLI
+// (`lurk pairs --file … --diff d --method exact|normal --json`, median wall time of 5 runs each), at 1,000 pairs
+// with ties, 2,000 and 5,000 pairs; and the sign test at a billion discordant pairs. Prints the exact/normal
+// ratios after each group. Measures only; asserts nothing.
 // Run: npx vitest bench --run --project unit bench/pairsExact.bench.ts
-// The 5,000-pair exact run takes many minutes with the present dynamic program; it runs only when
-// LURK_BENCH_LARGE=1 is set.
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { afterAll, bench, describe } from 'vitest';
 import { analysePairs } from '../src/core/pairsAnalysis';
 import { signTestBound } from '../src/core/signTestBound';
+import { buildCliForTest } from '../test/support/builtCli';
 
 /** A reproducible stream of numbers in [0, 1) (linear congruential; invented data only). */
 function random(seed: number): () => number {
@@ -19,8 +25,15 @@ function random(seed: number): () => number {
 const next = random(20261202);
 /** Differences rounded to 0.1 (many tied magnitudes and some zeros); a modest effect. */
 const tied1000 = Array.from({ length: 1000 }, () => Math.round((next() - 0.44) * 40) / 10);
-/** Continuous differences with an effect that keeps the sensitivity value near 1.3 at each size. */
+/** Continuous differences with an effect that keeps the sensitivity value near 1.1–1.3 at each size. */
 const continuous = (n: number) => Array.from({ length: n }, () => next() - 0.5 + 1.3 / Math.sqrt(n));
+
+const folder = mkdtempSync(join(tmpdir(), 'lurk-pairs-bench-'));
+const cli = await buildCliForTest();
+afterAll(() => {
+  cli.remove();
+  rmSync(folder, { recursive: true, force: true });
+});
 
 const timings = new Map<string, number[]>();
 function timed(key: string, run: () => unknown): () => void {
@@ -33,36 +46,53 @@ function timed(key: string, run: () => unknown): () => void {
   };
 }
 const mean = (xs: number[] | undefined) => (xs && xs.length ? xs.reduce((a, b) => a + b, 0) / xs.length : NaN);
+/** One run of a reporting bench (no warm-up, no time-based repetition). */
+const ONCE = { iterations: 1, warmupIterations: 0, time: 0, warmupTime: 0 };
+const printed = new Set<string>();
+/** Prints a line once, however often the bench runner repeats the task. */
+const printOnce = (key: string, line: () => string) => {
+  if (printed.has(key)) return;
+  printed.add(key);
+  console.log(line());
+};
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 
-const cases: [string, number[], boolean][] = [
-  ['1,000 pairs with ties', tied1000, true],
-  ['2,000 pairs', continuous(2000), true],
-  ['5,000 pairs', continuous(5000), process.env.LURK_BENCH_LARGE === '1'],
+/** Median wall time (ms) of whole `lurk pairs` processes on one file. */
+function wholeProcess(file: string, method: 'exact' | 'normal', runs = 5): number {
+  const times: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const started = performance.now();
+    const run = spawnSync('node', [cli.lurk, 'pairs', '--file', file, '--diff', 'd', '--method', method, '--json'], { encoding: 'utf8', maxBuffer: 1 << 26 });
+    times.push(performance.now() - started);
+    if (run.status !== 0) throw new Error(`lurk pairs failed: ${run.stderr}`);
+  }
+  return median(times);
+}
+
+const cases: [string, number[]][] = [
+  ['1,000 pairs with ties', tied1000],
+  ['2,000 pairs', continuous(2000)],
+  ['5,000 pairs', continuous(5000)],
 ];
 
-for (const [label, differences, runExact] of cases) {
+for (const [label, differences] of cases) {
   describe(`whole pairs analysis, ${label}`, () => {
     const data = { kind: 'differences' as const, differences };
-    bench('normal approximation', timed(`${label} normal`, () => analysePairs({ data, method: 'normal' })), {
-      iterations: 3,
-      warmupIterations: 1,
-      time: 0,
-    });
-    if (runExact) {
-      bench('exact bounding distributions', timed(`${label} exact`, () => analysePairs({ data, method: 'exact' })), {
-        iterations: 1,
-        warmupIterations: 0,
-        time: 0,
-      });
-    }
-    afterAll(() => {
+    const options = { iterations: 3, warmupIterations: 1, time: 0 };
+    bench('normal approximation (in process)', timed(`${label} normal`, () => analysePairs({ data, method: 'normal' })), options);
+    bench('exact bounding distributions (in process)', timed(`${label} exact`, () => analysePairs({ data, method: 'exact' })), options);
+    bench('whole CLI processes, exact against normal (5 runs each, medians)', () => printOnce(label, () => {
+      const file = join(folder, `${label.replace(/\W+/g, '-')}.csv`);
+      writeFileSync(file, `d\n${differences.join('\n')}\n`);
+      const normalProcess = wholeProcess(file, 'normal');
+      const exactProcess = wholeProcess(file, 'exact');
       const normal = mean(timings.get(`${label} normal`));
       const exact = mean(timings.get(`${label} exact`));
-      console.log(
-        `${label}: normal ${normal.toFixed(0)} ms, exact ${Number.isFinite(exact) ? exact.toFixed(0) + ' ms' : 'not run'}` +
-          (Number.isFinite(exact) ? `, exact/normal = ${(exact / normal).toFixed(1)}` : ''),
+      return (
+        `${label}: in process normal ${normal.toFixed(0)} ms, exact ${exact.toFixed(0)} ms, exact/normal = ${(exact / normal).toFixed(2)}; ` +
+          `whole CLI process normal ${normalProcess.toFixed(0)} ms, exact ${exactProcess.toFixed(0)} ms, exact/normal = ${(exactProcess / normalProcess).toFixed(2)}`
       );
-    });
+    }), ONCE);
   });
 }
 
@@ -79,7 +109,7 @@ describe('sign test at a billion discordant pairs', () => {
     timed('sign analysis', () => analysePairs({ data: { kind: 'discordant', treatedOnly: 1_000_000_000, controlOnly: 999_000_000 } })),
     { iterations: 5, warmupIterations: 1, time: 0 },
   );
-  afterAll(() => {
-    console.log(`sign test, 3 Γ: ${mean(timings.get('sign')).toFixed(3)} ms; whole analysis: ${mean(timings.get('sign analysis')).toFixed(1)} ms`);
-  });
+  bench('report', () => printOnce('sign', () => {
+    return `sign test, 3 Γ: ${mean(timings.get('sign')).toFixed(3)} ms; whole analysis: ${mean(timings.get('sign analysis')).toFixed(1)} ms`;
+  }), ONCE);
 });

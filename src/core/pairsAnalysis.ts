@@ -125,7 +125,7 @@ export interface PairsResult {
 }
 
 /** Above this many non-zero pairs the exact plotting curve is not computed (the table rows are drawn). */
-const CURVE_EXACT_LIMIT = 300;
+const CURVE_EXACT_LIMIT = 5000;
 
 /**
  * The one rule for `method: 'auto'` with the signed-rank test: exact bounding distributions when the number
@@ -135,7 +135,7 @@ const CURVE_EXACT_LIMIT = 300;
  * (`tailMethod` on the result). The error of the approximation beyond the limit is measured at
  * `NORMAL_APPROXIMATION_MEASURED_ERROR` (signedRankBound.ts). The sign test is always exact (constant cost).
  */
-export const EXACT_PAIRS_LIMIT = 1000;
+export const EXACT_PAIRS_LIMIT = 5000;
 
 /** The works the matched-pairs analysis follows (also what the robustness statement cites). */
 export const PAIRS_ANALYSIS_REFERENCES = Object.freeze([
@@ -400,8 +400,8 @@ export function analysePairs(input: PairsInput): PairsResult {
   }
   const tipping = tippingGamma(upperAt, alpha, {
     guess: normalGuess,
-    // Finer than the 3 decimals shown; the exact search at many pairs stops a little earlier (each step costs).
-    tolerance: nonZero <= CURVE_EXACT_LIMIT || tailMethod === 'normal' ? 1e-10 : 1e-7,
+    // Finer than the 3 decimals shown.
+    tolerance: 1e-10,
     model: tailMethod === 'exact' ? upperAtNormal : undefined,
   });
   const signTipping =

@@ -92,42 +92,45 @@ export interface NormalErrorPoint {
 /**
  * The measured relative error of the normal approximation to the upper p-value bound of the signed-rank test,
  * for untied ranks 1…n at T = round(mean + z·sd), z = 1.6449 (p ≈ 0.05) and 2.5758 (p ≈ 0.005), against the
- * exact bounding distribution (`weightedBernoulliSumUpperTail`). The error comes from the skewness of
+ * exact bounding distribution (`weightedBernoulliSumUpperTail`, by inversion at these sizes; at 5,000 pairs it
+ * reproduced the figures the dynamic program gave to every printed digit). The error comes from the skewness of
  * Σ i·Bᵢ when Γ > 1 and shrinks roughly as 1/√n; the approximation overstates the upper bound (errs on the
  * cautious side) except at Γ = 1, where it is tiny. A continuity correction of ½ changes these figures by
  * less than 1e-4. `atAlpha05` / `atAlpha005`: the largest |relative error| in the table at p ≈ 0.05 / 0.005.
  * Measured with Lurk's own kernels (no outside source).
  */
 export const NORMAL_APPROXIMATION_MEASURED_ERROR = Object.freeze({
-  atAlpha05: 0.0141,
-  atAlpha005: 0.0716,
+  atAlpha05: 0.00701,
+  atAlpha005: 0.0339,
+  /** The smallest number of pairs measured: the approximation is used above `EXACT_PAIRS_LIMIT` (pairsAnalysis.ts). */
+  fromPairs: 6000,
   nearAlpha05: Object.freeze<NormalErrorPoint[]>([
-    { pairs: 1500, gamma: 1, exact: 0.050001, relativeError: -1.6e-4 },
-    { pairs: 1500, gamma: 1.2, exact: 0.049822, relativeError: 3.5e-3 },
-    { pairs: 1500, gamma: 1.5, exact: 0.049599, relativeError: 8.0e-3 },
-    { pairs: 1500, gamma: 2, exact: 0.049301, relativeError: 1.41e-2 },
-    { pairs: 3000, gamma: 1, exact: 0.049999, relativeError: -7.2e-5 },
-    { pairs: 3000, gamma: 1.2, exact: 0.049873, relativeError: 2.5e-3 },
-    { pairs: 3000, gamma: 1.5, exact: 0.049714, relativeError: 5.7e-3 },
-    { pairs: 3000, gamma: 2, exact: 0.049502, relativeError: 9.9e-3 },
-    { pairs: 5000, gamma: 1, exact: 0.049997, relativeError: -4.0e-5 },
-    { pairs: 5000, gamma: 1.2, exact: 0.049899, relativeError: 1.93e-3 },
-    { pairs: 5000, gamma: 1.5, exact: 0.049776, relativeError: 4.39e-3 },
-    { pairs: 5000, gamma: 2, exact: 0.049614, relativeError: 7.68e-3 },
+    { pairs: 6000, gamma: 1, exact: 0.049997, relativeError: -3.27e-05 },
+    { pairs: 6000, gamma: 1.2, exact: 0.049907, relativeError: 0.00177 },
+    { pairs: 6000, gamma: 1.5, exact: 0.049795, relativeError: 0.00401 },
+    { pairs: 6000, gamma: 2, exact: 0.049647, relativeError: 0.00701 },
+    { pairs: 10000, gamma: 1, exact: 0.049996, relativeError: -1.86e-05 },
+    { pairs: 10000, gamma: 1.2, exact: 0.049926, relativeError: 0.00138 },
+    { pairs: 10000, gamma: 1.5, exact: 0.04984, relativeError: 0.00311 },
+    { pairs: 10000, gamma: 2, exact: 0.049726, relativeError: 0.00542 },
+    { pairs: 20000, gamma: 1, exact: 0.049996, relativeError: -8.75e-06 },
+    { pairs: 20000, gamma: 1.2, exact: 0.049946, relativeError: 0.000976 },
+    { pairs: 20000, gamma: 1.5, exact: 0.049886, relativeError: 0.0022 },
+    { pairs: 20000, gamma: 2, exact: 0.049805, relativeError: 0.00383 },
   ]),
   nearAlpha005: Object.freeze<NormalErrorPoint[]>([
-    { pairs: 1500, gamma: 1, exact: 0.0049874, relativeError: 2.6e-3 },
-    { pairs: 1500, gamma: 1.2, exact: 0.0049038, relativeError: 1.96e-2 },
-    { pairs: 1500, gamma: 1.5, exact: 0.0048015, relativeError: 4.14e-2 },
-    { pairs: 1500, gamma: 2, exact: 0.0046666, relativeError: 7.16e-2 },
-    { pairs: 3000, gamma: 1, exact: 0.0049939, relativeError: 1.33e-3 },
-    { pairs: 3000, gamma: 1.2, exact: 0.0049350, relativeError: 1.33e-2 },
-    { pairs: 3000, gamma: 1.5, exact: 0.0048626, relativeError: 2.84e-2 },
-    { pairs: 3000, gamma: 2, exact: 0.0047667, relativeError: 4.90e-2 },
-    { pairs: 5000, gamma: 1, exact: 0.0049964, relativeError: 8.0e-4 },
-    { pairs: 5000, gamma: 1.2, exact: 0.0049508, relativeError: 1.00e-2 },
-    { pairs: 5000, gamma: 1.5, exact: 0.0048946, relativeError: 2.16e-2 },
-    { pairs: 5000, gamma: 2, exact: 0.0048203, relativeError: 3.74e-2 },
+    { pairs: 6000, gamma: 1, exact: 0.0049971, relativeError: 0.000667 },
+    { pairs: 6000, gamma: 1.2, exact: 0.0049555, relativeError: 0.00906 },
+    { pairs: 6000, gamma: 1.5, exact: 0.0049042, relativeError: 0.0196 },
+    { pairs: 6000, gamma: 2, exact: 0.0048363, relativeError: 0.0339 },
+    { pairs: 10000, gamma: 1, exact: 0.0049984, relativeError: 0.000401 },
+    { pairs: 10000, gamma: 1.2, exact: 0.0049662, relativeError: 0.00689 },
+    { pairs: 10000, gamma: 1.5, exact: 0.0049264, relativeError: 0.015 },
+    { pairs: 10000, gamma: 2, exact: 0.0048739, relativeError: 0.026 },
+    { pairs: 20000, gamma: 1, exact: 0.0049994, relativeError: 0.000201 },
+    { pairs: 20000, gamma: 1.2, exact: 0.0049767, relativeError: 0.00478 },
+    { pairs: 20000, gamma: 1.5, exact: 0.0049485, relativeError: 0.0105 },
+    { pairs: 20000, gamma: 2, exact: 0.0049113, relativeError: 0.0181 },
   ]),
 });
 

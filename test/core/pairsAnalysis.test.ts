@@ -61,8 +61,9 @@ describe('reference values through the whole analysis', () => {
     });
   });
 
-  test('more than 1,000 non-zero pairs use the normal approximation under auto', () => {
-    const d = Array.from({ length: 1200 }, (_, i) => Math.sin(i * 3.7) + 0.2);
+  test(`more than ${EXACT_PAIRS_LIMIT} pairs use the normal approximation under auto, up to that many the exact tails`, () => {
+    const d = Array.from({ length: EXACT_PAIRS_LIMIT + 1 }, (_, i) => Math.sin(i * 3.7) + 0.2);
+    expect(analysePairs({ data: { kind: 'differences', differences: d.slice(0, EXACT_PAIRS_LIMIT) }, gammas: [1, 2] }).tailMethod).toBe('exact');
     const result = analysePairs({ data: { kind: 'differences', differences: d }, gammas: [1, 2] });
     expect(result.tailMethod).toBe('normal');
     expect(result.tailMethodReason).toMatch(/normal approximation/);

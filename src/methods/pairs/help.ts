@@ -37,7 +37,7 @@ Analysis:
   --gamma G1,G2,...   the Γ values to tabulate, each 1 or more (default: from 1 to just past the tipping point)
   --method M          exact or normal (default: exact up to ${EXACT_PAIRS_LIMIT.toLocaleString('en-US')} pairs, zero differences included;
                       the normal approximation beyond, whose relative error near p = 0.05 was measured at up to
-                      ${percent(NORMAL_APPROXIMATION_MEASURED_ERROR.atAlpha05)} for Γ ≤ 2 and 1,500 pairs or more, on the cautious side)
+                      ${percent(NORMAL_APPROXIMATION_MEASURED_ERROR.atAlpha05)} for Γ ≤ 2 and ${NORMAL_APPROXIMATION_MEASURED_ERROR.fromPairs.toLocaleString('en-US')} pairs or more, on the cautious side)
   --continuity-correction  subtract ½ from the statistic in the normal approximation
   --zeros Z           signed-rank test: wilcoxon (default: pairs with a zero difference are left out of the test)
                       or pratt (ranked with the others and scored 0); both keep every pair in the estimate

@@ -1,6 +1,6 @@
 /// <reference lib="webworker" />
 // The Web Worker that reads a large CSV of pairs in chunks and runs the matched-pairs analysis, so the page
-// stays responsive (exact tails for 1,000 pairs take seconds). Started by runPairsInWorker (pairsWorkerClient.ts).
+// stays responsive (a large file, or exact tails for several thousand pairs, can take a second or more). Started by runPairsInWorker (pairsWorkerClient.ts).
 import { analysePairs } from '../../core/pairsAnalysis';
 import { pairsFromCsvStream, type PairsRead } from './pairsFromCsv';
 import { blobChunks } from '../../data/byteSource';

@@ -67,14 +67,14 @@ describe('pairsStatement wording', () => {
 });
 
 describe('pairsStatement: the normal approximation’s measured error', () => {
-  test('with more than 1,000 pairs the paragraph gives the reason for the normal approximation and its measured error', () => {
-    // Invented differences (fictional): 1,200 pairs, a modest shift; the error figure is the project's own measurement (NORMAL_APPROXIMATION_MEASURED_ERROR).
-    const differences = Array.from({ length: 1200 }, (_, i) => ((i * 7919) % 1000) / 100 - 4.7);
+  test('with more than 5,000 pairs the paragraph gives the reason for the normal approximation and its measured error', () => {
+    // Invented differences (fictional): 6,000 pairs, a small shift; the error figure is the project's own measurement (NORMAL_APPROXIMATION_MEASURED_ERROR).
+    const differences = Array.from({ length: 6000 }, (_, i) => ((i * 7919) % 1000) / 100 - 4.9);
     const result = analysePairs({ data: { kind: 'differences', differences } });
     expect(result.tailMethod).toBe('normal');
     const part = pairsStatement(pairsSummary(result), study, () => '[1]');
     expect(result.sensitivityValue).not.toBeNull();
     expect(part?.paragraph).toContain(result.tailMethodReason);
-    expect(result.tailMethodReason).toMatch(/relative error was measured at up to 1\.4%/);
+    expect(result.tailMethodReason).toMatch(/relative error was measured at up to 0\.7%/);
   });
 });
