@@ -5,34 +5,8 @@ import { sortedLowerTail, weightedBernoulliSumUpperTail } from '../../src/core/w
 import { exactCriticalValue } from '../../src/core/hodgesLehmannRange';
 import large from '../reference/signed_rank_large.json';
 import { expectClose } from '../support/expectClose';
+import { exactBernoulliTail as exactTail } from '../support/exactBernoulliTail';
 
-/**
- * P(Σ wᵢBᵢ ≥ t) in exact rational arithmetic for p = a/2ᵐ: the generating function Π ((2ᵐ − a) + a·x^wᵢ)
- * expanded in BigInt, then one division (an independent route, no floating point until the quotient).
- */
-function exactTail(weights: number[], t: number, a: bigint, m: bigint): number {
-  const b = (1n << m) - a;
-  const total = weights.reduce((x, y) => x + y, 0);
-  let f: bigint[] = new Array(total + 1).fill(0n);
-  f[0] = 1n;
-  let reach = 0;
-  for (const w of weights) {
-    const g: bigint[] = new Array(total + 1).fill(0n);
-    for (let s = 0; s <= reach; s++) {
-      if (f[s] === 0n) continue;
-      g[s] += f[s] * b;
-      g[s + w] += f[s] * a;
-    }
-    reach += w;
-    f = g;
-  }
-  let numerator = 0n;
-  for (let s = Math.max(0, Math.ceil(t)); s <= total; s++) numerator += f[s];
-  if (numerator === 0n) return 0;
-  const shiftBits = m * BigInt(weights.length);
-  const extra = BigInt(Math.max(0, Number(shiftBits) - numerator.toString(2).length + 120));
-  return Number((numerator << extra) >> shiftBits) * 2 ** -Number(extra);
-}
 
 const oneToN = (n: number) => Array.from({ length: n }, (_, i) => i + 1);
 const relativeError = (actual: number, expected: number) => Math.abs(actual - expected) / expected;

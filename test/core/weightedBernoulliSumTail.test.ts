@@ -2,35 +2,8 @@ import { describe, expect, test } from 'vitest';
 import fc from 'fast-check';
 import { WEIGHTED_TAIL_MEASURED_ERROR, weightedBernoulliSumUpperTail } from '../../src/core/weightedBernoulliSumTail';
 import { expectClose } from '../support/expectClose';
+import { exactBernoulliTail as exactTail } from '../support/exactBernoulliTail';
 
-/**
- * P(Σ wᵢBᵢ ≥ t) exactly, for p = a/2ᵐ: the generating function Π ((2ᵐ − a) + a·x^wᵢ) expanded in BigInt
- * (integer coefficients, no rounding), then one division to ~36 significant bits beyond double precision.
- * An independent route: exact rational arithmetic, no floating point until the final quotient.
- */
-function exactTail(weights: number[], t: number, a: bigint, m: bigint): number {
-  const denominator = 1n << m;
-  const b = denominator - a;
-  const total = weights.reduce((x, y) => x + y, 0);
-  let f: bigint[] = new Array(total + 1).fill(0n);
-  f[0] = 1n;
-  for (const w of weights) {
-    const g: bigint[] = new Array(total + 1).fill(0n);
-    for (let s = 0; s <= total; s++) {
-      if (f[s] === 0n) continue;
-      g[s] += f[s] * b;
-      g[s + w] += f[s] * a;
-    }
-    f = g;
-  }
-  let numerator = 0n;
-  for (let s = Math.max(0, Math.ceil(t)); s <= total; s++) numerator += f[s];
-  if (numerator === 0n) return 0;
-  const shiftBits = m * BigInt(weights.length);
-  const extra = BigInt(Math.max(0, Number(shiftBits) - numerator.toString(2).length + 120));
-  const scaled = (numerator << extra) >> shiftBits; // ≈ value·2^extra, truncated far below double precision
-  return Number(scaled) * 2 ** -Number(extra);
-}
 
 const DYADIC: [bigint, bigint][] = [
   [1n, 1n], // ½ (Γ = 1)
