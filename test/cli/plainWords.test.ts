@@ -41,7 +41,7 @@ describe('lurk pairs --zeros', () => {
     const { stdout } = await lurk(['pairs', '--help']);
     expect(stdout).toMatch(/--zeros Z +signed-rank test: wilcoxon/);
     expect(stdout).toMatch(/Conventions/);
-    expect(stdout).toMatch(/relative error near p = 0\.05 was measured at up to\s+1\.4%/);
+    expect(stdout).toMatch(/relative error near p = 0\.05 was measured at up to\s+0\.7%/);
   });
 });
 
