@@ -161,6 +161,22 @@ export const appStyles = css`
         font-size: 0.9rem;
         color: var(--_muted);
       }
+      .finding-bar {
+        display: flex;
+        flex-wrap: wrap;
+        gap: 0.4rem 0.75rem;
+        align-items: center;
+        margin: 0 0 0.5rem;
+        font-size: 0.9rem;
+      }
+      .finding-bar button {
+        padding: 0.25rem 0.6rem;
+        font-size: 0.85rem;
+        min-height: 2.1rem;
+      }
+      .finding-bar .editing {
+        font-weight: 600;
+      }
       .demo-banner {
         background: var(--_warning-bg);
         border-radius: var(--_radius);
