@@ -90,26 +90,21 @@ export class LurkFindings extends LitElement {
         font-size: 0.75rem;
         font-weight: normal;
       }
-      .tools {
+      .row {
         display: flex;
         flex-wrap: wrap;
         gap: 0.4rem 0.75rem;
         align-items: end;
       }
-      .tools .field {
+      .row .field {
         margin-bottom: 0.4rem;
-        flex: 1 1 14rem;
+        flex: 0 1 26rem;
+        min-width: min(14rem, 100%);
       }
-      .tools button,
-      .tools select {
+      .row button,
+      .row select {
         margin-bottom: 0.4rem;
         font-size: 0.9rem;
-      }
-      .add {
-        display: flex;
-        flex-wrap: wrap;
-        gap: 0.4rem;
-        align-items: end;
       }
     `,
   ];
@@ -137,9 +132,9 @@ export class LurkFindings extends LitElement {
                 </li>`,
               )}
             </ul>`}
-        <div class="tools">
-          ${current
-            ? html`<div class="field">
+        ${current
+          ? html`<div class="row">
+              <div class="field">
                   <label for="finding-name">Name of this finding</label>
                   <input
                     id="finding-name"
@@ -149,9 +144,10 @@ export class LurkFindings extends LitElement {
                     @input=${(e: Event) => this.fire('lurk-finding-rename', { id: current.id, name: (e.target as HTMLInputElement).value })}
                   />
                 </div>
-                <button class="secondary" type="button" @click=${() => this.confirmRemove(current)}>Remove this finding</button>`
-            : nothing}
-          <div class="add">
+                <button class="secondary" type="button" @click=${() => this.confirmRemove(current)}>Remove this finding</button>
+              </div>`
+          : nothing}
+          <div class="row">
             <div class="field">
               <label for="finding-method">Method of a new finding</label>
               <select id="finding-method" .value=${this.newMethod || this.methods[0]?.id || ''} @change=${(e: Event) => (this.newMethod = (e.target as HTMLSelectElement).value)}>
@@ -160,7 +156,6 @@ export class LurkFindings extends LitElement {
             </div>
             <button type="button" @click=${() => this.fire('lurk-finding-add', { method: this.newMethod || this.methods[0]?.id })}>Add a finding</button>
           </div>
-        </div>
       </section>
     `;
   }

@@ -227,6 +227,9 @@ describe('the findings list, statement and bottom line look right', () => {
           await page.getByRole('tab', { name: tab }).click();
           await page.waitForTimeout(300);
           await page.screenshot({ path: `${SHOTS}/${file}-${width}.png`, fullPage: true });
+          // The panel's first screenful, at full resolution, for a close look.
+          await page.locator(`#panel-${file}`).evaluate((panel) => panel.scrollIntoView());
+          await page.screenshot({ path: `${SHOTS}/${file}-${width}-top.png` });
           const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
           expect(overflow, tab).toBeLessThanOrEqual(0);
           const smallest = await page.evaluate(() => {
