@@ -5,7 +5,8 @@ import { customElement, property, state } from 'lit/decorators.js';
 import { emptyStudy, type StudyLabels } from '../src/format/studyLabels';
 import { createAppraisal, type Appraisal, type CalculatorSummary, type Finding } from '../src/workspace/appraisal';
 import { withFindingChanged, withNewFinding, withoutFinding } from '../src/workspace/findingList';
-import { batchCellsOfFinding, findingOfBatchRow, withBatchRow } from '../src/workspace/batchRows';
+import { findingOfBatchRow, withBatchRow } from '../src/workspace/batchRows';
+import { BATCH_METHODS, METHOD_CHOICES, VIEWS, type ViewInfo } from './workspaceViews';
 import { readAppraisalFile, saveAppraisalFile, shareAppraisal } from './appraisalActions';
 import { baseStyles } from './styles/base';
 import { appStyles } from './styles/app';
@@ -16,7 +17,7 @@ import './lurk-statement';
 import './lurk-bottom-line';
 import './lurk-batch';
 
-/** Below this width the study header starts folded and the tabs scroll sideways in their own strip. */
+/** Below this width the study header and the findings start folded and the tabs scroll sideways in their own strip. */
 const NARROW_SCREEN = '(max-width: 640px)';
 
 /** The views of the workspace, in tab order: a tab per method of the registry, then the workspace's own. */
@@ -27,26 +28,6 @@ export interface WorkspacePlace {
   readonly view: WorkspaceView;
   readonly finding: string;
 }
-
-interface ViewInfo {
-  readonly id: WorkspaceView;
-  readonly tab: string;
-  readonly heading: string;
-  readonly intro: string;
-  /** The calculator element of a method's view. */
-  readonly element?: string;
-}
-
-const VIEWS: readonly ViewInfo[] = [
-  ...METHODS.map((m) => ({ id: m.id, tab: m.title, heading: m.view.heading, intro: m.view.intro, element: m.view.element })),
-  { id: 'statement', tab: 'Robustness statement', heading: 'Robustness statement for a paper', intro: 'A paragraph per finding, named after it, with the numbers, the assumptions each method makes, and full references.' },
-  { id: 'bottom-line', tab: 'Bottom line', heading: 'The bottom line: how sure are we?', intro: 'In plain words, finding by finding, for decision-makers.' },
-  { id: 'batch', tab: 'Many findings', heading: 'Many reported findings at once', intro: 'For reviewers and evidence synthesis: E-values and robustness values for a table of reported estimates.' },
-];
-
-const METHOD_CHOICES = METHODS.map((m) => ({ id: m.id, title: m.title }));
-/** Methods whose finding can be a row of the batch table (a reported estimate or coefficient). */
-const BATCH_METHODS = new Set(METHODS.filter((m) => !('reason' in batchCellsOfFinding(m.id, '', m.form.empty()))).map((m) => m.id));
 
 /**
  * @summary The appraisal workspace: the study header, the paper's findings, and the calculators, each in its own
@@ -84,6 +65,8 @@ export class LurkApp extends LitElement {
 
   /** Whether the study header is unfolded: folded at first on narrow screens, so the calculator shows first. */
   @state() private studyOpen = typeof matchMedia === 'function' ? !matchMedia(NARROW_SCREEN).matches : true;
+  /** Whether the list of findings is unfolded: folded at first on narrow screens too (the tab shows the current one). */
+  @state() private findingsOpen = this.studyOpen;
   @state() private batchText = '';
   @state() private batchAlpha = '0.05';
   /** The finding each calculator edits, by method id. */
@@ -159,15 +142,18 @@ export class LurkApp extends LitElement {
         <summary><span class="fold-label">Study</span> <span class="fold-finding">${this.study.finding.trim() || 'not named yet'}</span></summary>
         <lurk-study .study=${this.study} @lurk-study-change=${this.onStudy}></lurk-study>
       </details>
-      <lurk-findings
-        .findings=${this.findings}
-        .methods=${METHOD_CHOICES}
-        .current=${shown?.id ?? ''}
-        @lurk-finding-select=${(e: CustomEvent<{ id: string }>) => this.select(e.detail.id)}
-        @lurk-finding-rename=${(e: CustomEvent<{ id: string; name: string }>) => this.setFindings(withFindingChanged(this.findings, e.detail.id, { name: e.detail.name }))}
-        @lurk-finding-remove=${(e: CustomEvent<{ id: string }>) => this.removeFinding(e.detail.id)}
-        @lurk-finding-add=${(e: CustomEvent<{ method: string }>) => this.add(e.detail.method)}
-      ></lurk-findings>
+      <details class="study-fold" ?open=${this.findingsOpen} @toggle=${(e: Event) => (this.findingsOpen = (e.currentTarget as HTMLDetailsElement).open)}>
+        <summary><span class="fold-label">Findings (${this.findings.length})</span> <span class="fold-finding">${shown?.name.trim() || ''}</span></summary>
+        <lurk-findings
+          .findings=${this.findings}
+          .methods=${METHOD_CHOICES}
+          .current=${shown?.id ?? ''}
+          @lurk-finding-select=${(e: CustomEvent<{ id: string }>) => this.select(e.detail.id)}
+          @lurk-finding-rename=${(e: CustomEvent<{ id: string; name: string }>) => this.setFindings(withFindingChanged(this.findings, e.detail.id, { name: e.detail.name }))}
+          @lurk-finding-remove=${(e: CustomEvent<{ id: string }>) => this.removeFinding(e.detail.id)}
+          @lurk-finding-add=${(e: CustomEvent<{ method: string }>) => this.add(e.detail.method)}
+        ></lurk-findings>
+      </details>
       <div role="tablist" aria-label="Calculators" @keydown=${this.onTabKey}>
         ${VIEWS.map(
           (v) => html`<button
@@ -213,21 +199,23 @@ export class LurkApp extends LitElement {
     }
   }
 
-  /** A calculator's tab: which finding it edits, the button that adds it to the batch table, and the element. */
+  /** A calculator's tab: the element, editing the current finding of its method, and the button that adds it to the batch table. */
   private calculator(method: string, element: string): TemplateResult {
     const finding = this.findings.find((f) => f.id === this.current[method]);
     const record = (e: CustomEvent<{ inputs?: Record<string, unknown> }>) => this.onCalculatorEvent(method, e);
     const tag = unsafeStatic(element);
-    const bar = html`<div class="finding-bar">
-      <span>${finding ? html`Editing <span class="editing">${finding.name.trim() || 'Unnamed finding'}</span>` : 'No finding of this kind yet: what you type below starts one.'}</span>
-      ${finding && BATCH_METHODS.has(method) ? html`<button class="secondary" type="button" @click=${() => this.addToBatch(finding)}>Add this finding to the batch table</button>` : nothing}
-      <span class="hint" role="status">${this.barNotes[method] ?? ''}</span>
-    </div>`;
+    // Which finding the calculator edits shows in the list above the tabs; below the result, its one-click actions.
+    const top = finding ? nothing : html`<p class="finding-bar">No finding of this kind yet: what you type below starts one.</p>`;
     const calc = keyed(
       `${method}:${this.generation[method] ?? 0}`,
       staticHtml`<${tag} data-calculator .study=${this.study} .inputs=${finding?.inputs ?? null} @lurk-inputs-change=${record} @lurk-result=${record}></${tag}>`,
     );
-    return html`${bar}${calc}`;
+    const bottom = html`<div class="finding-bar">
+      ${finding ? html`<span>Finding <span class="editing">${finding.name.trim() || 'Unnamed finding'}</span></span>` : nothing}
+      ${finding && BATCH_METHODS.has(method) ? html`<button class="secondary" type="button" @click=${() => this.addToBatch(finding)}>Add this finding to the batch table</button>` : nothing}
+      <span class="hint" role="status">${this.barNotes[method] ?? ''}</span>
+    </div>`;
+    return html`${top}${calc}${bottom}`;
   }
 
   private onCalculatorEvent(method: string, event: CustomEvent<{ inputs?: Record<string, unknown> }>): void {

@@ -120,7 +120,7 @@ export class LurkFindings extends LitElement {
     const title = (id: string) => this.methods.find((m) => m.id === id)?.title ?? id;
     return html`
       <section aria-labelledby="findings-heading">
-        <h2 id="findings-heading">Findings of this paper (${this.findings.length})</h2>
+        <h2 id="findings-heading" class="visually-hidden">Findings of this paper (${this.findings.length})</h2>
         ${this.findings.length === 0
           ? html`<p class="hint">No finding yet: add one below, or type into a calculator.</p>`
           : html`<ul aria-label="Findings">

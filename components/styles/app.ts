@@ -166,7 +166,7 @@ export const appStyles = css`
         flex-wrap: wrap;
         gap: 0.4rem 0.75rem;
         align-items: center;
-        margin: 0 0 0.5rem;
+        margin: 0.75rem 0 0.5rem;
         font-size: 0.9rem;
       }
       .finding-bar button {

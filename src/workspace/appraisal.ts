@@ -121,7 +121,7 @@ export function readAppraisal(json: unknown): { appraisal: Appraisal; problems: 
     const readable = `this Lurk reads versions ${READABLE_VERSIONS.join(' and ')}`;
     const rule =
       typeof json.version === 'number' && json.version > APPRAISAL_VERSION
-        ? `is ${v}: the file was made by a newer version of Lurk; ${readable}. Open it with the newer Lurk`
+        ? `is ${v}, made by a newer Lurk; ${readable}: open it with a newer Lurk`
         : `is ${v}; ${readable}`;
     return refuse(inputProblem('version', 'unsupported-version', rule, json.version));
   }

@@ -109,7 +109,7 @@ describe('appraisal files (version 2: a list of findings)', () => {
   it('says plainly when a file is from a newer version, or is not an appraisal', () => {
     const newer = readAppraisal({ ...sample(), version: 3 }).problems[0];
     expect(newer.field).toBe('version');
-    expect(newer.message).toBe('is 3: the file was made by a newer version of Lurk; this Lurk reads versions 1 and 2. Open it with the newer Lurk');
+    expect(newer.message).toBe('is 3, made by a newer Lurk; this Lurk reads versions 1 and 2: open it with a newer Lurk');
     expect(readAppraisal({ ...sample(), version: 0 }).problems[0].message).toBe('is 0; this Lurk reads versions 1 and 2');
     expect(readAppraisal({ hello: 1 }).problems[0].field).toBe('format');
     expect(readAppraisal([1, 2]).problems[0].code).toBe('not-an-object');
