@@ -101,6 +101,12 @@ export class LurkFindings extends LitElement {
         flex: 0 1 26rem;
         min-width: min(14rem, 100%);
       }
+      .row input,
+      .row select {
+        width: 100%;
+        max-width: 100%;
+        box-sizing: border-box;
+      }
       .row button,
       .row select {
         margin-bottom: 0.4rem;

@@ -16,6 +16,10 @@ export const appStyles = css`
         min-width: 0;
         max-width: 100%;
       }
+      /* Inside <details> an element inherits through the browser's own slot (content-box): set it again. */
+      .study-fold > :not(summary) {
+        box-sizing: border-box;
+      }
       .study-fold > summary {
         cursor: pointer;
         padding: 0.35rem 0;
