@@ -75,7 +75,7 @@ export class LurkApp extends LitElement {
   @state() private barNotes: Record<string, string> = {};
   /** Bumped when a calculator is given another finding, so that it starts afresh (no file or state carried over). */
   private generation: Record<string, number> = {};
-  /** Summaries computed from inputs, by the inputs object (inputs are replaced, never changed, on an edit). */
+  /** Summaries of inputs (from the calculator that read them, else computed once), by the inputs object (replaced, never changed, on an edit). */
   private computed = new WeakMap<object, CalculatorSummary | null>();
 
   /** The appraisal as it stands: study labels, findings with the summaries of their results, the batch table. */
@@ -219,8 +219,11 @@ export class LurkApp extends LitElement {
   }
 
   private onCalculatorEvent(method: string, event: CustomEvent<{ inputs?: Record<string, unknown> }>): void {
+    // The element has just read its form: its summary stands for these inputs (no second run of the analysis).
+    const summary = (event.target as { summary?: CalculatorSummary | null }).summary ?? null;
     if (event.type === 'lurk-inputs-change' && event.detail.inputs) {
       const id = this.current[method];
+      this.computed.set(event.detail.inputs, summary);
       if (id && this.findings.some((f) => f.id === id)) {
         this.findings = withFindingChanged(this.findings, id, { inputs: event.detail.inputs, summary: null });
       } else {
@@ -229,10 +232,10 @@ export class LurkApp extends LitElement {
         this.current = { ...this.current, [method]: made.finding.id };
       }
     }
-    if (event.type === 'lurk-result') {
-      const summary = (event.target as { summary?: CalculatorSummary | null }).summary ?? null;
-      const id = this.current[method];
-      if (id) this.findings = withFindingChanged(this.findings, id, { summary });
+    const finding = this.findings.find((f) => f.id === this.current[method]);
+    if (event.type === 'lurk-result' && finding) {
+      this.computed.set(finding.inputs, summary);
+      this.findings = withFindingChanged(this.findings, finding.id, { summary });
     }
     this.changed();
   }

@@ -3,6 +3,7 @@ import { customElement, property, state } from 'lit/decorators.js';
 import type { Appraisal } from '../src/workspace/appraisal';
 import { buildRobustnessStatement, renderRobustnessStatement, type RobustnessStatement, type StatementFormat } from '../src/workspace/robustnessStatement';
 import { downloadBlob } from '../src/plot/figureExport.browser';
+import { fileNamePart } from '../src/workspace/findingList';
 import { baseStyles } from './styles/base';
 
 const FORMATS: ReadonlyArray<{ id: StatementFormat; label: string; ext: string; type: string }> = [
@@ -133,8 +134,10 @@ export class LurkStatement extends LitElement {
 
   private download(text: string): void {
     const f = FORMATS.find((x) => x.id === this.format)!;
-    downloadBlob(new Blob([text], { type: f.type }), `lurk-robustness-statement.${f.ext}`);
-    this.message = `Saved lurk-robustness-statement.${f.ext}`;
+    const study = this.appraisal?.study.finding.trim() ?? '';
+    const name = `lurk-robustness-statement${study ? `-${fileNamePart(study, 'appraisal')}` : ''}.${f.ext}`;
+    downloadBlob(new Blob([text], { type: f.type }), name);
+    this.message = `Saved ${name}`;
   }
 }
 

@@ -153,6 +153,9 @@ describe('an appraisal of several findings in Chromium', () => {
     await page.locator('#open-appraisal').setInputFiles(savedPath);
     await expect.poll(() => currentAppraisal(page)).toEqual(before);
     await expectAllThree(page);
+    await page.getByRole('tab', { name: 'Robustness statement' }).click();
+    const [statement] = await Promise.all([page.waitForEvent('download'), page.locator('lurk-statement').getByRole('button', { name: 'Download' }).click()]);
+    expect(statement.suggestedFilename()).toBe('lurk-robustness-statement-commuting-and-health-fictional-paper.md');
   });
 
   it('shares a short link that opens all three findings in a fresh browser', async () => {
