@@ -24,6 +24,9 @@ const COLUMNS: ReadonlyArray<{ key: SortKey; label: string; numeric: boolean }> 
   { key: 'rvAlpha', label: 'RV at α', numeric: true },
 ];
 
+/** Measures whose row opens in a calculator (the E-value's, or a regression coefficient). */
+const OPENABLE = new Set(['rr', 'or', 'hr', 'smd', 'md', 'coef']);
+
 /** A fictional example so that the table can be tried at once. */
 export const EXAMPLE_BATCH = `label,measure,estimate,lower,upper,se,df,outcome_prevalence
 Fictional cohort A: commuting and sleep,rr,1.45,1.12,1.88,,,
@@ -42,6 +45,7 @@ Fictional cohort G: coffee and tremor,rr,1.08,0.91,1.28,,,
  * @property text - the CSV text (pasted or read from a file).
  * @property alpha - the significance level for RV at α, as typed.
  * @fires lurk-batch-change - {text, alpha} after the user changes the data or α.
+ * @fires lurk-batch-open - {row} when the user opens a row (1-based, as numbered) in its calculator as a finding.
  * @cssprop --lurk-font - font family
  * @cssprop --lurk-text - text colour
  * @cssprop --lurk-muted - colour of hints and secondary text
@@ -91,6 +95,11 @@ export class LurkBatch extends LitElement {
       }
       .alpha {
         max-width: 8rem;
+      }
+      button.open {
+        padding: 0.15rem 0.5rem;
+        min-height: 1.9rem;
+        font-size: 0.85rem;
       }
     `,
   ];
@@ -196,6 +205,7 @@ export class LurkBatch extends LitElement {
                 </th>`,
               )}
               <th scope="col">Problem</th>
+              <th scope="col">Calculator</th>
             </tr>
           </thead>
           <tbody>
@@ -210,6 +220,11 @@ export class LurkBatch extends LitElement {
                 <td>${formatPercent(r.rv, 1, '—')}</td>
                 <td>${formatPercent(r.rvAlpha, 1, '—')}</td>
                 <td class="problem">${r.problem}</td>
+                <td>
+                  ${OPENABLE.has(r.measure)
+                    ? html`<button class="secondary open" type="button" aria-label="Open row ${r.row} (${r.label}) in its calculator" @click=${() => this.fire('lurk-batch-open', { row: r.row })}>Open</button>`
+                    : nothing}
+                </td>
               </tr>`,
             )}
           </tbody>
@@ -246,7 +261,11 @@ export class LurkBatch extends LitElement {
   private change(text: string, alpha: string): void {
     this.text = text;
     this.alpha = alpha;
-    this.dispatchEvent(new CustomEvent('lurk-batch-change', { detail: { text, alpha }, bubbles: true, composed: true }));
+    this.fire('lurk-batch-change', { text, alpha });
+  }
+
+  private fire(name: string, detail: unknown): void {
+    this.dispatchEvent(new CustomEvent(name, { detail, bubbles: true, composed: true }));
   }
 
   private async onFile(event: Event): Promise<void> {
@@ -271,5 +290,6 @@ declare global {
   }
   interface GlobalEventHandlersEventMap {
     'lurk-batch-change': CustomEvent<{ text: string; alpha: string }>;
+    'lurk-batch-open': CustomEvent<{ row: number }>;
   }
 }

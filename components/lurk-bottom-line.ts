@@ -5,7 +5,7 @@ import { buildBottomLine, type BottomLine } from '../src/workspace/bottomLine';
 import { baseStyles } from './styles/base';
 
 /**
- * @summary The bottom line for decision-makers: in plain words, how strong a hidden confounder would have to be,
+ * @summary The bottom line for decision-makers, finding by finding: in plain words, how strong a hidden confounder would have to be,
  * compared with measured factors, what would and would not change the conclusion, and the caution.
  *
  * @property appraisal - the current appraisal (study labels and calculator summaries).
@@ -37,6 +37,17 @@ export class LurkBottomLine extends LitElement {
       li {
         margin-bottom: 0.4rem;
       }
+      .finding-line {
+        border-top: 1px solid var(--_border);
+        padding-top: 0.25rem;
+      }
+      h3 {
+        margin: 0.75rem 0 0.25rem;
+      }
+      h4 {
+        margin: 0.5rem 0 0.25rem;
+        font-size: 0.95rem;
+      }
       .caution {
         font-size: 1rem;
       }
@@ -59,16 +70,18 @@ export class LurkBottomLine extends LitElement {
       <section aria-label="Bottom line">
         ${finding ? html`<p class="finding">${finding}</p>` : nothing}
         ${line.empty
-          ? html`<p>No calculator has a result yet. Fill in at least one of the calculators.</p>`
-          : html`
-              <h3>How strong would a hidden confounder have to be?</h3>
-              <ul>
-                ${line.howStrong.map((s) => html`<li>${s}</li>`)}
-              </ul>
-              ${this.list('Compared with the measured factors', line.comparedWithMeasured)}
-              ${this.list('What would change the conclusion', line.wouldChange)}
-              ${this.list('What would not change it', line.wouldNotChange)}
-            `}
+          ? html`<p>No finding has a result yet. Fill in at least one calculator.</p>`
+          : line.findings.map(
+              (f) => html`<article class="finding-line" aria-label=${f.heading}>
+                <h3>${f.heading}</h3>
+                <h4>How strong would a hidden confounder have to be?</h4>
+                <ul>
+                  ${f.howStrong.map((s) => html`<li>${s}</li>`)}
+                </ul>
+                ${this.list('Compared with the measured factors', f.comparedWithMeasured)} ${this.list('What would change the conclusion', f.wouldChange)}
+                ${this.list('What would not change it', f.wouldNotChange)}
+              </article>`,
+            )}
         <p class="caution" role="note">${line.caution}</p>
       </section>
     `;
@@ -76,7 +89,7 @@ export class LurkBottomLine extends LitElement {
 
   private list(title: string, items: readonly string[]) {
     if (items.length === 0) return nothing;
-    return html`<h3>${title}</h3>
+    return html`<h4>${title}</h4>
       <ul>
         ${items.map((s) => html`<li>${s}</li>`)}
       </ul>`;

@@ -3,6 +3,7 @@ import { customElement, property, state } from 'lit/decorators.js';
 import type { Appraisal } from '../src/workspace/appraisal';
 import { buildRobustnessStatement, renderRobustnessStatement, type RobustnessStatement, type StatementFormat } from '../src/workspace/robustnessStatement';
 import { downloadBlob } from '../src/plot/figureExport.browser';
+import { fileNamePart } from '../src/workspace/findingList';
 import { baseStyles } from './styles/base';
 
 const FORMATS: ReadonlyArray<{ id: StatementFormat; label: string; ext: string; type: string }> = [
@@ -12,7 +13,7 @@ const FORMATS: ReadonlyArray<{ id: StatementFormat; label: string; ext: string; 
 ];
 
 /**
- * @summary The robustness statement for authors: a paragraph per calculator used, with numbers, assumptions and
+ * @summary The robustness statement for authors: a paragraph per finding, named after it, with numbers, assumptions and
  * references, shown for reading and as Markdown, LaTeX or HTML to copy or download.
  *
  * @property appraisal - the current appraisal (study labels and calculator summaries).
@@ -54,8 +55,12 @@ export class LurkStatement extends LitElement {
         align-items: center;
         margin: 0.5rem 0;
       }
-      ol {
+      ol,
+      .assumptions {
         font-size: 0.9rem;
+      }
+      h4 {
+        margin: 1rem 0 0.25rem;
       }
     `,
   ];
@@ -79,7 +84,15 @@ export class LurkStatement extends LitElement {
       <p class="hint">Ready to paste into the sensitivity-analysis section of a paper. Check every sentence against your study before using it.</p>
       <article aria-label="Robustness statement">
         <h3>${statement.title}</h3>
-        ${statement.paragraphs.map((p) => html`<p>${p}</p>`)}
+        ${statement.sections.map((s) => html`<h4>${s.heading}</h4>
+            <p>${s.paragraph}</p>`)}
+        ${statement.caution ? html`<p>${statement.caution}</p>` : statement.paragraphs.map((p) => html`<p>${p}</p>`)}
+        ${statement.assumptions.length
+          ? html`<h4>Assumptions and conventions</h4>
+              <ul class="assumptions">
+                ${statement.assumptions.map((a) => html`<li>${a}</li>`)}
+              </ul>`
+          : nothing}
         ${statement.references.length
           ? html`<h4>References</h4>
               <ol>
@@ -121,8 +134,10 @@ export class LurkStatement extends LitElement {
 
   private download(text: string): void {
     const f = FORMATS.find((x) => x.id === this.format)!;
-    downloadBlob(new Blob([text], { type: f.type }), `lurk-robustness-statement.${f.ext}`);
-    this.message = `Saved lurk-robustness-statement.${f.ext}`;
+    const study = this.appraisal?.study.finding.trim() ?? '';
+    const name = `lurk-robustness-statement${study ? `-${fileNamePart(study, 'appraisal')}` : ''}.${f.ext}`;
+    downloadBlob(new Blob([text], { type: f.type }), name);
+    this.message = `Saved ${name}`;
   }
 }
 

@@ -53,8 +53,8 @@ export { planWeighting, runWeightingPlan, analyseWeightingStream } from './metho
 export { weightingMethod } from './methods/weighting/method';
 
 // The workspace.
-export { createAppraisal, readAppraisal, type Appraisal } from './workspace/appraisal';
-export { encodeShareFragment, decodeShareFragment } from './workspace/shareLink';
+export { createAppraisal, readAppraisal, type Appraisal, type Finding, type BatchTable } from './workspace/appraisal';
+export { encodeShareFragment, decodeShareFragment, shareLinkLength, SHARE_LINK_LIMIT } from './workspace/shareLink';
 export { buildRobustnessStatement, renderRobustnessStatement, type RobustnessStatement, type StatementFormat } from './workspace/robustnessStatement';
 export { buildBottomLine, type BottomLine } from './workspace/bottomLine';
 export { appraiseBatchCsv, type BatchResult, type BatchRow } from './workspace/batchFindings';

@@ -16,6 +16,10 @@ export const appStyles = css`
         min-width: 0;
         max-width: 100%;
       }
+      /* Inside <details> an element inherits through the browser's own slot (content-box): set it again. */
+      .study-fold > :not(summary) {
+        box-sizing: border-box;
+      }
       .study-fold > summary {
         cursor: pointer;
         padding: 0.35rem 0;
@@ -160,6 +164,22 @@ export const appStyles = css`
       .notice {
         font-size: 0.9rem;
         color: var(--_muted);
+      }
+      .finding-bar {
+        display: flex;
+        flex-wrap: wrap;
+        gap: 0.4rem 0.75rem;
+        align-items: center;
+        margin: 0.75rem 0 0.5rem;
+        font-size: 0.9rem;
+      }
+      .finding-bar button {
+        padding: 0.25rem 0.6rem;
+        font-size: 0.85rem;
+        min-height: 2.1rem;
+      }
+      .finding-bar .editing {
+        font-weight: 600;
       }
       .demo-banner {
         background: var(--_warning-bg);

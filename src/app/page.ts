@@ -3,9 +3,10 @@
 // - a visit that did not finish drawing its results (a flag set in local storage before drawing, cleared after)
 //   opens the next time with the saved work not yet computed, and says so, with a button to compute it;
 // - a share link (on load, or pasted into an open tab) replaces the current work only when the user says so, and
-//   the replaced appraisal joins a short list of recent appraisals (this browser only), offered above the app.
+//   the replaced appraisal joins a short list of recent appraisals (this browser only), offered above the app;
+// - a reload returns to the tab and the finding the reviewer was on.
 import '../../components/index';
-import { fictionalStudy } from '../demo/fictionalStudy';
+import { fictionalAppraisal, fictionalStudy } from '../demo/fictionalStudy';
 import { readAppraisal, type Appraisal } from '../workspace/appraisal';
 import { decodeShareFragment, hasShareFragment, withoutRawData } from '../workspace/shareLink';
 
@@ -16,6 +17,8 @@ const DRAWING_KEY = 'lurk.drawing';
 /** The last few appraisals that were replaced (newest first). */
 const RECENT_KEY = 'lurk.recent';
 const RECENT_COUNT = 5;
+/** The open tab and finding (this browser only), so that a reload returns there. */
+const PLACE_KEY = 'lurk.place';
 
 type LurkApp = NonNullable<HTMLElementTagNameMap['lurk-app']>;
 interface RecentEntry {
@@ -33,7 +36,9 @@ function start(app: LurkApp): void {
   if (interrupted) openNotComputed(app, kept);
   else if (hasShareFragment(location.hash)) openShared(app, kept);
   else openKeptOrDemo(app, kept);
+  returnToPlace(app);
   app.addEventListener('lurk-appraisal-change', (event) => keep(event.detail.appraisal));
+  app.addEventListener('lurk-view-change', (event) => storageSet(PLACE_KEY, JSON.stringify(event.detail)));
   // A share link pasted into the address bar of this open tab is handled like one opened from outside.
   window.addEventListener('hashchange', () => {
     if (hasShareFragment(location.hash)) openShared(app, currentWork(app));
@@ -41,10 +46,28 @@ function start(app: LurkApp): void {
   renderRecent(app);
 }
 
+/** Whether an appraisal holds anything worth keeping: a finding or a batch table. */
+function holdsWork(appraisal: Appraisal): boolean {
+  return appraisal.findings.length > 0 || (appraisal.batch?.text ?? '') !== '';
+}
+
 /** The work in the page now, or null when it holds nothing worth keeping. */
 function currentWork(app: LurkApp): Appraisal | null {
   const work = app.appraisal;
-  return Object.keys(work.calculators).length > 0 ? work : readKept();
+  return holdsWork(work) ? work : readKept();
+}
+
+/** Opens the tab and finding of the last visit, where they still exist. */
+function returnToPlace(app: LurkApp): void {
+  try {
+    const place: unknown = JSON.parse(storageGet(PLACE_KEY) ?? 'null');
+    if (place && typeof place === 'object' && typeof (place as { view?: unknown }).view === 'string') {
+      const { view, finding } = place as { view: string; finding?: unknown };
+      app.place = { view, finding: typeof finding === 'string' ? finding : '' };
+    }
+  } catch {
+    // A damaged note of the last place: start on the first tab.
+  }
 }
 
 /** Draws an appraisal, with the drawing flag set until the page has painted its results. */
@@ -83,7 +106,7 @@ function openShared(app: LurkApp, current: Appraisal | null): void {
   const shared = decodeShareFragment(location.hash);
   if (!shared.appraisal) {
     clearFragment();
-    if (!app.hasUpdated && Object.keys(app.appraisal.calculators).length === 0) openKeptOrDemo(app, current);
+    if (!app.hasUpdated && !holdsWork(app.appraisal)) openKeptOrDemo(app, current);
     app.notice = `This share link ${shared.problems[0].message}. Your current work is kept.`;
     return;
   }
@@ -104,11 +127,11 @@ function openShared(app: LurkApp, current: Appraisal | null): void {
     // The link holds this very work (e.g. reloaded after "Copy share link"): keep the local copy, which may also
     // hold raw data rows that a link never carries.
     clearFragment();
-    if (Object.keys(app.appraisal.calculators).length === 0) draw(app, current);
+    if (!holdsWork(app.appraisal)) draw(app, current);
     return;
   }
   // Keep showing the work in progress while asking.
-  if (Object.keys(app.appraisal.calculators).length === 0) draw(app, current);
+  if (!holdsWork(app.appraisal)) draw(app, current);
   showChoice(`This share link carries an appraisal (${describe(incoming)}). Open it in place of your current work (${describe(current)})?`, [
     { label: 'Open the shared appraisal', action: open },
     {
@@ -127,25 +150,33 @@ function openKeptOrDemo(app: LurkApp, kept: Appraisal | null): void {
 }
 
 function openDemo(app: LurkApp): void {
-  const demo = fictionalStudy();
-  app.study = demo.study;
-  app.inputs = demo.inputs;
-  app.banner = demo.banner;
+  app.load(fictionalAppraisal());
+  app.banner = fictionalStudy().banner;
 }
 
 /**
- * Whether two appraisals hold the same work: labels and inputs, leaving aside the time of saving, the results and
- * raw data rows (which a share link never carries).
+ * Whether two appraisals hold the same work: labels, findings (names, methods, inputs) and the batch table, leaving
+ * aside the time of saving, the results and raw data rows (which a share link never carries).
  */
 function sameWork(a: Appraisal, b: Appraisal): boolean {
-  const inputs = (x: Appraisal) => Object.fromEntries(Object.entries(withoutRawData(x).calculators).map(([id, entry]) => [id, entry?.inputs ?? null]));
-  return JSON.stringify([a.study, inputs(a)]) === JSON.stringify([b.study, inputs(b)]);
+  const work = (x: Appraisal) => {
+    const findings = withoutRawData(x).findings.map((f) => [f.id, f.method, f.name, sortedKeys(f.inputs)]);
+    return JSON.stringify([x.study, findings, x.batch?.text ?? '', x.batch?.alpha ?? '0.05']);
+  };
+  return work(a) === work(b);
 }
 
-/** A short name for an appraisal: its finding, or the calculators it uses. */
+/** A copy with object keys in sorted order, so that two equal forms compare equal as text. */
+function sortedKeys(value: unknown): unknown {
+  if (Array.isArray(value)) return value.map(sortedKeys);
+  if (value === null || typeof value !== 'object') return value;
+  return Object.fromEntries(Object.keys(value).sort().map((k) => [k, sortedKeys((value as Record<string, unknown>)[k])]));
+}
+
+/** A short name for an appraisal: its study's finding, or the names of its findings. */
 function describe(appraisal: Appraisal): string {
   const finding = appraisal.study.finding.trim();
-  const label = finding !== '' ? `“${finding}”` : `${Object.keys(appraisal.calculators).join(', ') || 'empty'}`;
+  const label = finding !== '' ? `“${finding}”` : appraisal.findings.map((f) => `“${f.name}”`).join(', ') || 'empty';
   return label.length > 80 ? `${label.slice(0, 79)}…` : label;
 }
 

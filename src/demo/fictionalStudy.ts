@@ -1,4 +1,6 @@
 import type { StudyLabels } from '../format/studyLabels';
+import { createAppraisal, type Appraisal, type Finding } from '../workspace/appraisal';
+import { methodById } from '../methods/registry';
 
 /**
  * The demo: an invented study, clearly marked fictional, with every calculator filled in so that a newcomer
@@ -66,6 +68,28 @@ export function fictionalStudy(): DemoAppraisal {
       },
     },
   };
+}
+
+/** The names of the demo's findings, one per calculator filled in (fictional). */
+const DEMO_FINDING_NAMES: Record<keyof DemoAppraisal['inputs'], string> = {
+  evalue: 'High blood pressure within 5 years, risk ratio',
+  pairs: 'Systolic blood pressure, matched pairs',
+  regression: 'Systolic blood pressure, regression coefficient',
+};
+
+/**
+ * The demo as an appraisal of three findings (ids f1, f2, f3), each with its name, its inputs completed and,
+ * with `withSummaries`, the summary its inputs give (as the page holds it once computed).
+ */
+export function fictionalAppraisal(withSummaries = false, savedAt = new Date()): Appraisal {
+  const demo = fictionalStudy();
+  const findings: Finding[] = (Object.keys(DEMO_FINDING_NAMES) as (keyof DemoAppraisal['inputs'])[]).map((id, i) => {
+    const method = methodById(id)!;
+    const inputs = method.form.normalise(demo.inputs[id]) as Record<string, unknown>;
+    const summary = withSummaries ? (method.workspace.summaryFromForm(inputs) as Finding['summary']) : null;
+    return { id: `f${i + 1}`, method: id, name: DEMO_FINDING_NAMES[id], inputs, summary };
+  });
+  return createAppraisal(demo.study, findings, savedAt);
 }
 
 /**

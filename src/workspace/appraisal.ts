@@ -3,27 +3,51 @@ import type { StudyLabels } from '../format/studyLabels';
 import { METHODS } from '../methods/registry';
 import { validate as validateAppraisalSchema, type SchemaError } from './appraisalValidator.generated.js';
 
-/** The calculators whose inputs an appraisal carries: every method of the registry, by its id. */
+/** The methods whose inputs an appraisal carries: every method of the registry, by its id. */
 export const CALCULATORS: readonly string[] = Object.freeze(METHODS.map((m) => m.id));
 export type CalculatorName = string;
 
 export const APPRAISAL_FORMAT = 'lurk-appraisal';
-/** Bump when the shape changes; `readAppraisal` says plainly when a file is from another version. */
-export const APPRAISAL_VERSION = 1;
+/**
+ * The version written. Version 2 holds a list of findings; version 1 (one entry per calculator) is still read,
+ * each calculator's entry becoming one finding. `readAppraisal` says plainly when a file is from a newer version.
+ */
+export const APPRAISAL_VERSION = 2;
+/** Every version this Lurk reads. */
+export const READABLE_VERSIONS: readonly number[] = Object.freeze([1, 2]);
 
 /**
- * Headline numbers of one calculator, kept beside its inputs so that a statement can be written from the file
+ * Headline numbers of one result, kept beside its inputs so that a statement can be written from the file
  * alone (raw data files are never stored in an appraisal). Each value is a finite number, a string, a boolean or
  * null; nested records are allowed one level deep (e.g. the strongest benchmark).
  */
 export type CalculatorSummary = Record<string, SummaryValue>;
 export type SummaryValue = number | string | boolean | null | ReadonlyArray<Record<string, number | string | boolean | null>> | Record<string, number | string | boolean | null>;
 
+/** One calculator's inputs and summary (the entry of a version-1 file, and the handy form for `createAppraisal`). */
 export interface CalculatorEntry {
   /** The form fields as the user typed them (text), so nothing typed is lost. */
   readonly inputs: Record<string, unknown>;
   /** Headline numbers of the last result, or null when the inputs did not give one. */
   readonly summary: CalculatorSummary | null;
+}
+
+/** One finding of the paper appraised with one method (an odds ratio with the E-value, a coefficient with the robustness value…). */
+export interface Finding extends CalculatorEntry {
+  /** A plain id, unique within the appraisal (letters, digits, - and _). */
+  readonly id: string;
+  /** The method's id in the registry (`evalue`, `pairs`, `regression`, …). */
+  readonly method: string;
+  /** The short name the reviewer gave it, e.g. "Mortality, hazard ratio" (may be empty). */
+  readonly name: string;
+}
+
+/** The batch table of many reported findings, as typed. */
+export interface BatchTable {
+  /** The CSV text. */
+  readonly text: string;
+  /** The significance level of the robustness values, as typed. */
+  readonly alpha: string;
 }
 
 /** Everything needed to restore an appraisal and to write its statement. */
@@ -33,30 +57,56 @@ export interface Appraisal {
   /** ISO 8601 time of saving. */
   readonly savedAt: string;
   readonly study: StudyLabels;
-  readonly calculators: Partial<Record<CalculatorName, CalculatorEntry>>;
+  readonly findings: readonly Finding[];
+  /** The batch table, when there is one. */
+  readonly batch?: BatchTable;
 }
 
-
-/** Builds an appraisal record (frozen) from the workspace's state. */
+/**
+ * Builds an appraisal record (frozen) from the workspace's state: a list of findings, or (the shape of a
+ * version-1 file) one entry per calculator, each becoming one finding named after its method.
+ */
 export function createAppraisal(
   study: StudyLabels,
-  calculators: Partial<Record<CalculatorName, CalculatorEntry>>,
+  findings: readonly Finding[] | Partial<Record<CalculatorName, CalculatorEntry>>,
   savedAt: Date = new Date(),
+  batch?: BatchTable,
 ): Appraisal {
+  const list = Array.isArray(findings) ? (findings as readonly Finding[]) : findingsFromCalculators(findings as Partial<Record<CalculatorName, CalculatorEntry>>);
   return Object.freeze({
     format: APPRAISAL_FORMAT,
     version: APPRAISAL_VERSION,
     savedAt: savedAt.toISOString(),
     study: Object.freeze({ ...study }),
-    calculators: Object.freeze({ ...calculators }),
+    findings: Object.freeze(list.map((f) => Object.freeze({ id: f.id, method: f.method, name: f.name, inputs: f.inputs, summary: f.summary }))),
+    ...(batch ? { batch: Object.freeze({ text: batch.text, alpha: batch.alpha }) } : {}),
   });
+}
+
+/**
+ * One finding per calculator entry (the reading of a version-1 file), in registry order: its id is the method's
+ * id and its name the method's title.
+ */
+export function findingsFromCalculators(calculators: Partial<Record<CalculatorName, CalculatorEntry>>): Finding[] {
+  const out: Finding[] = [];
+  for (const method of METHODS) {
+    const entry = calculators[method.id];
+    if (entry) out.push({ id: method.id, method: method.id, name: method.title, inputs: entry.inputs, summary: entry.summary });
+  }
+  return out;
+}
+
+/** The findings of one method, in the appraisal's order. */
+export function findingsOf(appraisal: Appraisal, method: string): Finding[] {
+  return appraisal.findings.filter((f) => f.method === method);
 }
 
 /**
  * Reads an appraisal from parsed JSON, checking every field against the shipped JSON Schema
  * (`src/workspace/appraisal.schema.json`, compiled into `appraisalValidator.generated.js`): the study labels,
- * every method's inputs and its saved summary. Returns the appraisal, or the problem found with the path of the
- * field it concerns (`calculators.evalue.summary.measure`).
+ * every finding's inputs and its saved summary. A version-1 file is read as one finding per calculator. Returns
+ * the appraisal, or the problem found with the path of the field it concerns (`findings[2].inputs.estimate`;
+ * `calculators.evalue.summary.measure` in a version-1 file).
  */
 export function readAppraisal(json: unknown): { appraisal: Appraisal; problems: [] } | { appraisal: null; problems: InputProblem[] } {
   const refuse = (problem: InputProblem) => ({ appraisal: null, problems: [problem] });
@@ -66,12 +116,13 @@ export function readAppraisal(json: unknown): { appraisal: Appraisal; problems: 
     return refuse(inputProblem('format', 'wrong-format', `must be "${APPRAISAL_FORMAT}"; this is not a Lurk appraisal`, json.format));
   }
   if (json.version === undefined) return refuse(inputProblem('version', 'required', 'is missing'));
-  if (json.version !== APPRAISAL_VERSION) {
+  if (typeof json.version !== 'number' || !READABLE_VERSIONS.includes(json.version)) {
     const v = typeof json.version === 'number' ? json.version : JSON.stringify(json.version);
+    const readable = `this Lurk reads versions ${READABLE_VERSIONS.join(' and ')}`;
     const rule =
       typeof json.version === 'number' && json.version > APPRAISAL_VERSION
-        ? `is ${v}, made by a newer Lurk; this one reads version ${APPRAISAL_VERSION}`
-        : `is ${v}; this Lurk reads version ${APPRAISAL_VERSION}`;
+        ? `is ${v}, made by a newer Lurk; ${readable}: open it with a newer Lurk`
+        : `is ${v}; ${readable}`;
     return refuse(inputProblem('version', 'unsupported-version', rule, json.version));
   }
   if (!validateAppraisalSchema(json)) return refuse(schemaProblem(validateAppraisalSchema.errors ?? []));
@@ -80,13 +131,25 @@ export function readAppraisal(json: unknown): { appraisal: Appraisal; problems: 
   }
   // A saved summary is checked by the schema here and read again through its method's `readSummary` before it
   // reaches a sentence (see currentSummaries); the inputs are read by the method's request reader.
+  if (json.version === 1) {
+    const v1 = json as unknown as { savedAt: string; study: StudyLabels; calculators: Partial<Record<CalculatorName, CalculatorEntry>> };
+    const appraisal: Appraisal = { format: APPRAISAL_FORMAT, version: APPRAISAL_VERSION, savedAt: v1.savedAt, study: v1.study, findings: findingsFromCalculators(v1.calculators) };
+    return { appraisal, problems: [] };
+  }
+  const findings = json.findings as readonly Finding[];
+  const seen = new Map<string, number>();
+  for (const [i, finding] of findings.entries()) {
+    const earlier = seen.get(finding.id);
+    if (earlier !== undefined) return refuse(inputProblem(`findings[${i}].id`, 'duplicate-id', `is also the id of findings[${earlier}]; each finding needs its own id`, finding.id));
+    seen.set(finding.id, i);
+  }
   return { appraisal: json as unknown as Appraisal, problems: [] };
 }
 
 /** The schema's verdict as one problem: the most specific error (deepest field), in plain words. */
 function schemaProblem(errors: readonly SchemaError[]): InputProblem {
   if (errors.length === 0) return inputProblem('appraisal', 'invalid', 'does not follow the appraisal format');
-  const depth = (e: SchemaError) => e.instancePath.split('/').length + (e.keyword === 'required' || e.keyword === 'additionalProperties' ? 1 : 0);
+  const depth = (e: SchemaError) => e.instancePath.split('/').length + (e.keyword === 'required' || e.keyword === 'additionalProperties' || e.keyword === 'unevaluatedProperties' ? 1 : 0);
   const concrete = errors.filter((e) => e.keyword !== 'anyOf' && e.keyword !== 'if');
   const pool = concrete.length > 0 ? concrete : errors;
   // Among the alternatives of an anyOf (e.g. null or a summary), the branch that went deepest says most.
@@ -97,11 +160,13 @@ function schemaProblem(errors: readonly SchemaError[]): InputProblem {
   switch (error.keyword) {
     case 'required':
       return inputProblem(at(String(p.missingProperty)), 'required', 'is missing');
-    case 'additionalProperties': {
-      const key = String(p.additionalProperty);
+    case 'additionalProperties':
+    case 'unevaluatedProperties': {
+      const key = String(p.additionalProperty ?? p.unevaluatedProperty);
       if (path === 'calculators') return inputProblem(at(key), 'unknown-calculator', `is not a calculator (calculators: ${CALCULATORS.join(', ')})`);
       if (path === 'study') return inputProblem(at(key), 'unknown-field', 'is not a study label');
       if (path === '') return inputProblem(key, 'unknown-field', 'is not part of a Lurk appraisal');
+      if (/^findings\[\d+\]$/.test(path)) return inputProblem(at(key), 'unknown-field', 'is not a field of a finding (id, method, name, inputs, summary)');
       return inputProblem(at(key), 'unknown-field', `is not a field of ${path}`);
     }
     case 'type':
@@ -109,17 +174,21 @@ function schemaProblem(errors: readonly SchemaError[]): InputProblem {
     case 'const':
       return inputProblem(path, 'not-allowed', `must be ${JSON.stringify(p.allowedValue)}`);
     case 'enum':
+      if (/^findings\[\d+\]\.method$/.test(path)) return inputProblem(path, 'unknown-method', `is not a method of this Lurk (methods: ${CALCULATORS.join(', ')})`);
       return inputProblem(path, 'not-a-choice', `must be one of ${(p.allowedValues as unknown[]).map((v) => JSON.stringify(v)).join(', ')}`);
     case 'minimum':
     case 'maximum':
     case 'exclusiveMinimum':
     case 'exclusiveMaximum':
       return inputProblem(path, 'outside-range', `must be ${String(p.comparison)} ${String(p.limit)}`);
+    case 'minLength':
+      return inputProblem(path, 'required', 'is empty');
     case 'maxLength':
       return inputProblem(path, 'too-long', `must be at most ${String(p.limit)} characters`);
     case 'maxItems':
       return inputProblem(path, 'too-long', `must have at most ${String(p.limit)} items`);
     case 'pattern':
+      if (path.endsWith('.id')) return inputProblem(path, 'not-an-id', 'must be letters, digits, - and _ only');
       return inputProblem(path, 'not-a-date', 'must be a date and time in ISO 8601 form');
     default:
       return inputProblem(path || 'appraisal', 'invalid', 'does not follow the appraisal format');

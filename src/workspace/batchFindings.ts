@@ -23,7 +23,7 @@ import { emptyOvbForm, evaluateOvbForm, type OvbFormInputs } from '../methods/re
  * hazard ratio, so ratio rows get E-values only.
  */
 export const BATCH_COLUMNS = ['label', 'measure', 'estimate', 'lower', 'upper', 'se', 'df', 'level', 'outcome_prevalence', 'sd', 'target'] as const;
-type BatchColumn = (typeof BATCH_COLUMNS)[number];
+export type BatchColumn = (typeof BATCH_COLUMNS)[number];
 export const BATCH_MEASURES = Object.freeze(['rr', 'or', 'hr', 'smd', 'md', 'coef'] as const);
 export type BatchMeasure = (typeof BATCH_MEASURES)[number];
 
@@ -127,21 +127,7 @@ function appraiseRow(cell: (column: BatchColumn) => string, row: number, alpha: 
     return Object.freeze({ row, label, measure, ...empty, problem });
   }
   if (measure === 'coef') return coefficientRow(cell, row, label, alpha);
-  const hasLimits = cell('lower').trim() !== '' || cell('upper').trim() !== '';
-  const form: EValueFormInputs = {
-    ...emptyEValueForm(),
-    source: 'reported',
-    measure: measure as EValueFormInputs['measure'],
-    estimate: cell('estimate'),
-    intervalBy: hasLimits || cell('se').trim() === '' ? 'limits' : 'se',
-    lower: cell('lower'),
-    upper: cell('upper'),
-    se: cell('se'),
-    level: cell('level').trim() === '' ? '95' : cell('level'),
-    outcomePrevalence: (cell('outcome_prevalence').trim().toLowerCase() as EValueFormInputs['outcomePrevalence']),
-    sd: cell('sd'),
-    target: cell('target'),
-  };
+  const form = eValueFormOfRow(cell);
   const outcome = evaluateEValueForm(form, null);
   const result = outcome.result;
   const problems = [...outcome.problems];
@@ -162,8 +148,32 @@ function appraiseRow(cell: (column: BatchColumn) => string, row: number, alpha: 
   });
 }
 
+/** The E-value calculator's form of a batch row (its cells as typed): the same reading as the batch table's. */
+export function eValueFormOfRow(cell: (column: BatchColumn) => string): EValueFormInputs {
+  const hasLimits = cell('lower').trim() !== '' || cell('upper').trim() !== '';
+  return {
+    ...emptyEValueForm(),
+    source: 'reported',
+    measure: cell('measure').trim().toLowerCase() as EValueFormInputs['measure'],
+    estimate: cell('estimate'),
+    intervalBy: hasLimits || cell('se').trim() === '' ? 'limits' : 'se',
+    lower: cell('lower'),
+    upper: cell('upper'),
+    se: cell('se'),
+    level: cell('level').trim() === '' ? '95' : cell('level'),
+    outcomePrevalence: cell('outcome_prevalence').trim().toLowerCase() as EValueFormInputs['outcomePrevalence'],
+    sd: cell('sd'),
+    target: cell('target'),
+  };
+}
+
+/** The regression calculator's form of a `coef` batch row (estimate, se, df), with α as typed. */
+export function ovbFormOfRow(cell: (column: BatchColumn) => string, alpha: string): OvbFormInputs {
+  return { ...emptyOvbForm(), source: 'reported', estimate: cell('estimate'), se: cell('se'), dfBy: 'df', df: cell('df'), alpha };
+}
+
 function coefficientRow(cell: (column: BatchColumn) => string, row: number, label: string, alpha: number): BatchRow {
-  const form: OvbFormInputs = { ...emptyOvbForm(), source: 'reported', estimate: cell('estimate'), se: cell('se'), dfBy: 'df', df: cell('df'), alpha: String(alpha) };
+  const form = ovbFormOfRow(cell, String(alpha));
   const outcome = evaluateOvbForm(form, null);
   const r = outcome.result;
   const problems = outcome.problems.length > 0 && (cell('se').trim() === '' || cell('df').trim() === '')

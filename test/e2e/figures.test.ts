@@ -71,10 +71,10 @@ async function loadCrowded(page: Page): Promise<void> {
   await page.evaluate(() => {
     const app = document.querySelector('lurk-app') as unknown as { appraisal: any; load(a: any): void };
     const appraisal = JSON.parse(JSON.stringify(app.appraisal));
-    const regression = appraisal.calculators.regression;
+    const regression = appraisal.findings.find((f: { method: string }) => f.method === 'regression');
     regression.inputs.covariateTs = Array.from({ length: 20 }, (_, i) => ({ name: `household income band ${i + 1}`, outcomeT: (2 + 0.05 * i).toFixed(2), treatmentT: (-1.5 - 0.03 * i).toFixed(2) }));
     regression.summary = null;
-    const evalue = appraisal.calculators.evalue;
+    const evalue = appraisal.findings.find((f: { method: string }) => f.method === 'evalue');
     evalue.inputs.confounders = Array.from({ length: 12 }, (_, i) => ({ name: `deprivation quintile ${i + 1}`, rrExposure: (1.5 + 0.01 * i).toFixed(2), rrOutcome: (1.6 + 0.01 * i).toFixed(2) }));
     evalue.summary = null;
     app.load(appraisal);

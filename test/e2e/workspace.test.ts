@@ -78,7 +78,7 @@ describe('the appraisal workspace in Chromium', () => {
     await download.saveAs(path);
     const saved = JSON.parse(readFileSync(path, 'utf8'));
     expect(saved.format).toBe('lurk-appraisal');
-    expect(saved.version).toBe(1);
+    expect(saved.version).toBe(2);
 
     // Change something, then open the saved file: everything comes back.
     await page.getByLabel('Finding', { exact: true }).fill('Something else entirely');
@@ -113,14 +113,15 @@ describe('the appraisal workspace in Chromium', () => {
     const before = await currentAppraisal(page);
     await page.getByRole('button', { name: 'Copy share link' }).click();
     const link = page.url();
-    expect(link).toContain('#appraisal=1.');
+    expect(link).toContain('#appraisal=2.');
     const other = await browser.newPage();
     await other.goto(link);
     await other.locator('lurk-evalue').waitFor();
-    // A share link never carries raw data rows: the pasted pair differences stay behind, their summary travels.
-    const { pasted: _rows, ...pairsInputs } = (before.calculators as Record<string, { inputs: Record<string, unknown> }>).pairs.inputs;
-    const expected = structuredClone(before) as typeof before & { calculators: Record<string, { inputs: unknown }> };
-    expected.calculators.pairs.inputs = pairsInputs;
+    // A share link never carries raw data rows: the pasted pair differences stay behind (the field opens empty),
+    // their summary travels.
+    const expected = structuredClone(before) as typeof before & { findings: { method: string; inputs: Record<string, unknown> }[] };
+    const pairs = expected.findings.find((f) => f.method === 'pairs')!;
+    pairs.inputs.pasted = '';
     await expect.poll(() => currentAppraisal(other)).toEqual(expected);
     await other.close();
   });

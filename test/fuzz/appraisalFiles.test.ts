@@ -2,11 +2,12 @@
 // type, tampered links. Reading never crashes; a file is refused with the path of a field, or its statement
 // (Markdown, LaTeX, HTML) and bottom line hold no NaN/undefined/Infinity/"not available".
 import fc from 'fast-check';
+
 import { describe, expect, it } from 'vitest';
 import { createAppraisal, readAppraisal, type Appraisal } from '../../src/workspace/appraisal';
 import { buildRobustnessStatement, renderRobustnessStatement } from '../../src/workspace/robustnessStatement';
 import { buildBottomLine } from '../../src/workspace/bottomLine';
-import { decodeShareFragment, encodeShareFragment } from '../../src/workspace/shareLink';
+import { decodeShareFragment, encodeShareFragment, fragmentOfJson } from '../../src/workspace/shareLink';
 import { METHODS } from '../../src/methods/registry';
 import { crc32 } from '../../src/data/crc32';
 import { fictionalStudy } from '../../src/demo/fictionalStudy';
@@ -49,15 +50,15 @@ const edit = fc.oneof(
   {
     weight: 2,
     arbitrary: fc
-      .tuple(fc.constantFrom(...METHODS.map((m) => m.id)), fc.constantFrom(...EXTRA_KEYS), anyJson)
-      .map(([id, key, value]) => ({ path: ['calculators', id, 'summary', key], value, remove: false })),
+      .tuple(fc.nat(METHODS.length - 1), fc.constantFrom(...EXTRA_KEYS), anyJson)
+      .map(([index, key, value]) => ({ path: ['findings', index, 'summary', key], value, remove: false })),
   },
 );
 
 function applyEdits(base: Record<string, any>, edits: { path: (string | number)[]; value: unknown; remove: boolean }[], fileSource: boolean): Record<string, any> {
   const copy = JSON.parse(JSON.stringify(base));
   // With the data source "file", each method's statement comes from its saved summary (the rows are not saved).
-  if (fileSource) for (const id of Object.keys(copy.calculators)) copy.calculators[id].inputs.source = 'file';
+  if (fileSource) for (const finding of copy.findings) finding.inputs.source = 'file';
   for (const { path, value, remove } of edits) {
     let at = copy;
     for (const key of path.slice(0, -1)) {
@@ -89,7 +90,7 @@ describe('appraisal files, damaged', () => {
         const typedLeak = edits.some((e) => JSON.stringify(e.value ?? null).match(LEAKS));
         if (read.appraisal === null) {
           expect(read.problems.length).toBeGreaterThan(0);
-          expect(read.problems[0].field).toMatch(/^(appraisal|format|version|savedAt|study|calculators)\b/);
+          expect(read.problems[0].field).toMatch(/^(appraisal|format|version|savedAt|study|findings|calculators)\b/);
           expect(read.problems[0].message).not.toMatch(/undefined|NaN|\[object Object\]/);
           return;
         }
@@ -103,17 +104,17 @@ describe('appraisal files, damaged', () => {
     const inputsOf = fc.dictionary(fc.constantFrom('source', 'measure', 'estimate', 'lower', 'upper', 'se', 'target', 'level', 'df', 'alpha', 'k', 'q', 'pasted', 'gammas', 'test', 'counts', 'confounders', 'covariateTs', 'exposedValues'), anyJson, { maxKeys: 6 });
     fc.assert(
       fc.property(fc.record({ evalue: inputsOf, pairs: inputsOf, regression: inputsOf }, { requiredKeys: [] }), (inputs) => {
-        const json = { ...DEMO, calculators: Object.fromEntries(Object.entries(inputs).map(([id, form]) => [id, { inputs: form, summary: null }])) };
-        const read = readAppraisal(JSON.parse(JSON.stringify(json)));
+        const findings = Object.entries(inputs).map(([id, form]) => ({ id, method: id, name: id, inputs: form, summary: null }));
+        const read = readAppraisal(JSON.parse(JSON.stringify({ ...DEMO, findings })));
         if (read.appraisal) expectStatementsClean(read.appraisal, JSON.stringify(inputs));
-        else expect(read.problems[0].field).toMatch(/^calculators\./);
+        else expect(read.problems[0].field).toMatch(/^findings\[\d+\]\.inputs\b/);
       }),
       { seed: FUZZ_SEED, numRuns: FUZZ_RUNS },
     );
   }, 120_000);
 });
 
-/** A share fragment with valid check digits for any JSON (as a deliberate editor would make it). */
+/** A share fragment with valid check digits for any JSON (as a deliberate editor would make it), in link format 1. */
 function fragmentOf(json: unknown): string {
   const bytes = new TextEncoder().encode(JSON.stringify(json));
   const check = crc32(bytes).toString(16).padStart(8, '0');
@@ -131,6 +132,7 @@ describe('share links, tampered', () => {
       fc.string({ maxLength: 60 }).map((s) => `#appraisal=${s}`),
       // A deliberate edit with fresh check digits: the check digits catch damage, not edits; the reader must still hold.
       fc.tuple(fc.array(edit, { minLength: 1, maxLength: 2 }), fc.boolean()).map(([edits, file]) => fragmentOf(applyEdits(DEMO, edits, file))),
+      fc.tuple(fc.array(edit, { minLength: 1, maxLength: 2 }), fc.boolean()).map(([edits, file]) => fragmentOfJson(applyEdits(DEMO, edits, file))),
     );
     fc.assert(
       fc.property(tamper, (fragment) => {

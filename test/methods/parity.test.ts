@@ -62,7 +62,7 @@ function batchEstimate(text: string): Reading {
 function linkEstimate(text: string): Reading {
   const appraisal = createAppraisal(emptyStudy, { evalue: { inputs: { ...emptyEValueForm(), source: 'reported', measure: 'smd', estimate: text }, summary: null } });
   const decoded = decodeShareFragment(encodeShareFragment(appraisal));
-  const form = methodById('evalue')!.form.normalise(decoded.appraisal!.calculators.evalue!.inputs);
+  const form = methodById('evalue')!.form.normalise(decoded.appraisal!.findings[0].inputs);
   return pageEstimate((form as { estimate: string }).estimate);
 }
 
@@ -93,7 +93,7 @@ function batchDf(text: string): Reading {
 function linkDf(text: string): Reading {
   const appraisal = createAppraisal(emptyStudy, { regression: { inputs: { ...emptyOvbForm(), source: 'reported', estimate: '2', se: '0.5', dfBy: 'df', df: text }, summary: null } });
   const decoded = decodeShareFragment(encodeShareFragment(appraisal));
-  const form = methodById('regression')!.form.normalise(decoded.appraisal!.calculators.regression!.inputs);
+  const form = methodById('regression')!.form.normalise(decoded.appraisal!.findings[0].inputs);
   return pageDf((form as { df: string }).df);
 }
 

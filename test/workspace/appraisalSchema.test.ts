@@ -14,8 +14,10 @@ type Defs = Record<string, { properties: { inputs: { properties: Record<string, 
 const defs = schema.$defs as unknown as Defs;
 
 describe('the appraisal schema covers every method of the registry', () => {
-  it('has one calculator entry per method id, and no other', () => {
-    expect(Object.keys(schema.properties.calculators.properties).sort()).toEqual(METHODS.map((m) => m.id).sort());
+  it('has one calculator entry per method id, and no other (version 1), and a finding may name each method (version 2)', () => {
+    expect(Object.keys(schema.$defs.version1.properties.calculators.properties).sort()).toEqual(METHODS.map((m) => m.id).sort());
+    expect([...schema.$defs.finding.properties.method.enum].sort()).toEqual(METHODS.map((m) => m.id).sort());
+    expect(schema.$defs.finding.allOf.map((branch) => branch.then.$ref)).toEqual(METHODS.map((m) => `#/$defs/${m.id}`));
   });
 
   it("names every field of each method's form", () => {
@@ -64,6 +66,7 @@ describe('inputs saved as numbers instead of text', () => {
     const md = renderRobustnessStatement(buildRobustnessStatement(read.appraisal!), 'md');
     expect(md).toContain('risk ratio 3.9');
     expect(md).toContain('is 7.26');
+    expect(read.appraisal?.findings[0].name).toBe('Reported estimate');
     expect(METHODS[0].form.normalise(appraisal.calculators.evalue.inputs)).toMatchObject({ estimate: '3.9', lower: '1.8', upper: '8.7' });
   });
 

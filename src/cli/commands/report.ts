@@ -1,5 +1,5 @@
 import { readAppraisal, type Appraisal } from '../../workspace/appraisal';
-import { currentSummaries } from '../../workspace/currentSummaries';
+import { findingsWithoutResult } from '../../workspace/currentSummaries';
 import { buildRobustnessStatement, renderRobustnessStatement, type StatementFormat } from '../../workspace/robustnessStatement';
 import { buildBottomLine } from '../../workspace/bottomLine';
 import { InputError, inputProblem } from '../../methods/problems';
@@ -62,7 +62,7 @@ export const command: LurkCommand = defineCommand({
     const missing = calculatorsWithoutResult(read.appraisal);
     const done = (): number => {
       if (missing.length === 0 || values['keep-going']) return 0;
-      io.err(`lurk report: calculators.${missing.join(', calculators.')}: had a result when saved but gives none now; left out (--keep-going exits 0)\n`);
+      io.err(`lurk report: ${missing.join(', ')}: had a result when saved but gives none now; left out (--keep-going exits 0)\n`);
       return EXIT_WITH_PROBLEMS;
     };
     if (values['bottom-line']) {
@@ -85,10 +85,8 @@ export const command: LurkCommand = defineCommand({
   },
 });
 
-/** Calculators saved with a result (a summary) that give none now, by id. */
+/** Findings saved with a result (a summary) that give none now, by name and field path (`finding "Mortality" (findings[1])`). */
 function calculatorsWithoutResult(appraisal: Appraisal): string[] {
-  const shown = new Set(currentSummaries(appraisal).map((s) => s.method.id));
-  return Object.entries(appraisal.calculators)
-    .filter(([id, entry]) => entry && entry.summary !== null && !shown.has(id))
-    .map(([id]) => id);
+  const lost = new Set(findingsWithoutResult(appraisal));
+  return appraisal.findings.flatMap((f, i) => (lost.has(f) ? [`finding ${JSON.stringify(f.name || f.method)} (findings[${i}])`] : []));
 }
