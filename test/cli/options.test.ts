@@ -214,7 +214,7 @@ describe('the built command', () => {
     const broken = JSON.stringify({ ...appraisal, calculators: { ...appraisal.calculators, regression: { inputs: { source: 'reported', estimate: 'oops', se: '1', df: '10' }, summary: { kind: 'regression', estimate: 2, se: 1, t: 2, df: 10, q: 1, alpha: 0.05, direction: 'toward-zero', partialR2: 0.29, rv: 0.46, rvAlpha: 0, benchmarks: [] } } } });
     const report = run(['report', '-'], broken);
     expect(report.status).toBe(3);
-    expect(report.stderr).toMatch(/^lurk report: calculators\.regression: had a result when saved but gives none now/);
+    expect(report.stderr).toMatch(/^lurk report: finding "Regression" \(findings\[\d+\]\): had a result when saved but gives none now/);
     expect(run(['report', '-', '--keep-going'], broken).status).toBe(0);
     expect(run(['report', '-'], readFileSync(appraisalPath, 'utf8')).status).toBe(0);
   });
