@@ -2,7 +2,7 @@ import { LitElement, html, nothing, type TemplateResult } from 'lit';
 import { html as staticHtml, unsafeStatic } from 'lit/static-html.js';
 import { keyed } from 'lit/directives/keyed.js';
 import { customElement, property, state } from 'lit/decorators.js';
-import { emptyStudy, type StudyLabels } from '../src/format/studyLabels';
+import { emptyStudy, labelsOfFinding, type FindingLabels, type StudyLabels } from '../src/format/studyLabels';
 import { createAppraisal, type Appraisal, type CalculatorSummary, type Finding } from '../src/workspace/appraisal';
 import { withFindingChanged, withNewFinding, withoutFinding } from '../src/workspace/findingList';
 import { findingOfBatchRow, withBatchRow } from '../src/workspace/batchRows';
@@ -148,6 +148,8 @@ export class LurkApp extends LitElement {
           .findings=${this.findings}
           .methods=${METHOD_CHOICES}
           .current=${shown?.id ?? ''}
+          .study=${this.study}
+          @lurk-finding-labels=${(e: CustomEvent<{ id: string; labels: FindingLabels }>) => this.setFindings(withFindingChanged(this.findings, e.detail.id, { labels: e.detail.labels }))}
           @lurk-finding-select=${(e: CustomEvent<{ id: string }>) => this.select(e.detail.id)}
           @lurk-finding-rename=${(e: CustomEvent<{ id: string; name: string }>) => this.setFindings(withFindingChanged(this.findings, e.detail.id, { name: e.detail.name }))}
           @lurk-finding-remove=${(e: CustomEvent<{ id: string }>) => this.removeFinding(e.detail.id)}
@@ -208,7 +210,7 @@ export class LurkApp extends LitElement {
     const top = finding ? nothing : html`<p class="finding-bar">No finding of this kind yet: what you type below starts one.</p>`;
     const calc = keyed(
       `${method}:${this.generation[method] ?? 0}`,
-      staticHtml`<${tag} data-calculator .study=${this.study} .inputs=${finding?.inputs ?? null} @lurk-inputs-change=${record} @lurk-result=${record}></${tag}>`,
+      staticHtml`<${tag} data-calculator .study=${labelsOfFinding(this.study, finding?.labels)} .inputs=${finding?.inputs ?? null} @lurk-inputs-change=${record} @lurk-result=${record}></${tag}>`,
     );
     const bottom = html`<div class="finding-bar">
       ${finding ? html`<span>Finding <span class="editing">${finding.name.trim() || 'Unnamed finding'}</span></span>` : nothing}

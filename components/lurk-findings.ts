@@ -1,13 +1,22 @@
 import { LitElement, css, html, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import { baseStyles } from './styles/base';
+import { emptyStudy, type FindingLabels, type StudyLabels } from '../src/format/studyLabels';
 
 /** A finding as the list shows it. */
 export interface FindingItem {
   readonly id: string;
   readonly method: string;
   readonly name: string;
+  readonly labels?: FindingLabels;
 }
+
+/** The labels a finding may have of its own, with the words the page uses for them. */
+const OWN_LABELS: readonly { key: keyof FindingLabels; label: string }[] = [
+  { key: 'exposure', label: 'Its exposure or treatment' },
+  { key: 'outcome', label: 'Its outcome' },
+  { key: 'units', label: "Its outcome's units" },
+];
 
 /** A method a new finding may use. */
 export interface MethodChoice {
@@ -22,8 +31,10 @@ export interface MethodChoice {
  * @property findings - the findings (id, method, name), in order.
  * @property methods - the methods a finding may use (id, title).
  * @property current - the id of the finding shown now, or "".
+ * @property study - the study's labels, shown as what a finding's own labels fall back to.
  * @fires lurk-finding-select - {id} when the user opens a finding.
  * @fires lurk-finding-rename - {id, name} when the user edits the current finding's name.
+ * @fires lurk-finding-labels - {id, labels} when the user edits the current finding's own exposure, outcome or units.
  * @fires lurk-finding-remove - {id} when the user removes the current finding.
  * @fires lurk-finding-add - {method} when the user adds a finding.
  * @cssprop --lurk-font - font family
@@ -118,6 +129,7 @@ export class LurkFindings extends LitElement {
   @property({ attribute: false }) findings: readonly FindingItem[] = [];
   @property({ attribute: false }) methods: readonly MethodChoice[] = [];
   @property() current = '';
+  @property({ attribute: false }) study: StudyLabels = emptyStudy;
 
   @state() private newMethod = '';
 
@@ -151,7 +163,8 @@ export class LurkFindings extends LitElement {
                   />
                 </div>
                 <button class="secondary" type="button" @click=${() => this.confirmRemove(current)}>Remove this finding</button>
-              </div>`
+              </div>
+              <div class="row">${OWN_LABELS.map(({ key, label }) => this.ownLabel(current, key, label))}</div>`
           : nothing}
           <div class="row">
             <div class="field">
@@ -164,6 +177,21 @@ export class LurkFindings extends LitElement {
           </div>
       </section>
     `;
+  }
+
+  /** One of the finding's own labels; empty means the study's, shown as the placeholder. */
+  private ownLabel(finding: FindingItem, key: keyof FindingLabels, label: string) {
+    const studyValue = this.study[key].trim();
+    return html`<div class="field">
+      <label for="finding-${key}">${label}</label>
+      <input
+        id="finding-${key}"
+        type="text"
+        .value=${finding.labels?.[key] ?? ''}
+        placeholder=${studyValue ? `as the study: ${studyValue}` : 'as the study'}
+        @input=${(e: Event) => this.fire('lurk-finding-labels', { id: finding.id, labels: { ...finding.labels, [key]: (e.target as HTMLInputElement).value } })}
+      />
+    </div>`;
   }
 
   private confirmRemove(finding: FindingItem): void {
@@ -183,6 +211,7 @@ declare global {
   interface GlobalEventHandlersEventMap {
     'lurk-finding-select': CustomEvent<{ id: string }>;
     'lurk-finding-rename': CustomEvent<{ id: string; name: string }>;
+    'lurk-finding-labels': CustomEvent<{ id: string; labels: FindingLabels }>;
     'lurk-finding-remove': CustomEvent<{ id: string }>;
     'lurk-finding-add': CustomEvent<{ method: string }>;
   }

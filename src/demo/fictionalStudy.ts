@@ -77,6 +77,11 @@ const DEMO_FINDING_NAMES: Record<keyof DemoAppraisal['inputs'], string> = {
   regression: 'Systolic blood pressure, regression coefficient',
 };
 
+/** The demo's findings whose outcome is not the study's (the risk ratio is of high blood pressure, not of mmHg). */
+const DEMO_FINDING_LABELS: Partial<Record<keyof DemoAppraisal['inputs'], Finding['labels']>> = {
+  evalue: { outcome: 'high blood pressure within 5 years' },
+};
+
 /**
  * The demo as an appraisal of three findings (ids f1, f2, f3), each with its name, its inputs completed and,
  * with `withSummaries`, the summary its inputs give (as the page holds it once computed).
@@ -87,7 +92,8 @@ export function fictionalAppraisal(withSummaries = false, savedAt = new Date()):
     const method = methodById(id)!;
     const inputs = method.form.normalise(demo.inputs[id]) as Record<string, unknown>;
     const summary = withSummaries ? (method.workspace.summaryFromForm(inputs) as Finding['summary']) : null;
-    return { id: `f${i + 1}`, method: id, name: DEMO_FINDING_NAMES[id], inputs, summary };
+    const labels = DEMO_FINDING_LABELS[id];
+    return { id: `f${i + 1}`, method: id, name: DEMO_FINDING_NAMES[id], ...(labels ? { labels } : {}), inputs, summary };
   });
   return createAppraisal(demo.study, findings, savedAt);
 }

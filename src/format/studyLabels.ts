@@ -15,6 +15,19 @@ export interface StudyLabels {
   readonly source: string;
 }
 
+/** A finding's own exposure, outcome and units, where they differ from the study's (empty: the study's). */
+export type FindingLabels = Partial<Pick<StudyLabels, 'exposure' | 'outcome' | 'units'>>;
+
+/**
+ * The labels one finding speaks with: the study's, with the finding's own exposure, outcome and units where it
+ * has them (a paper's mortality hazard ratio and its readmission odds ratio share a study, not an outcome).
+ */
+export function labelsOfFinding(study: StudyLabels, own: FindingLabels | undefined): StudyLabels {
+  if (!own) return study;
+  const pick = (mine: string | undefined, theirs: string) => (mine !== undefined && mine.trim() !== '' ? mine : theirs);
+  return Object.freeze({ ...study, exposure: pick(own.exposure, study.exposure), outcome: pick(own.outcome, study.outcome), units: pick(own.units, study.units) });
+}
+
 export const emptyStudy: StudyLabels = Object.freeze({ finding: '', exposure: '', outcome: '', units: '', source: '' });
 
 /** The exposure's label for prose, or a generic phrase when none was given. */

@@ -1,5 +1,5 @@
 import { inputProblem, type InputProblem } from '../core/inputProblem';
-import type { StudyLabels } from '../format/studyLabels';
+import type { FindingLabels, StudyLabels } from '../format/studyLabels';
 import { METHODS } from '../methods/registry';
 import { validate as validateAppraisalSchema, type SchemaError } from './appraisalValidator.generated.js';
 
@@ -40,6 +40,8 @@ export interface Finding extends CalculatorEntry {
   readonly method: string;
   /** The short name the reviewer gave it, e.g. "Mortality, hazard ratio" (may be empty). */
   readonly name: string;
+  /** Its own exposure, outcome and units where they differ from the study's (see `labelsOfFinding`). */
+  readonly labels?: FindingLabels;
 }
 
 /** The batch table of many reported findings, as typed. */
@@ -78,7 +80,7 @@ export function createAppraisal(
     version: APPRAISAL_VERSION,
     savedAt: savedAt.toISOString(),
     study: Object.freeze({ ...study }),
-    findings: Object.freeze(list.map((f) => Object.freeze({ id: f.id, method: f.method, name: f.name, inputs: f.inputs, summary: f.summary }))),
+    findings: Object.freeze(list.map((f) => Object.freeze({ id: f.id, method: f.method, name: f.name, ...(f.labels ? { labels: Object.freeze({ ...f.labels }) } : {}), inputs: f.inputs, summary: f.summary }))),
     ...(batch ? { batch: Object.freeze({ text: batch.text, alpha: batch.alpha }) } : {}),
   });
 }

@@ -1,5 +1,6 @@
 import type { Appraisal } from './appraisal';
 import { currentSummaries } from './currentSummaries';
+import { labelsOfFinding } from '../format/studyLabels';
 
 /**
  * The bottom line for decision-makers, finding by finding: in plain words, how strong a hidden confounder would have to be,
@@ -45,7 +46,7 @@ export const DECISION_CAUTION =
 
 export function buildBottomLine(appraisal: Appraisal): BottomLine {
   const findings: FindingBottomLine[] = currentSummaries(appraisal).map(({ finding, heading, method, summary }) => {
-    const part = method.workspace.bottomLine(summary, appraisal.study);
+    const part = method.workspace.bottomLine(summary, labelsOfFinding(appraisal.study, finding.labels));
     return Object.freeze({
       findingId: finding.id,
       heading,

@@ -1,5 +1,6 @@
 import type { Appraisal } from './appraisal';
 import { currentSummaries } from './currentSummaries';
+import { labelsOfFinding } from '../format/studyLabels';
 import { escapeHtml, escapeLatex, escapeMarkdown } from '../format/markup';
 
 /**
@@ -55,7 +56,7 @@ export function buildRobustnessStatement(appraisal: Appraisal): RobustnessStatem
   const sections: StatementSection[] = [];
   const assumptions: string[] = [];
   for (const { finding, heading, method, summary, from } of currentSummaries(appraisal)) {
-    const part = method.workspace.statement(summary, study, cite);
+    const part = method.workspace.statement(summary, labelsOfFinding(study, finding.labels), cite);
     if (!part) continue;
     sections.push(Object.freeze({ findingId: finding.id, heading, paragraph: part.paragraph }));
     if (from === 'saved-file-result') {

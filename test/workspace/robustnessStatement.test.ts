@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { createAppraisal, type Appraisal, type Finding } from '../../src/workspace/appraisal';
+import { readAppraisal, createAppraisal, type Appraisal, type Finding } from '../../src/workspace/appraisal';
 import { emptyEValueForm, evaluateEValueForm, type EValueFormInputs } from '../../src/methods/evalue/request';
 import { emptyOvbForm, evaluateOvbForm, type OvbFormInputs } from '../../src/methods/regression/request';
 import { formatNumber, formatPercent } from '../../src/format/formatNumber';
@@ -188,6 +188,22 @@ describe('an appraisal of several findings of different methods', () => {
     const edited = createAppraisal(study, [{ ...findings[1], summary: stale as Finding['summary'] }]);
     expect(buildRobustnessStatement(edited).sections[0].paragraph).toContain('3.21');
     expect(buildRobustnessStatement(edited).sections[0].paragraph).not.toContain('7.26');
+  });
+
+  it("speaks of each finding's own outcome and exposure where it has them, of the study's otherwise", () => {
+    const own = createAppraisal(study, [
+      { ...findings[0], labels: { outcome: 'stroke within 5 years' } },
+      { ...findings[1], labels: { outcome: '', exposure: '  ' } },
+    ]);
+    const statementOwn = buildRobustnessStatement(own);
+    expect(statementOwn.sections[0].paragraph).toContain('stroke within 5 years');
+    expect(statementOwn.sections[0].paragraph).not.toContain(study.outcome);
+    // Empty or blank own labels fall back to the study's.
+    expect(statementOwn.sections[1].paragraph).toContain(study.outcome);
+    expect(buildBottomLine(own).findings[0].howStrong.join(' ')).toContain('stroke within 5 years');
+    // The labels survive a save and a reopen.
+    const reread = readAppraisal(JSON.parse(JSON.stringify(own)));
+    expect(reread.appraisal?.findings[0].labels).toEqual({ outcome: 'stroke within 5 years' });
   });
 
   it('names a finding without a name by its method and place', () => {

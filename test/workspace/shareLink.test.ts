@@ -103,11 +103,18 @@ describe('share links (link format 2: compressed)', () => {
     expect(decodeShareFragment('#appraisal=2.AAAA.00000000').problems[0].code).toMatch(/tampered|damaged/);
   });
 
-  it('round-trip any study labels and finding names, including non-ASCII text', () => {
+  it("round-trip any study labels, finding names and findings' own labels, including non-ASCII text", () => {
     const labels = fc.record({ finding: fc.string(), exposure: fc.string(), outcome: fc.string({ unit: 'binary' }), units: fc.string(), source: fc.string() });
     fc.assert(
-      fc.property(labels, fc.array(fc.string({ unit: 'binary', maxLength: 30 }), { maxLength: 4 }), (study, names) => {
-        const findings: Finding[] = names.map((name, i) => ({ id: `f${i + 1}`, method: 'evalue', name, inputs: { estimate: String(i + 2) }, summary: null }));
+      fc.property(labels, fc.array(fc.string({ unit: 'binary', maxLength: 30 }), { maxLength: 4 }), fc.string({ unit: 'binary', maxLength: 20 }), (study, names, outcome) => {
+        const findings: Finding[] = names.map((name, i) => ({
+          id: `f${i + 1}`,
+          method: 'evalue',
+          name,
+          ...(i % 2 === 1 ? { labels: { outcome } } : {}),
+          inputs: { estimate: String(i + 2) },
+          summary: null,
+        }));
         const a = createAppraisal(study, findings, new Date(0));
         expect(decodeShareFragment(encodeShareFragment(a)).appraisal).toEqual(a);
       }),
