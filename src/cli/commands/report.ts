@@ -21,17 +21,18 @@ const HELP = `lurk report — the robustness statement of a saved appraisal, rea
   lurk report APPRAISAL.json [--format md|tex|html] [--bottom-line] [--keep-going]
 
 APPRAISAL.json is a file saved from the Lurk page ("Save appraisal"). The statement gives the numbers of each
-calculator used, the assumptions each method makes, and full references to the published methods.
+finding appraised (a part per finding, named after it), the assumptions each method makes, and full references to
+the published methods.
 
   --format       md (Markdown, default), tex (LaTeX) or html
   --bottom-line  print the plain-language bottom line for decision-makers instead
-  --keep-going   exit with status 0 even when some calculators of the appraisal give no result
+  --keep-going   exit with status 0 even when some findings of the appraisal give no result
 
 APPRAISAL.json "-" is standard input. Every field of the file is checked against the appraisal schema; a file
 that breaks it is refused with the path of the field. The numbers are computed again from the saved inputs.
 
 Exit status: 0 the statement is printed; 2 bad input (options, or a file that is not a valid appraisal);
-3 the statement is printed, but a calculator that had a result when saved gives none now (its inputs have
+3 the statement is printed, but a finding that had a result when saved gives none now (its inputs have
 problems, or its saved result of a file that is not kept cannot be read); it is named on standard error
 and left out of the statement (unless --keep-going, which exits 0).
 
@@ -59,7 +60,7 @@ export const command: LurkCommand = defineCommand({
       const first = read.problems[0];
       throw new InputError([inputProblem('APPRAISAL', first.code, `${first.field} ${first.message}`)]);
     }
-    const missing = calculatorsWithoutResult(read.appraisal);
+    const missing = findingsNowWithoutResult(read.appraisal);
     const done = (): number => {
       if (missing.length === 0 || values['keep-going']) return 0;
       io.err(`lurk report: ${missing.join(', ')}: had a result when saved but gives none now; left out (--keep-going exits 0)\n`);
@@ -68,7 +69,7 @@ export const command: LurkCommand = defineCommand({
     if (values['bottom-line']) {
       const line = buildBottomLine(read.appraisal);
       const out = line.empty
-        ? ['No calculator in this appraisal has a result yet.']
+        ? ['No finding in this appraisal has a result yet.']
         : [
             'How strong would a hidden confounder have to be?',
             ...line.howStrong.map((s) => `  - ${s}`),
@@ -86,7 +87,7 @@ export const command: LurkCommand = defineCommand({
 });
 
 /** Findings saved with a result (a summary) that give none now, by name and field path (`finding "Mortality" (findings[1])`). */
-function calculatorsWithoutResult(appraisal: Appraisal): string[] {
+function findingsNowWithoutResult(appraisal: Appraisal): string[] {
   const lost = new Set(findingsWithoutResult(appraisal));
   return appraisal.findings.flatMap((f, i) => (lost.has(f) ? [`finding ${JSON.stringify(f.name || f.method)} (findings[${i}])`] : []));
 }
