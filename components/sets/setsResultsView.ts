@@ -62,7 +62,7 @@ export function setsResultsTemplate(v: SetsResultsView): TemplateResult {
     <details class="conventions" id="sets-conventions">
       <summary>Conventions of this computation</summary>
       <ul>
-        ${result.conventions.map((c) => html`<li>${c}</li>`)}
+        ${result.conventions.map((c) => html`<li data-convention=${c.id}>${c.text}</li>`)}
       </ul>
     </details>
     <p class="caution" role="note">${SETS_CAUTION}</p>

@@ -4,6 +4,7 @@ import type { WeightingOutcome, WeightingProgress } from '../../src/methods/weig
 import { coveragePercent, formatEffectValue, formatLambda, tippingWords, WEIGHTING_CAUTION, weightingReading } from '../../src/methods/weighting/text';
 import { readNote } from '../../src/methods/weighting/analysis';
 import { formatNumber } from '../../src/format/formatNumber';
+import { conventionsBlock } from '../conventionsBlock';
 import type { PlotSpec } from '../../src/plot/plotSpec';
 import { notesBlock, plotColumn, waitingLine } from '../resultParts';
 
@@ -129,6 +130,7 @@ export function weightingResultsTemplate(v: WeightingResultsView): TemplateResul
       </table>
     </div>
     ${plotColumn([v.specs.bounds, v.specs.overlap, v.specs.weights])}
+    ${conventionsBlock(result.conventions)}
     <p class="caution" role="note">${WEIGHTING_CAUTION}</p>
   `;
 }

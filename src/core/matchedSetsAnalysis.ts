@@ -1,3 +1,4 @@
+import type { AnalysisConvention } from './analysisConvention';
 import { gammaListProblems } from './gammaList';
 import { inputProblem, throwIfProblems, type InputProblem } from './inputProblem';
 import { groupMatchedSets, mapMatchedSetsOutcomes, type MatchedSetsGrouping, type MatchedSetsLayout } from './matchedSetsGrouping';
@@ -111,8 +112,8 @@ export interface MatchedSetsResult {
   readonly searchedUpTo: number;
   /** Readable (Λ, Δ) pairs equivalent to the sensitivity value (Rosenbaum & Silber 2009). */
   readonly amplification: readonly AmplifiedPair[];
-  /** The conventions this computation follows, in words. */
-  readonly conventions: readonly string[];
+  /** The conventions this computation follows, in words, each with a stable id. */
+  readonly conventions: readonly AnalysisConvention[];
   readonly warnings: readonly string[];
 }
 
@@ -131,35 +132,40 @@ const REFERENCES_BINARY = Object.freeze([
   'Rosenbaum PR, Silber JH (2009) Amplification of sensitivity analysis in matched observational studies. JASA 104(488):1398–1405.',
 ]);
 
-const CONVENTIONS_CONTINUOUS = (trim: number, alternative: MatchedSetsAlternative): readonly string[] =>
-  Object.freeze([
-    'Scale σ: the median of |treated − control| over all sets and all controls, computed once at no effect.',
-    `ψ(x) = max(−c, min(c, x)) with c = ${trim} (Huber).`,
-    'Score of a unit: the mean over the other units of its set of ψ((its outcome − theirs)/σ); T = the sum over sets of the treated unit’s score.',
-    'Bound under Γ (separable approximation): per set, sort the scores; split a = 1 … n − 1 gives weight 1 to the a smallest and Γ to the rest; the set’s mean is the largest weighted mean over a, its variance the largest weighted variance among splits tied at that mean (ties within 1e-12·c); means and variances add over sets.',
-    'Lower (best-case) bound: the same rule applied to the negated scores.',
-    'p-value bounds: 1 − Φ((T − E)/√V).',
-    alternative === 'less'
+const CONVENTIONS_CONTINUOUS = (trim: number, alternative: MatchedSetsAlternative): readonly AnalysisConvention[] =>
+  frozenConventions([
+    Object.freeze({ id: 'scale', text: 'Scale σ: the median of |treated − control| over all sets and all controls, computed once at no effect.' }),
+    Object.freeze({ id: 'huber-psi', text: `ψ(x) = max(−c, min(c, x)) with c = ${trim} (Huber).` }),
+    Object.freeze({ id: 'unit-score', text: 'Score of a unit: the mean over the other units of its set of ψ((its outcome − theirs)/σ); T = the sum over sets of the treated unit’s score.' }),
+    Object.freeze({ id: 'separable-bound', text: 'Bound under Γ (separable approximation): per set, sort the scores; split a = 1 … n − 1 gives weight 1 to the a smallest and Γ to the rest; the set’s mean is the largest weighted mean over a, its variance the largest weighted variance among splits tied at that mean (ties within 1e-12·c); means and variances add over sets.' }),
+    Object.freeze({ id: 'best-case-bound', text: 'Lower (best-case) bound: the same rule applied to the negated scores.' }),
+    Object.freeze({ id: 'p-value-bounds', text: 'p-value bounds: 1 − Φ((T − E)/√V).' }),
+    { id: 'alternative', text: alternative === 'less'
       ? 'Alternative “less”: the outcomes are negated, so the test asks whether treatment lowers the outcome; estimates stay on the original scale.'
-      : 'Alternative “greater”: the test asks whether treatment raises the outcome.',
-    'Sensitivity value: the largest Γ at which the upper p-value bound is still at most α.',
-    'Effect τ: the treated outcome shifted by −τ, σ kept at its no-effect value; the estimate solves T(τ) = its expectation at Γ = 1; under Γ the range solves T(τ) = the upper and the lower expectation; the two-sided interval uses the normal critical value at α/2 on each side.',
-    'Amplification: Γ = (ΛΔ + 1)/(Λ + Δ).',
+      : 'Alternative “greater”: the test asks whether treatment raises the outcome.' },
+    Object.freeze({ id: 'sensitivity-value', text: 'Sensitivity value: the largest Γ at which the upper p-value bound is still at most α.' }),
+    Object.freeze({ id: 'effect-estimate', text: 'Effect τ: the treated outcome shifted by −τ, σ kept at its no-effect value; the estimate solves T(τ) = its expectation at Γ = 1; under Γ the range solves T(τ) = the upper and the lower expectation; the two-sided interval uses the normal critical value at α/2 on each side.' }),
+    Object.freeze({ id: 'amplification', text: 'Amplification: Γ = (ΛΔ + 1)/(Λ + Δ).' }),
   ]);
 
-const CONVENTIONS_BINARY = (tail: 'exact' | 'normal', alternative: MatchedSetsAlternative): readonly string[] =>
-  Object.freeze([
-    'T: the number of treated units with the event, over sets where some but not all units had it; sets with no or all events carry no information and are left out.',
-    'Under Γ a set with e events among n units adds an independent Bernoulli with probability at most Γe/(Γe + n − e) (worst case) and at least e/(e + Γ(n − e)) (best case).',
-    tail === 'exact'
+const CONVENTIONS_BINARY = (tail: 'exact' | 'normal', alternative: MatchedSetsAlternative): readonly AnalysisConvention[] =>
+  frozenConventions([
+    Object.freeze({ id: 'statistic', text: 'T: the number of treated units with the event, over sets where some but not all units had it; sets with no or all events carry no information and are left out.' }),
+    Object.freeze({ id: 'bernoulli-bound', text: 'Under Γ a set with e events among n units adds an independent Bernoulli with probability at most Γe/(Γe + n − e) (worst case) and at least e/(e + Γ(n − e)) (best case).' }),
+    { id: 'p-value-bounds', text: tail === 'exact'
       ? 'p-value bounds: the exact tail P(T_Γ ≥ T) of the sum of these Bernoullis (convolution).'
-      : 'p-value bounds: the normal approximation 1 − Φ((T − Σp)/√Σp(1 − p)), without continuity correction.',
-    alternative === 'less'
+      : 'p-value bounds: the normal approximation 1 − Φ((T − Σp)/√Σp(1 − p)), without continuity correction.' },
+    { id: 'alternative', text: alternative === 'less'
       ? 'Alternative “less”: events and non-events are swapped (y → 1 − y), so the test asks whether treatment lowers the event rate.'
-      : 'Alternative “greater”: the test asks whether treatment raises the event rate.',
-    'Sensitivity value: the largest Γ at which the upper p-value bound is still at most α.',
-    'Amplification: Γ = (ΛΔ + 1)/(Λ + Δ).',
+      : 'Alternative “greater”: the test asks whether treatment raises the event rate.' },
+    Object.freeze({ id: 'sensitivity-value', text: 'Sensitivity value: the largest Γ at which the upper p-value bound is still at most α.' }),
+    Object.freeze({ id: 'amplification', text: 'Amplification: Γ = (ΛΔ + 1)/(Λ + Δ).' }),
   ]);
+
+/** The list and each of its entries frozen. */
+function frozenConventions(list: AnalysisConvention[]): readonly AnalysisConvention[] {
+  return Object.freeze(list.map((c) => Object.freeze(c)));
+}
 
 /** "a, b, c" or "a, b, … and N more" (at most 10 named). */
 function listIds(ids: readonly (string | number)[]): string {

@@ -91,7 +91,7 @@ describe('special values', () => {
     const result = analyseWeighting(mtcarsInput('ate', { trim: { below: 0.01, above: 0.99 } }));
     expect(result.counts.trimmedBelow + result.counts.trimmedAbove).toBeGreaterThan(0);
     expect(result.counts.used).toBe(32 - result.counts.trimmedBelow - result.counts.trimmedAbove);
-    expect(result.conventions.some((c) => c.startsWith('Trimming'))).toBe(true);
+    expect(result.conventions.some((c) => c.id === 'trimming' && c.text.startsWith('Trimming'))).toBe(true);
   });
   test('the result never shows NaN or infinity', () => {
     const result = analyseWeighting(fictionalInput('att', { bootstrap: 20 }));

@@ -55,7 +55,7 @@ export function setsSummary(result: MatchedSetsResult): SetsSummary {
     rangeAt: rangeAtOf(chosen),
     amplification: amplificationOf(result.amplification),
     references: [...result.references],
-    conventions: [...result.conventions],
+    conventions: result.conventions.map((c) => c.text),
   };
 }
 

@@ -152,7 +152,7 @@ export function setsReportText(result: MatchedSetsResult, study?: Partial<StudyL
   for (const warning of result.warnings) lines.push(`Note: ${warning}`);
   lines.push('');
   lines.push('Conventions:');
-  for (const convention of result.conventions) lines.push(`- ${convention}`);
+  for (const convention of result.conventions) lines.push(`- ${convention.text}`);
   lines.push('');
   lines.push('References:');
   for (const reference of result.references) lines.push(`- ${reference}`);

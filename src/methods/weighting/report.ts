@@ -30,7 +30,7 @@ export function weightingResultJson(analysis: WeightingAnalysis, read: Weighting
     bootstrap: r.bootstrap,
     overlap: r.overlap,
     weights: r.weights,
-    conventions: [...r.conventions, "Coefficient standard errors: square roots of the diagonal of (XᵀWX)⁻¹, W = e(1 − e), as R's summary.glm."],
+    conventions: [...r.conventions, { id: 'standard-errors', text: "Coefficient standard errors: square roots of the diagonal of (XᵀWX)⁻¹, W = e(1 − e), as R's summary.glm." }],
     references: r.references,
     warnings: [...(read?.warnings ?? []), ...r.warnings],
     caution: WEIGHTING_CAUTION,

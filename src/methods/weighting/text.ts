@@ -133,7 +133,7 @@ export function weightingReportText(analysis: WeightingAnalysis, read: Weighting
   }
   out.push('');
   out.push('Conventions:');
-  for (const line of r.conventions) out.push(`  - ${line}`);
+  for (const line of r.conventions) out.push(`  - ${line.text}`);
   out.push('  - Coefficient standard errors: square roots of the diagonal of (XᵀWX)⁻¹, W = e(1 − e), as R\'s summary.glm.');
   out.push('');
   out.push('References:');

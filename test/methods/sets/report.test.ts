@@ -49,7 +49,7 @@ describe('text report', () => {
     for (const name of ['fictional_d_large_effect', 'fictional_binary_mixed']) {
       const result = analyse(name);
       const { text } = setsReport(result);
-      for (const convention of result.conventions) expect(text).toContain(convention);
+      for (const convention of result.conventions) expect(text).toContain(convention.text);
       for (const ref of result.references) expect(text).toContain(ref);
       expect(text).toMatch(/does not prove causation/);
       expect(text).not.toMatch(/NaN|undefined|Infinity/);

@@ -37,7 +37,7 @@ describe('setsStatement', () => {
   });
 
   test('its assumptions are the result’s conventions', () => {
-    expect(part.assumptions).toEqual(result.conventions);
+    expect(part.assumptions).toEqual(result.conventions.map((c) => c.text));
   });
 
   test('a binary outcome names the event-count test and its tails; no estimate', () => {

@@ -44,7 +44,7 @@ describe('the report', () => {
   });
   test('text: every convention of the result, the reading in words, and nothing unprintable', () => {
     const { text, json } = weightingReport(analysis, read);
-    for (const c of analysis.result.conventions) expect(text).toContain(c);
+    for (const c of analysis.result.conventions) expect(text).toContain(c.text);
     expect(text).toMatch(/a hidden factor that changed some people's odds of treatment by more than [\d.]+-fold/i);
     expect(text).toContain('Tipping Λ (point bounds)');
     expect(text).toContain('standard error');
