@@ -1,7 +1,7 @@
 // Speed of the exact matched-pairs analysis against the normal approximation of the same (invented, fictional)
 // data: in process (analysePairs, mean of runs after a warm-up) and as whole processes of the built CLI
 // (`lurk pairs --file … --diff d --method exact|normal --json`, median wall time of 5 runs each), at 1,000 pairs
-// with ties, 2,000 and 5,000 pairs; and the sign test at a billion discordant pairs. Prints the exact/normal
+// with ties, 2,000 and 5,000 pairs, and 5,000 pairs whose differences take three sizes; and the sign test at a billion discordant pairs. Prints the exact/normal
 // ratios after each group. Measures only; asserts nothing.
 // Run: npx vitest bench --run --project unit bench/pairsExact.bench.ts
 import { spawnSync } from 'node:child_process';
@@ -69,10 +69,14 @@ function wholeProcess(file: string, method: 'exact' | 'normal', runs = 5): numbe
   return median(times);
 }
 
+/** Differences of only three sizes, ±1, ±2, ±3 (a coarse scale: each size one mid-rank shared by many pairs). */
+const threeSizes = (n: number) => Array.from({ length: n }, () => (1 + Math.floor(next() * 3)) * (next() < 0.56 ? 1 : -1));
+
 const cases: [string, number[]][] = [
   ['1,000 pairs with ties', tied1000],
   ['2,000 pairs', continuous(2000)],
   ['5,000 pairs', continuous(5000)],
+  ['5,000 pairs of three sizes (heavy ties)', threeSizes(5000)],
 ];
 
 for (const [label, differences] of cases) {

@@ -1,5 +1,6 @@
 import { upperNormalTail } from './upperNormalTail';
 import { prepareBernoulliSum, upperTailByInversion, type PreparedBernoulliSum } from './bernoulliSumInversion';
+import { fewWeightsUpperTail } from './fewWeightsBernoulliTail';
 
 /**
  * The exact upper tail P(Σ wᵢ·Bᵢ ≥ t) of a weighted sum of independent Bernoulli(p) variables with
@@ -27,7 +28,8 @@ import { prepareBernoulliSum, upperTailByInversion, type PreparedBernoulliSum } 
  * computed by the certified inversion of the generating function (`upperTailByInversion`,
  * bernoulliSumInversion.ts: O(distinct weights × a few hundred nodes) instead of O(n·Σw)); it declines when its
  * error bounds are not met and the program runs instead. Against R's `psignrank` (1,000 ranks) it agrees to
- * 2e-14, closer than the program's 4e-12 there. The error grows with the number of weights (one rounding per factor and
+ * 2e-14, closer than the program's 4e-12 there. When the weights take only a few distinct values (heavy ties),
+ * the exact grouped sum of `fewWeightsUpperTail` (fewWeightsBernoulliTail.ts) is used first. The error grows with the number of weights (one rounding per factor and
  * per rescaling) and is largest on the subtraction route above (tails between 1e-3 and ½ lose up to three
  * digits); it is not the 1e-16 of a single operation. Test: test/core/weightedBernoulliSumTail.test.ts.
  *
@@ -57,6 +59,9 @@ export function weightedBernoulliSumUpperTail(weights: ArrayLike<number>, t: num
   const programCost = weights.length * Math.min(direct, complement);
   if (programCost > INVERSION_ABOVE && p > 0 && q > 0) {
     const prepared = preparedFor(weights);
+    // A few distinct weights (heavy ties): exact sums over the binomial groups; the inversion otherwise.
+    const grouped = prepared ? fewWeightsUpperTail(prepared.values, prepared.counts, Math.ceil(need / prepared.divisor), p, q) : null;
+    if (grouped !== null) return grouped;
     const value = prepared ? upperTailByInversion(prepared, need, p, q, programCost / 20) : null;
     if (value !== null) return value;
   }
