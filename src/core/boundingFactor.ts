@@ -4,9 +4,9 @@
  *
  * **Method.** B = RR_EU·RR_UD/(RR_EU + RR_UD − 1), where RR_EU is the largest risk ratio relating the
  * exposure to any level of U and RR_UD the largest risk ratio relating U to the outcome within an exposure
- * stratum. It is evaluated as 1/(1/RR_EU + (1 − 1/RR_EU)/RR_UD), the same quotient divided through by
- * RR_EU·RR_UD: both terms of the denominator are non-negative, nothing overflows, and the infinite limits
- * come out right.
+ * stratum. It is evaluated as 1/(1/s + (1 − 1/s)/l) with s the smaller and l the larger strength, the same
+ * quotient divided through by RR_EU·RR_UD: both terms of the denominator are non-negative, nothing overflows,
+ * the infinite limits come out right, and the order of the arguments cannot change the last bit.
  *
  * **References.** Ding P, VanderWeele TJ (2016). Sensitivity analysis without assumptions. Epidemiology
  * 27(3):368–377, Theorem 2A (the bounding factor).
@@ -23,7 +23,10 @@ export function boundingFactor(rrExposureConfounder: number, rrConfounderOutcome
   const a = rrExposureConfounder;
   const b = rrConfounderOutcome;
   if (!(a >= 1) || !(b >= 1)) return NaN;
-  return 1 / (1 / a + (1 - 1 / a) / b);
+  // The smaller strength first, so that B(a, b) = B(b, a) holds exactly in floating point too.
+  const lo = Math.min(a, b);
+  const hi = Math.max(a, b);
+  return 1 / (1 / lo + (1 - 1 / lo) / hi);
 }
 
 /**
