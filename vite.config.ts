@@ -49,6 +49,7 @@ export default defineConfig(({ mode }) => ({
           hookTimeout: 180_000,
           include: ['test/**/*.test.ts'],
           exclude: ['test/browser/**', 'test/e2e/**', 'node_modules/**'],
+          setupFiles: ['test/support/propertySeed.ts'],
           benchmark: { include: ['bench/**/*.bench.ts'] },
         },
       },
