@@ -194,8 +194,8 @@ export function settingFields(v: OvbFormView): TemplateResult {
           zero</label
         >
       </fieldset>
-      ${v.field('k', 'Compare with confounders k times as strong, k =', f.k, (t) => ({ k: t }), 'e.g. 1, 2, 3')}
-      ${v.field('kOutcome', 'Outcome side, times as strong (one per k)', f.kOutcome ?? '', (t) => ({ kOutcome: t }), 'Empty: the same k on both sides')}
+      ${v.field('k', 'Compare with confounders this many times as strong as each covariate', f.k, (t) => ({ k: t }), 'e.g. 1, 2, 3')}
+      ${v.field('kOutcome', 'Outcome side, times as strong (one per value above)', f.kOutcome ?? '', (t) => ({ kOutcome: t }), 'Empty: the same on both sides')}
     </fieldset>
     <fieldset>
       <legend>A confounder to try</legend>

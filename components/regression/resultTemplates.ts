@@ -95,11 +95,11 @@ function benchmarkTable(result: OvbResult): TemplateResult | typeof nothing {
   return html`<h3>Confounders as strong as measured covariates</h3>
     <div class="table-scroll" tabindex="0" role="region" aria-label="Benchmark table (scrolls sideways)">
       <table id="benchmarks">
-        <caption class="visually-hidden">Bounds on a confounder k times as strong as each covariate, and the estimate adjusted for it</caption>
+        <caption class="visually-hidden">Bounds on a confounder some times as strong as each covariate, and the estimate adjusted for it</caption>
         <thead>
           <tr>
             <th scope="col">Covariate</th>
-            <th scope="col">${separate ? 'k treatment : k outcome' : 'k'}</th>
+            <th scope="col">${separate ? 'Times as strong (treatment : outcome)' : 'Times as strong'}</th>
             <th scope="col">R² with treatment</th>
             <th scope="col">R² with outcome</th>
             <th scope="col">Adjusted estimate</th>

@@ -153,6 +153,11 @@ export const baseStyles = css`
     max-width: 100%;
     overscroll-behavior-x: contain;
   }
+  /* A number never breaks across lines ("1.2" over "0"): the table scrolls in its own box instead. */
+  .table-scroll td:not(.unavailable) {
+    white-space: nowrap;
+    font-variant-numeric: tabular-nums;
+  }
   .table-scroll th:first-child,
   .table-scroll td:first-child {
     position: sticky;

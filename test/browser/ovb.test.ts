@@ -189,7 +189,7 @@ describe('<lurk-ovb>', () => {
     await settle();
     expect(text('.warning')).toMatch(/The standard error is robust/);
     expect(events.filter((e) => e.type === 'lurk-inputs-change').at(-1)?.detail.inputs.seKind).toBe('robust');
-    await userEvent.fill(page.getByLabelText('Outcome side, times as strong (one per k)'), '1, 2');
+    await userEvent.fill(page.getByLabelText('Outcome side, times as strong (one per value above)'), '1, 2');
     await settle();
     expect(text('#kOutcome-error')).toMatch(/one outcome-side multiple per/);
     expect(shadow().textContent).not.toMatch(/NaN|undefined|Infinity/);

@@ -105,7 +105,7 @@ describe('lurk ovb', () => {
     expect(code).toBe(0);
     expect(out).toMatch(/Catholic \+ Infant\.Mortality/);
     expect(out).toMatch(/reduce the estimate by 50%/);
-    expect(out).toMatch(/With R²\(D~Z\|X\) = 10\.0%/);
+    expect(out).toMatch(/With a confounder's partial R² of 10\.0% with the treatment/);
     expect(out).toMatch(/47 rows used of 47/);
     const json = JSON.parse((await lurk(['--file', swissPath, '--outcome', 'Fertility', '--treatment', 'Education', '--q', '0.5', '--json'])).out);
     // R 4.2.2 (ovb.json swiss RV_0.5, RV_0.5_0.05)

@@ -196,15 +196,15 @@ export function ovbReport(
     const s = result.scenario;
     lines.push(
       '',
-      `  With R²(D~Z|X) = ${pct(s.r2dz)} and R²(Y~Z|D,X) = ${pct(s.r2yz)}: adjusted estimate ${formatNumber(withoutRoundingNoise(s.correctedEstimate, Math.abs(result.estimate)), {
+      `  With a confounder's partial R² of ${pct(s.r2dz)} with the treatment and ${pct(s.r2yz)} with the outcome: adjusted estimate ${formatNumber(withoutRoundingNoise(s.correctedEstimate, Math.abs(result.estimate)), {
         significant: 4,
       })}, SE ${formatNumber(s.correctedSe, { significant: 4 })}, t ${formatNumber(s.correctedT, { digits: 2 })}`,
     );
   }
   if (result.benchmarks.length > 0) {
     const separate = result.benchmarks.some((b) => b.kOutcome !== b.k);
-    lines.push('', separate ? 'Bounds on a confounder k_D times (treatment side) and k_Y times (outcome side) as strong as a measured covariate:' : 'Bounds on a confounder k times as strong as a measured covariate:');
-    const header = ['covariate', separate ? 'k_D:k_Y' : 'k', 'R²(D~Z|X)', 'R²(Y~Z|D,X)', 'adj. estimate', 'adj. SE', 'adj. t'];
+    lines.push('', separate ? 'Bounds on a confounder some times as strong as a measured covariate (treatment side : outcome side):' : 'Bounds on a confounder some times as strong as a measured covariate:');
+    const header = ['covariate', separate ? 'times (treatment:outcome)' : 'times as strong', 'R² with treatment', 'R² with outcome', 'adjusted estimate', 'adjusted SE', 'adjusted t'];
     const kCell = (b: OvbBenchmarkRow) => (separate ? `${plainNumber(b.k)}:${plainNumber(b.kOutcome)}` : plainNumber(b.k));
     const tShown = result.seKind === 'classical';
     const rows = result.benchmarks.map((b) =>
@@ -233,7 +233,7 @@ export function ovbReport(
     if (result.strongestCovariate !== null) lines.push(`  Strongest measured covariate: ${result.strongestCovariate}`);
   }
   if (result.direction === 'toward-zero') {
-    lines.push('', `Extreme scenarios (R²(D~Z|X) needed to ${ovbGoalText(result.q)}):`);
+    lines.push('', `Extreme scenarios (the confounder's partial R² with the treatment needed to ${ovbGoalText(result.q)}):`);
     for (const e of result.extremeScenarios) {
       lines.push(`  if the confounder explained ${formatPercent(e.r2yz, 0)} of the outcome's residual variance: ${pct(e.r2dzToReach)}`);
     }
