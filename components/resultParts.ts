@@ -56,9 +56,11 @@ export function notesBlock(notes: readonly string[], id?: string): TemplateResul
 
 /** The Γ bounds table (id `bounds-table`) in its sideways-scrolling region; the first cell of a row heads it. */
 export function boundsTable(caption: string, table: { readonly header: readonly string[]; readonly rows: readonly (readonly string[])[] }, heading: (h: string) => string = (h) => h): TemplateResult {
-  return html`<div class="table-scroll" tabindex="0" role="region" aria-label="Sensitivity table (scrolls sideways)">
+  // The title sits above the scrolling box, so that a narrow screen shows all of it; the caption names the table.
+  return html`<p class="table-title" aria-hidden="true">${caption}</p>
+    <div class="table-scroll" tabindex="0" role="region" aria-label="Sensitivity table (scrolls sideways)">
     <table id="bounds-table">
-      <caption>
+      <caption class="visually-hidden">
         ${caption}
       </caption>
       <thead>

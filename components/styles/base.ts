@@ -153,7 +153,11 @@ export const baseStyles = css`
     max-width: 100%;
     overscroll-behavior-x: contain;
   }
-  /* A number never breaks across lines ("1.2" over "0"): the table scrolls in its own box instead. */
+  /* Tables break lines between words only (the page may allow breaks anywhere for long labels elsewhere), and a
+     number never breaks across lines ("1.2" over "0"): a wide table scrolls in its own box instead. */
+  table {
+    overflow-wrap: normal;
+  }
   .table-scroll td:not(.unavailable) {
     white-space: nowrap;
     font-variant-numeric: tabular-nums;

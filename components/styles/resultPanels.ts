@@ -48,9 +48,13 @@ export const resultPanelStyles = css`
     display: grid;
     gap: 1rem;
   }
-  caption {
+  caption,
+  .table-title {
     text-align: left;
     font-weight: 600;
     padding-bottom: 0.25rem;
+  }
+  .table-title {
+    margin: 0.75rem 0 0;
   }
 `;
