@@ -280,9 +280,9 @@ function tiltedNodes(
       continue;
     }
     for (let k = first; k <= last; k++) chosen.push(k);
-    if (chosen.length * d > budget) return null;
+    if (chosen.length * d > budget || chosen.length > MAX_NODES) return null;
   }
-  if (chosen.length * d > budget) return null;
+  if (chosen.length * d > budget || chosen.length > MAX_NODES) return null;
   // φ(ω_k)/φ(0) for each chosen node, as a complex number: weight by weight, each node's factor e^{ikx}
   // advanced by one rotation along runs of consecutive nodes (restarted exactly at each gap and every 64 steps).
   const K = chosen.length;
@@ -390,6 +390,9 @@ function tiltedNodes(
   };
   return { evaluate };
 }
+
+/** At most this many nodes are evaluated (memory: five doubles each); beyond, the caller's fallback answers. */
+const MAX_NODES = 2_000_000;
 
 /** θ ≥ 0 with Σ vⱼ p̃ⱼ(θ) = target (safeguarded Newton on the convex cumulant); 0 when target ≤ the mean. */
 function saddlePoint(prepared: PreparedBernoulliSum, target: number, logOdds: number, p: number, q: number): number {
