@@ -1,39 +1,17 @@
 import { describe, expect, test } from 'vitest';
 import { InputError } from '../../../src/core/inputProblem';
-import type { CommandContext, FileSource } from '../../../src/methods/methodModule';
 import { pairsMethod } from '../../../src/methods/pairs/method';
 import { emptyPairsForm, normalisePairsForm, type PairsFormInputs } from '../../../src/methods/pairs/request';
 import { analysePairsForm, needsWorker, planPairs, WORKER_DISCORDANT_PAIRS } from '../../../src/methods/pairs/runner';
 import { pairsFromCsvText } from '../../../src/methods/pairs/pairsFromCsv';
 import { expectClose } from '../../support/expectClose';
 import { readReferenceJson } from '../../support/reference';
+import { memoryCommandContext } from '../../support/memoryCommandContext';
 
 const reference = readReferenceJson('rosenbaum.json');
 const { command } = pairsMethod;
 
-/** A command context over files held in memory. */
-function contextOf(files: Record<string, string>): CommandContext {
-  return {
-    open(path: string): FileSource {
-      const text = files[path];
-      const missing = () => Object.assign(new Error('no such file'), { code: 'ENOENT' });
-      return {
-        name: path,
-        size: text === undefined ? null : text.length,
-        text: async () => {
-          if (text === undefined) throw missing();
-          return text;
-        },
-        bytes: () => {
-          if (text === undefined) throw missing();
-          return (async function* () {
-            yield new TextEncoder().encode(text);
-          })();
-        },
-      };
-    },
-  };
-}
+const contextOf = memoryCommandContext;
 
 async function problemsOf(run: () => unknown): Promise<{ field: string; message: string }[]> {
   try {

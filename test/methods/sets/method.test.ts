@@ -1,6 +1,5 @@
 import { describe, expect, test } from 'vitest';
 import { InputError } from '../../../src/core/inputProblem';
-import type { CommandContext, FileSource } from '../../../src/methods/methodModule';
 import { methodByCommand, methodById } from '../../../src/methods/registry';
 import { setsFormFromOptions, setsMethod, setsOptionOf } from '../../../src/methods/sets/method';
 import { emptySetsForm, normaliseSetsForm, type SetsFormInputs } from '../../../src/methods/sets/request';
@@ -8,34 +7,13 @@ import { planSets } from '../../../src/methods/sets/runner';
 import { expectClose } from '../../support/expectClose';
 import { matchedSetsCsv } from '../../support/matchedSetsCsv';
 import { readReferenceJson } from '../../support/reference';
+import { memoryCommandContext } from '../../support/memoryCommandContext';
 
 const reference = readReferenceJson('matched_sets.json');
 const dsD = reference.continuous.find((d: { name: string }) => d.name === 'fictional_d_large_effect');
 const { command } = setsMethod;
 
-/** A command context over files held in memory. */
-function contextOf(files: Record<string, string>): CommandContext {
-  return {
-    open(path: string): FileSource {
-      const text = files[path];
-      const missing = () => Object.assign(new Error('no such file'), { code: 'ENOENT' });
-      return {
-        name: path,
-        size: text === undefined ? null : text.length,
-        text: async () => {
-          if (text === undefined) throw missing();
-          return text;
-        },
-        bytes: () => {
-          if (text === undefined) throw missing();
-          return (async function* () {
-            yield new TextEncoder().encode(text);
-          })();
-        },
-      };
-    },
-  };
-}
+const contextOf = memoryCommandContext;
 
 async function problemsOf(run: () => unknown): Promise<{ field: string; option: string; message: string }[]> {
   try {
