@@ -1,3 +1,4 @@
+import type { SignedRankSummary } from '../../core/signedRankSummary';
 import { InputError, inputProblem, type InputProblem } from '../../core/inputProblem';
 import { quoteSqlIdentifier, quoteSqlString, quoteTableName, readTableName } from '../../data/sqlText';
 
@@ -70,18 +71,10 @@ export function pairsSql(spec: PairsSqlSpec): string {
 }
 
 /** The signed-rank summary read back from the query's result row. */
-export interface PairsRankSummary {
+export interface PairsRankSummary extends SignedRankSummary {
   readonly rowsRead: number;
   /** Rows left out because a value was missing. */
   readonly droppedRows: number;
-  readonly pairs: number;
-  readonly zeros: number;
-  readonly nonZero: number;
-  readonly positive: number;
-  /** T: the sum of the ranks of the positive differences. */
-  readonly statistic: number;
-  readonly sumRanks: number;
-  readonly sumSquaredRanks: number;
 }
 
 /**
