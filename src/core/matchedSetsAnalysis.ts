@@ -1,4 +1,4 @@
-import type { AnalysisConvention } from './analysisConvention';
+import { conventionList, type AnalysisConvention } from './analysisConvention';
 import { gammaListProblems } from './gammaList';
 import { inputProblem, throwIfProblems, type InputProblem } from './inputProblem';
 import { groupMatchedSets, mapMatchedSetsOutcomes, type MatchedSetsGrouping, type MatchedSetsLayout } from './matchedSetsGrouping';
@@ -132,39 +132,38 @@ const REFERENCES_BINARY = Object.freeze([
   'Rosenbaum PR, Silber JH (2009) Amplification of sensitivity analysis in matched observational studies. JASA 104(488):1398–1405.',
 ]);
 
-const CONVENTIONS_CONTINUOUS = (trim: number, alternative: MatchedSetsAlternative): readonly AnalysisConvention[] =>
-  frozenConventions([
-    Object.freeze({ id: 'scale', text: 'Scale σ: the median of |treated − control| over all sets and all controls, computed once at no effect.' }),
-    Object.freeze({ id: 'huber-psi', text: `ψ(x) = max(−c, min(c, x)) with c = ${trim} (Huber).` }),
-    Object.freeze({ id: 'unit-score', text: 'Score of a unit: the mean over the other units of its set of ψ((its outcome − theirs)/σ); T = the sum over sets of the treated unit’s score.' }),
-    Object.freeze({ id: 'separable-bound', text: 'Bound under Γ (separable approximation): per set, sort the scores; split a = 1 … n − 1 gives weight 1 to the a smallest and Γ to the rest; the set’s mean is the largest weighted mean over a, its variance the largest weighted variance among splits tied at that mean (ties within 1e-12·c); means and variances add over sets.' }),
-    Object.freeze({ id: 'best-case-bound', text: 'Lower (best-case) bound: the same rule applied to the negated scores.' }),
-    Object.freeze({ id: 'p-value-bounds', text: 'p-value bounds: 1 − Φ((T − E)/√V).' }),
-    { id: 'alternative', text: alternative === 'less'
-      ? 'Alternative “less”: the outcomes are negated, so the test asks whether treatment lowers the outcome; estimates stay on the original scale.'
-      : 'Alternative “greater”: the test asks whether treatment raises the outcome.' },
-    Object.freeze({ id: 'sensitivity-value', text: 'Sensitivity value: the largest Γ at which the upper p-value bound is still at most α.' }),
-    Object.freeze({ id: 'effect-estimate', text: 'Effect τ: the treated outcome shifted by −τ, σ kept at its no-effect value; the estimate solves T(τ) = its expectation at Γ = 1; under Γ the range solves T(τ) = the upper and the lower expectation; the two-sided interval uses the normal critical value at α/2 on each side.' }),
-    Object.freeze({ id: 'amplification', text: 'Amplification: Γ = (ΛΔ + 1)/(Λ + Δ).' }),
-  ]);
+/** The conventions of a continuous-outcome analysis, in words. */
+function continuousConventions(trim: number, alternative: MatchedSetsAlternative): readonly AnalysisConvention[] {
+  const conventions = conventionList();
+  conventions.add('scale', 'Scale σ: the median of |treated − control| over all sets and all controls, computed once at no effect.');
+  conventions.add('huber-psi', `ψ(x) = max(−c, min(c, x)) with c = ${trim} (Huber).`);
+  conventions.add('unit-score', 'Score of a unit: the mean over the other units of its set of ψ((its outcome − theirs)/σ); T = the sum over sets of the treated unit’s score.');
+  conventions.add('separable-bound', 'Bound under Γ (separable approximation): per set, sort the scores; split a = 1 … n − 1 gives weight 1 to the a smallest and Γ to the rest; the set’s mean is the largest weighted mean over a, its variance the largest weighted variance among splits tied at that mean (ties within 1e-12·c); means and variances add over sets.');
+  conventions.add('best-case-bound', 'Lower (best-case) bound: the same rule applied to the negated scores.');
+  conventions.add('p-value-bounds', 'p-value bounds: 1 − Φ((T − E)/√V).');
+  conventions.add('alternative', alternative === 'less'
+    ? 'Alternative “less”: the outcomes are negated, so the test asks whether treatment lowers the outcome; estimates stay on the original scale.'
+    : 'Alternative “greater”: the test asks whether treatment raises the outcome.');
+  conventions.add('sensitivity-value', 'Sensitivity value: the largest Γ at which the upper p-value bound is still at most α.');
+  conventions.add('effect-estimate', 'Effect τ: the treated outcome shifted by −τ, σ kept at its no-effect value; the estimate solves T(τ) = its expectation at Γ = 1; under Γ the range solves T(τ) = the upper and the lower expectation; the two-sided interval uses the normal critical value at α/2 on each side.');
+  conventions.add('amplification', 'Amplification: Γ = (ΛΔ + 1)/(Λ + Δ).');
+  return conventions.list();
+}
 
-const CONVENTIONS_BINARY = (tail: 'exact' | 'normal', alternative: MatchedSetsAlternative): readonly AnalysisConvention[] =>
-  frozenConventions([
-    Object.freeze({ id: 'statistic', text: 'T: the number of treated units with the event, over sets where some but not all units had it; sets with no or all events carry no information and are left out.' }),
-    Object.freeze({ id: 'bernoulli-bound', text: 'Under Γ a set with e events among n units adds an independent Bernoulli with probability at most Γe/(Γe + n − e) (worst case) and at least e/(e + Γ(n − e)) (best case).' }),
-    { id: 'p-value-bounds', text: tail === 'exact'
-      ? 'p-value bounds: the exact tail P(T_Γ ≥ T) of the sum of these Bernoullis (convolution).'
-      : 'p-value bounds: the normal approximation 1 − Φ((T − Σp)/√Σp(1 − p)), without continuity correction.' },
-    { id: 'alternative', text: alternative === 'less'
-      ? 'Alternative “less”: events and non-events are swapped (y → 1 − y), so the test asks whether treatment lowers the event rate.'
-      : 'Alternative “greater”: the test asks whether treatment raises the event rate.' },
-    Object.freeze({ id: 'sensitivity-value', text: 'Sensitivity value: the largest Γ at which the upper p-value bound is still at most α.' }),
-    Object.freeze({ id: 'amplification', text: 'Amplification: Γ = (ΛΔ + 1)/(Λ + Δ).' }),
-  ]);
-
-/** The list and each of its entries frozen. */
-function frozenConventions(list: AnalysisConvention[]): readonly AnalysisConvention[] {
-  return Object.freeze(list.map((c) => Object.freeze(c)));
+/** The conventions of a binary-outcome analysis, in words. */
+function binaryConventions(tail: 'exact' | 'normal', alternative: MatchedSetsAlternative): readonly AnalysisConvention[] {
+  const conventions = conventionList();
+  conventions.add('statistic', 'T: the number of treated units with the event, over sets where some but not all units had it; sets with no or all events carry no information and are left out.');
+  conventions.add('bernoulli-bound', 'Under Γ a set with e events among n units adds an independent Bernoulli with probability at most Γe/(Γe + n − e) (worst case) and at least e/(e + Γ(n − e)) (best case).');
+  conventions.add('p-value-bounds', tail === 'exact'
+    ? 'p-value bounds: the exact tail P(T_Γ ≥ T) of the sum of these Bernoullis (convolution).'
+    : 'p-value bounds: the normal approximation 1 − Φ((T − Σp)/√Σp(1 − p)), without continuity correction.');
+  conventions.add('alternative', alternative === 'less'
+    ? 'Alternative “less”: events and non-events are swapped (y → 1 − y), so the test asks whether treatment lowers the event rate.'
+    : 'Alternative “greater”: the test asks whether treatment raises the event rate.');
+  conventions.add('sensitivity-value', 'Sensitivity value: the largest Γ at which the upper p-value bound is still at most α.');
+  conventions.add('amplification', 'Amplification: Γ = (ΛΔ + 1)/(Λ + Δ).');
+  return conventions.list();
 }
 
 /** "a, b, c" or "a, b, … and N more" (at most 10 named). */
@@ -458,7 +457,7 @@ export function analyseMatchedSets(input: MatchedSetsInput): MatchedSetsResult {
       sensitivityStatus: tipping.status,
       searchedUpTo: tipping.searchedUpTo,
       amplification: Object.freeze(tipping.gamma !== null ? readableAmplifications(tipping.gamma) : []),
-      conventions: CONVENTIONS_BINARY(tail, alternative),
+      conventions: binaryConventions(tail, alternative),
       warnings: Object.freeze(warnings),
     };
   } else {
@@ -513,7 +512,7 @@ export function analyseMatchedSets(input: MatchedSetsInput): MatchedSetsResult {
       sensitivityStatus: tipping.status,
       searchedUpTo: tipping.searchedUpTo,
       amplification: Object.freeze(tipping.gamma !== null ? readableAmplifications(tipping.gamma) : []),
-      conventions: CONVENTIONS_CONTINUOUS(trim, alternative),
+      conventions: continuousConventions(trim, alternative),
       warnings: Object.freeze(warnings),
     };
   }

@@ -1,4 +1,4 @@
-import type { AnalysisConvention } from './analysisConvention';
+import { conventionList, type AnalysisConvention } from './analysisConvention';
 import { type BootstrapChunk, lambdaGrid, LAMBDA_GRID_SIZE, ResampleStatus, runBootstrapChunk } from './weightingBootstrap';
 import { type WeightingBoundTables, weightingBoundTables, weightingEffectBounds } from './weightingBounds';
 import type { PropensityTrimming, WeightingEstimand, WeightingInput } from './weightingInput';
@@ -299,39 +299,35 @@ export function finishWeighting(prepared: PreparedWeighting, chunks: readonly Bo
     },
     overlap,
     weights,
-    conventions: Object.freeze(conventions(prepared).map((c) => Object.freeze(c))),
+    conventions: conventions(prepared),
     references: WEIGHTING_ANALYSIS_REFERENCES,
     warnings,
   });
 }
 
-function conventions(prepared: PreparedWeighting): AnalysisConvention[] {
-  const list: AnalysisConvention[] = [
-    Object.freeze({ id: 'propensity-model', text: 'Propensity model: logistic regression of treatment on the covariates with an intercept, maximum likelihood by Newton/IRLS with a Householder QR in each step; start and stopping rule as R\'s glm: |ΔD|/(|D| + 0.1) < 1e-8 on the deviance D, at most 25 iterations.' }),
-    Object.freeze({ id: 'separation', text: 'Separation: a covariate whose treated and control ranges do not overlap (or only touch) is named and refused; a fit with a fitted propensity within 10ε of 0 or 1 (R\'s glm rule) or without convergence is refused as separation by a combination of covariates.' }),
-    Object.freeze({ id: 'collinearity', text: 'Constant or collinear covariates: QR rank test of [1, covariates] at the tolerance of R\'s lm (1e-7).' }),
-    { id: 'estimand', text: prepared.estimand === 'ate'
-      ? 'Estimand ATE: weights 1/e for the treated and 1/(1 − e) for controls, normalised within each group (Hájek); effect = treated weighted mean − control weighted mean.'
-      : 'Estimand ATT: weight 1 for the treated and e/(1 − e) for controls, normalised within each group (Hájek); effect = treated mean − control weighted mean.' },
-    { id: 'sensitivity-model', text: prepared.estimand === 'ate'
-      ? 'Marginal sensitivity model at Λ: a treated person\'s weight lies in [1 + (1/e − 1)/Λ, 1 + (1/e − 1)·Λ], a control\'s in [1 + o/Λ, 1 + o·Λ], o = e/(1 − e), independently for each person.'
-      : 'Marginal sensitivity model at Λ: the treated keep weight 1; a control\'s weight lies in [o/Λ, o·Λ], o = e/(1 − e), independently for each person.' },
-    Object.freeze({ id: 'point-bounds', text: 'Point bounds: exact smallest and largest weighted effect over those weights (treated extreme minus the control group\'s opposite extreme), by a threshold search on the sorted outcomes.' }),
-    Object.freeze({ id: 'bootstrap', text: 'Bootstrap: resamples stratified by treatment group (n₁ treated drawn from the treated, n₀ controls from the controls, with replacement); the propensity model is refitted in each (started from the full-data coefficients); resamples with separation, no convergence or a constant/collinear covariate are counted and left out.' }),
-    Object.freeze({ id: 'random-numbers', text: 'Random numbers: SplitMix64; resample i uses its own stream seeded from (seed, i), so results do not depend on how the resamples are split into chunks or threads.' }),
-    Object.freeze({ id: 'sensitivity-interval', text: 'Sensitivity interval at Λ: from the α/2 quantile of the resampled lower bounds to the 1 − α/2 quantile of the resampled upper bounds; quantile type 7 (Hyndman & Fan 1996; R\'s default).' }),
-    Object.freeze({ id: 'tipping-point', text: 'Tipping Λ (point): the smallest Λ at which the point bounds include 0, by bisection in log Λ to 1e-12 relative.' }),
-    Object.freeze({ id: 'tipping-interval', text: `Tipping Λ (interval): the smallest Λ at which the sensitivity interval includes 0, located on a grid of ${LAMBDA_GRID_SIZE} log-spaced values from 1 to ${prepared.lambdaSearchLimit} and refined by linear interpolation in log Λ between neighbouring grid values (accurate to a fraction of the grid step).` }),
-    Object.freeze({ id: 'overlap-warning', text: `Overlap warning: estimated propensities below ${LOW_PROPENSITY} or above ${HIGH_PROPENSITY} (common practice, no source).` }),
-    Object.freeze({ id: 'missing-values', text: 'A missing value in the treatment, the outcome or any covariate: the person is left out and counted.' }),
-  ];
+function conventions(prepared: PreparedWeighting): readonly AnalysisConvention[] {
+  const list = conventionList();
+  list.add('propensity-model', 'Propensity model: logistic regression of treatment on the covariates with an intercept, maximum likelihood by Newton/IRLS with a Householder QR in each step; start and stopping rule as R\'s glm: |ΔD|/(|D| + 0.1) < 1e-8 on the deviance D, at most 25 iterations.');
+  list.add('separation', 'Separation: a covariate whose treated and control ranges do not overlap (or only touch) is named and refused; a fit with a fitted propensity within 10ε of 0 or 1 (R\'s glm rule) or without convergence is refused as separation by a combination of covariates.');
+  list.add('collinearity', 'Constant or collinear covariates: QR rank test of [1, covariates] at the tolerance of R\'s lm (1e-7).');
+  list.add('estimand', prepared.estimand === 'ate'
+    ? 'Estimand ATE: weights 1/e for the treated and 1/(1 − e) for controls, normalised within each group (Hájek); effect = treated weighted mean − control weighted mean.'
+    : 'Estimand ATT: weight 1 for the treated and e/(1 − e) for controls, normalised within each group (Hájek); effect = treated mean − control weighted mean.');
+  list.add('sensitivity-model', prepared.estimand === 'ate'
+    ? 'Marginal sensitivity model at Λ: a treated person\'s weight lies in [1 + (1/e − 1)/Λ, 1 + (1/e − 1)·Λ], a control\'s in [1 + o/Λ, 1 + o·Λ], o = e/(1 − e), independently for each person.'
+    : 'Marginal sensitivity model at Λ: the treated keep weight 1; a control\'s weight lies in [o/Λ, o·Λ], o = e/(1 − e), independently for each person.');
+  list.add('point-bounds', 'Point bounds: exact smallest and largest weighted effect over those weights (treated extreme minus the control group\'s opposite extreme), by a threshold search on the sorted outcomes.');
+  list.add('bootstrap', 'Bootstrap: resamples stratified by treatment group (n₁ treated drawn from the treated, n₀ controls from the controls, with replacement); the propensity model is refitted in each (started from the full-data coefficients); resamples with separation, no convergence or a constant/collinear covariate are counted and left out.');
+  list.add('random-numbers', 'Random numbers: SplitMix64; resample i uses its own stream seeded from (seed, i), so results do not depend on how the resamples are split into chunks or threads.');
+  list.add('sensitivity-interval', 'Sensitivity interval at Λ: from the α/2 quantile of the resampled lower bounds to the 1 − α/2 quantile of the resampled upper bounds; quantile type 7 (Hyndman & Fan 1996; R\'s default).');
+  list.add('tipping-point', 'Tipping Λ (point): the smallest Λ at which the point bounds include 0, by bisection in log Λ to 1e-12 relative.');
+  list.add('tipping-interval', `Tipping Λ (interval): the smallest Λ at which the sensitivity interval includes 0, located on a grid of ${LAMBDA_GRID_SIZE} log-spaced values from 1 to ${prepared.lambdaSearchLimit} and refined by linear interpolation in log Λ between neighbouring grid values (accurate to a fraction of the grid step).`);
+  list.add('overlap-warning', `Overlap warning: estimated propensities below ${LOW_PROPENSITY} or above ${HIGH_PROPENSITY} (common practice, no source).`);
+  list.add('missing-values', 'A missing value in the treatment, the outcome or any covariate: the person is left out and counted.');
   if (prepared.trim !== null) {
-    list.push(Object.freeze({
-      id: 'trimming',
-      text: `Trimming: people with estimated propensity outside [${prepared.trim.below}, ${prepared.trim.above}] are left out and counted, and the propensity model is refitted to those kept; trimming is not repeated within bootstrap resamples.`,
-    }));
+    list.add('trimming', `Trimming: people with estimated propensity outside [${prepared.trim.below}, ${prepared.trim.above}] are left out and counted, and the propensity model is refitted to those kept; trimming is not repeated within bootstrap resamples.`);
   }
-  return list;
+  return list.list();
 }
 
 /** Bisection in log Λ for the smallest Λ at which the point bounds include 0. */
