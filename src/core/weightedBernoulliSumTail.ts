@@ -82,7 +82,7 @@ const preparedCache = new WeakMap<object, { fingerprint: string; prepared: Prepa
  * The prepared weight set, cached per weights object (searches evaluate many Γ for the same ranks); a
  * fingerprint of the contents guards against an array changed in place since it was prepared.
  */
-export function preparedFor(weights: ArrayLike<number>): PreparedBernoulliSum | null {
+function preparedFor(weights: ArrayLike<number>): PreparedBernoulliSum | null {
   let sum = 0;
   let squares = 0;
   let mixed = 0;
