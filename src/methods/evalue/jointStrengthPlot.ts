@@ -164,13 +164,14 @@ export function jointStrengthPlot(result: EValueResult, options: JointStrengthPl
 
 /** The top of both axes: room past the E-value and every reference point, on a round value. */
 function axisTop(eEstimate: number, confounders: readonly ReferenceConfounderAssessment[]): number {
-  let top = Number.isFinite(eEstimate) ? Math.max(3, eEstimate * 3) : 3;
+  let top = Number.isFinite(eEstimate) ? Math.max(3, eEstimate * 2.5) : 3;
   for (const c of confounders) {
     for (const s of [c.strengthExposure, c.strengthOutcome]) if (Number.isFinite(s)) top = Math.max(top, s * 1.5);
   }
   top = Math.min(top, 1e12);
+  // Round values close together, so that rounding up does not double the range (6.4 → 8, not 10).
   const magnitude = Math.pow(10, Math.floor(Math.log10(top)));
-  for (const step of [1, 2, 5, 10]) if (step * magnitude >= top) return step * magnitude;
+  for (const step of [1, 1.5, 2, 3, 4, 5, 6, 8, 10]) if (step * magnitude >= top) return step * magnitude;
   return 10 * magnitude;
 }
 
