@@ -107,7 +107,8 @@ export function estimateBandsPlot(result: EstimateBandsData, options: Sensitivit
       dash: '4 4',
       label: 'No effect',
     });
-    marks.push({ kind: 'text', x: frame.inner.right - 4, y: frame.y(0) - 6, text: 'no effect', anchor: 'end', color: palette.threshold, size: 12 });
+    // At the left end: the bands widen to the right, where they reach no effect and would cross the label.
+    marks.push({ kind: 'text', x: frame.inner.left + 4, y: frame.y(0) - 6, text: 'no effect', anchor: 'start', color: palette.threshold, size: 12 });
   }
   marks.push({
     kind: 'point',
