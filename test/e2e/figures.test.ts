@@ -66,7 +66,10 @@ async function visitEveryTab(page: Page, label: string): Promise<number> {
   return figures;
 }
 
-/** The demo with a crowded regression (twenty close covariates) and many reference confounders (made up). */
+/**
+ * The demo with a crowded regression (twenty close covariates), many reference confounders, and matched-sets and
+ * weighting findings on invented files with many Γ and Λ values (all made up).
+ */
 async function loadCrowded(page: Page): Promise<void> {
   await page.evaluate(() => {
     const app = document.querySelector('lurk-app') as unknown as { appraisal: any; load(a: any): void };
@@ -77,8 +80,57 @@ async function loadCrowded(page: Page): Promise<void> {
     const evalue = appraisal.findings.find((f: { method: string }) => f.method === 'evalue');
     evalue.inputs.confounders = Array.from({ length: 12 }, (_, i) => ({ name: `deprivation quintile ${i + 1}`, rrExposure: (1.5 + 0.01 * i).toFixed(2), rrOutcome: (1.6 + 0.01 * i).toFixed(2) }));
     evalue.summary = null;
+    // Matched sets and weighting read files: their findings name the columns, and the files are chosen below.
+    const gammas = Array.from({ length: 25 }, (_, i) => (1 + i * 0.04).toFixed(2)).join(', ');
+    appraisal.findings.push(
+      { id: 'f91', method: 'sets', name: 'Blood pressure, matched sets', inputs: { setColumn: 'matched_set', treatedColumn: 'cycles', outcomeColumn: 'bp', alternative: 'less', gammas }, summary: null },
+      { id: 'f92', method: 'weighting', name: 'Blood pressure, weighting', inputs: { treatment: 'cycles', outcome: 'bp', covariates: 'age, income', lambdas: '1, 1.1, 1.2, 1.3, 1.4, 1.5, 1.6, 1.8, 2, 2.5, 3', bootstrap: '100' }, summary: null },
+    );
     app.load(appraisal);
   });
+  for (const [tag, name, text] of [
+    ['lurk-sets', 'sets-fictional.csv', setsCsv()],
+    ['lurk-weighting', 'weighting-fictional.csv', weightingCsv()],
+  ] as const) {
+    await page.locator(tag).getByLabel('CSV file', { exact: true }).setInputFiles({ name, mimeType: 'text/csv', buffer: Buffer.from(text) });
+    await page.waitForFunction((t) => !!document.querySelector('lurk-app')?.shadowRoot?.querySelector(t)?.shadowRoot?.querySelector('#bounds-table tbody tr'), tag, { timeout: 60_000 });
+  }
+}
+
+/** A fixed stream of numbers in [0, 1) for the invented files (linear congruential). */
+function stream(seed: number): () => number {
+  let state = seed >>> 0;
+  return () => {
+    state = (Math.imul(state, 1103515245) + 12345) >>> 0;
+    return state / 4294967296;
+  };
+}
+
+/** Fictional matched sets: one cyclist and one to four drivers each, blood pressure a little lower for cyclists. */
+function setsCsv(): string {
+  const next = stream(5);
+  const normal = () => Math.sqrt(-2 * Math.log(1 - next())) * Math.cos(2 * Math.PI * next());
+  const rows = ['matched_set,cycles,bp'];
+  for (let s = 1; s <= 150; s++) {
+    const level = 132 + 10 * normal();
+    rows.push(`set${s},1,${(level - 5 + 8 * normal()).toFixed(1)}`);
+    for (let c = 0, n = 1 + Math.floor(next() * 4); c < n; c++) rows.push(`set${s},0,${(level + 8 * normal()).toFixed(1)}`);
+  }
+  return rows.join('\n') + '\n';
+}
+
+/** Fictional people: whether they cycle to work (0/1), blood pressure, age and income. */
+function weightingCsv(): string {
+  const next = stream(6);
+  const normal = () => Math.sqrt(-2 * Math.log(1 - next())) * Math.cos(2 * Math.PI * next());
+  const rows = ['cycles,bp,age,income'];
+  for (let i = 0; i < 400; i++) {
+    const age = 25 + 40 * next();
+    const income = 30 + 40 * next();
+    const cycles = next() < 1 / (1 + Math.exp(0.04 * (age - 45) - 0.03 * (income - 50))) ? 1 : 0;
+    rows.push(`${cycles},${(112 + 0.45 * age - 0.1 * income - 5 * cycles + 8 * normal()).toFixed(1)},${age.toFixed(1)},${income.toFixed(1)}`);
+  }
+  return rows.join('\n') + '\n';
 }
 
 for (const width of [1280, 390]) {

@@ -10,6 +10,51 @@ import { pValueByGammaPlot } from '../../src/methods/pairs/pValueByGammaPlot';
 import { estimateRangePlot } from '../../src/methods/pairs/estimateRangePlot';
 import { amplificationPlot } from '../../src/methods/pairs/amplificationPlot';
 import type { PlotSpec } from '../../src/plot/plotSpec';
+import { analyseMatchedSets, type MatchedSetsInput } from '../../src/core/matchedSetsAnalysis';
+import { analyseWeighting } from '../../src/core/weightingAnalysis';
+import type { WeightingInput } from '../../src/core/weightingInput';
+import { SplitMix64 } from '../../src/core/seededRandom';
+import { setsAmplificationPlot, setsEstimatePlot, setsPValuePlot } from '../../src/methods/sets/plots';
+import { weightingPlots } from '../../src/methods/weighting/plots';
+
+/** Invented matched sets (fictional): `sets` sets with 1–4 controls, a shift of `effect` for the treated. */
+function fictionalSets(sets: number, effect: number, seed: number, binary = false): MatchedSetsInput {
+  const g = new SplitMix64(seed);
+  const normal = () => Math.sqrt(-2 * Math.log(1 - g.nextDouble())) * Math.cos(2 * Math.PI * g.nextDouble());
+  const setIds: number[] = [];
+  const treated: number[] = [];
+  const outcomes: number[] = [];
+  for (let s = 0; s < sets; s++) {
+    const controls = 1 + Math.floor(g.nextDouble() * 4);
+    for (let u = 0; u <= controls; u++) {
+      const y = 50 + 10 * normal() + (u === 0 ? effect : 0);
+      setIds.push(s);
+      treated.push(u === 0 ? 1 : 0);
+      outcomes.push(binary ? (y > 55 ? 1 : 0) : y);
+    }
+  }
+  return { setIds, treated, outcomes };
+}
+
+/** Invented people for the weighting figures (fictional): two covariates, a treatment effect of 1.5. */
+function fictionalPeople(n: number, seed: number, extra: Partial<WeightingInput> = {}): WeightingInput {
+  const g = new SplitMix64(seed);
+  const normal = () => Math.sqrt(-2 * Math.log(1 - g.nextDouble())) * Math.cos(2 * Math.PI * g.nextDouble());
+  const x1: number[] = [];
+  const x2: number[] = [];
+  const treatment: number[] = [];
+  const outcome: number[] = [];
+  for (let i = 0; i < n; i++) {
+    const a = normal();
+    const b = g.nextDouble() < 0.4 ? 1 : 0;
+    const t = g.nextDouble() < 1 / (1 + Math.exp(-(1.2 * a - 0.5 * b))) ? 1 : 0;
+    x1.push(a);
+    x2.push(b);
+    treatment.push(t);
+    outcome.push(1.5 * t + a + 0.5 * b + normal());
+  }
+  return { treatment, outcome, covariates: [{ name: 'x1', values: x1 }, { name: 'x2', values: x2 }], estimand: 'ate', bootstrap: 40, seed: 7, ...extra };
+}
 
 /**
  * Every figure of every calculator, for the demo (src/demo/fictionalStudy.ts, fictional) and for crowded
@@ -83,6 +128,32 @@ export function figureCases(): { name: string; spec: PlotSpec }[] {
     cases.push({ name: `pairs p-value ${label}`, spec: pValueByGammaPlot(r, { study }) });
     cases.push({ name: `pairs estimate ${label}`, spec: estimateRangePlot(r, { study }) });
     cases.push({ name: `pairs amplification ${label}`, spec: amplificationPlot(r, { study }) });
+  }
+  // Matched sets: a continuous outcome, a binary one, and many Γ values.
+  const setsContinuous = analyseMatchedSets(fictionalSets(120, 6, 11));
+  const setsBinary = analyseMatchedSets(fictionalSets(300, 6, 12, true));
+  const setsManyGammas = analyseMatchedSets({ ...fictionalSets(80, 8, 13), gammas: Array.from({ length: 30 }, (_, i) => 1 + i * 0.1) });
+  for (const [label, r] of [
+    ['continuous', setsContinuous],
+    ['binary', setsBinary],
+    ['many Γ', setsManyGammas],
+  ] as const) {
+    cases.push({ name: `sets p-value ${label}`, spec: setsPValuePlot(r, { study }) });
+    cases.push({ name: `sets estimate ${label}`, spec: setsEstimatePlot(r, { study }) });
+    cases.push({ name: `sets amplification ${label}`, spec: setsAmplificationPlot(r, { study }) });
+  }
+
+  // Weighting: the default Λ values, and many close ones with poor overlap.
+  const weightingDefault = analyseWeighting(fictionalPeople(400, 21));
+  const weightingCrowded = analyseWeighting(fictionalPeople(300, 22, { lambdas: Array.from({ length: 14 }, (_, i) => 1 + i * 0.15) }));
+  for (const [label, r] of [
+    ['default', weightingDefault],
+    ['crowded', weightingCrowded],
+  ] as const) {
+    const plots = weightingPlots(r);
+    cases.push({ name: `weighting bounds ${label}`, spec: plots.bounds });
+    cases.push({ name: `weighting overlap ${label}`, spec: plots.overlap });
+    cases.push({ name: `weighting weights ${label}`, spec: plots.weights });
   }
   return cases.filter((c): c is { name: string; spec: PlotSpec } => c.spec !== null);
 }

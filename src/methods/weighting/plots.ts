@@ -94,7 +94,7 @@ export function propensityOverlapPlot(result: WeightingResult, options: Weightin
     width,
     height,
     x: { domain: [0, 1], label: 'Estimated propensity score (chance of treatment given the covariates)' },
-    y: { domain: [-bottom * 1.05, top * 1.05], label: 'People (treated above, control below)', tickFormat: (v) => formatNumber(Math.abs(v), { significant: 3 }) },
+    y: { domain: [-bottom * 1.05, top * 1.05], label: 'People (treated above, control below)', tickFormat: (v) => String(Math.abs(Number(v.toPrecision(6)))) }, // counts: 30, not 30.0
   });
   const marks: PlotMark[] = [];
   for (const b of bins) {
