@@ -67,9 +67,9 @@ Options:
                   regression of the treatment on the covariates (needed for its bounds), e.g. age=2.4:-2.6
   --covariate-r2  with reported numbers: a covariate's partial R² with the outcome and, if known, with the
                   treatment (fractions or percentages), e.g. age=0.04:1.2%
-  --times         multiples for the bounds (default ${DEFAULT_BENCHMARK_MULTIPLES.join(',')}): the confounder is k times as strongly
-                  associated with the treatment as the covariate, and k times with the outcome unless
-  --times-outcome gives separate outcome-side multiples k_Y, one per k (e.g. --times 1,2 --times-outcome 3,3)
+  --times         multiples for the bounds (default ${DEFAULT_BENCHMARK_MULTIPLES.join(',')}): a confounder that many times as strongly
+                  associated with the treatment as the covariate, and as many times with the outcome unless
+  --times-outcome gives separate outcome-side multiples, one per value of --times (e.g. --times 1,2 --times-outcome 3,3)
   --se-kind       how the reported standard error was computed: classical (default), robust, clustered or
                   unknown. The bias formula assumes the classical OLS standard error: with any other kind the
                   adjusted estimates hold, but the adjusted standard errors and t-values do not (a warning says so)

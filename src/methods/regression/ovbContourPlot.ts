@@ -47,7 +47,7 @@ const LEVEL_SAMPLES = 80;
  * conclusion flips — the adjusted estimate reaching (1 − q)·estimate, or the adjusted t for that null value
  * reaching the critical value of t with df − 1 degrees of freedom — is not taken from the grid: it is
  * evaluated in closed form at each R²dz (see `estimateBoundaryR2yz` and `significanceInterval`), and the
- * region beyond it is shaded. Benchmarks (confounders k times as strong as a covariate) are labelled points.
+ * region beyond it is shaded. Benchmarks (confounders some times as strong as a covariate) are labelled points.
  *
  * **References.** Cinelli C, Hazlett C (2020). Making sense of sensitivity: extending omitted variable bias.
  * JRSS-B 82(1):39–67, §4–6 (contour plots of the adjusted estimate and t over the two partial R²s, with
@@ -164,7 +164,7 @@ export function ovbContourPlot(result: OvbResult, options: OvbContourOptions): P
       labelSide: 'right',
     });
   }
-  if (benchmarkShown) legend.push({ label: 'a confounder as strong as an observed covariate (or k times)', color: markers.benchmark.color, swatch: markers.benchmark.shape });
+  if (benchmarkShown) legend.push({ label: 'a confounder as strong as an observed covariate (or several times)', color: markers.benchmark.color, swatch: markers.benchmark.shape });
   if (scenario && inDomain(scenario.r2dz, scenario.r2yz)) {
     marks.push({ kind: 'point', x: frame.x(scenario.r2dz), y: frame.y(scenario.r2yz), ...markers.chosen, size: 6, label: `chosen: ${formatLevel(value(scenario.r2dz, scenario.r2yz), kind)}`, labelSide: 'above' });
     legend.push({ label: 'chosen strength', color: markers.chosen.color, swatch: markers.chosen.shape });
