@@ -12,7 +12,7 @@ import { amplificationPlot } from '../../src/methods/pairs/amplificationPlot';
 import type { PlotSpec } from '../../src/plot/plotSpec';
 import { analyseMatchedSets, type MatchedSetsInput } from '../../src/core/matchedSetsAnalysis';
 import { analyseWeighting } from '../../src/core/weightingAnalysis';
-import type { WeightingInput } from '../../src/core/weightingInput';
+import { generatedInput } from './generatedWeightingInput';
 import { SplitMix64 } from '../../src/core/seededRandom';
 import { setsAmplificationPlot, setsEstimatePlot, setsPValuePlot } from '../../src/methods/sets/plots';
 import { weightingPlots } from '../../src/methods/weighting/plots';
@@ -36,25 +36,6 @@ function fictionalSets(sets: number, effect: number, seed: number, binary = fals
   return { setIds, treated, outcomes };
 }
 
-/** Invented people for the weighting figures (fictional): two covariates, a treatment effect of 1.5. */
-function fictionalPeople(n: number, seed: number, extra: Partial<WeightingInput> = {}): WeightingInput {
-  const g = new SplitMix64(seed);
-  const normal = () => Math.sqrt(-2 * Math.log(1 - g.nextDouble())) * Math.cos(2 * Math.PI * g.nextDouble());
-  const x1: number[] = [];
-  const x2: number[] = [];
-  const treatment: number[] = [];
-  const outcome: number[] = [];
-  for (let i = 0; i < n; i++) {
-    const a = normal();
-    const b = g.nextDouble() < 0.4 ? 1 : 0;
-    const t = g.nextDouble() < 1 / (1 + Math.exp(-(1.2 * a - 0.5 * b))) ? 1 : 0;
-    x1.push(a);
-    x2.push(b);
-    treatment.push(t);
-    outcome.push(1.5 * t + a + 0.5 * b + normal());
-  }
-  return { treatment, outcome, covariates: [{ name: 'x1', values: x1 }, { name: 'x2', values: x2 }], estimand: 'ate', bootstrap: 40, seed: 7, ...extra };
-}
 
 /**
  * Every figure of every calculator, for the demo (src/demo/fictionalStudy.ts, fictional) and for crowded
@@ -144,8 +125,8 @@ export function figureCases(): { name: string; spec: PlotSpec }[] {
   }
 
   // Weighting: the default Λ values, and many close ones with poor overlap.
-  const weightingDefault = analyseWeighting(fictionalPeople(400, 21));
-  const weightingCrowded = analyseWeighting(fictionalPeople(300, 22, { lambdas: Array.from({ length: 14 }, (_, i) => 1 + i * 0.15) }));
+  const weightingDefault = analyseWeighting(generatedInput(400, 21, { bootstrap: 40, seed: 7 }));
+  const weightingCrowded = analyseWeighting(generatedInput(300, 22, { bootstrap: 40, seed: 7, lambdas: Array.from({ length: 14 }, (_, i) => 1 + i * 0.15) }));
   for (const [label, r] of [
     ['default', weightingDefault],
     ['crowded', weightingCrowded],
